@@ -1,0 +1,61 @@
+import js from '@eslint/js';
+import tseslint from 'typescript-eslint';
+import reactHooks from 'eslint-plugin-react-hooks';
+import importX from 'eslint-plugin-import-x';
+import globals from 'globals';
+
+export default tseslint.config(
+  { ignores: ['dist/**', 'node_modules/**', 'data/**', 'drizzle/**', 'test-results/**', 'coverage/**'] },
+  js.configs.recommended,
+  ...tseslint.configs.recommended,
+  {
+    files: ['**/*.{ts,tsx}'],
+    languageOptions: {
+      parserOptions: { projectService: true, tsconfigRootDir: import.meta.dirname },
+      globals: { ...globals.browser, ...globals.node },
+    },
+    plugins: { 'react-hooks': reactHooks, 'import-x': importX },
+    rules: {
+      ...reactHooks.configs.recommended.rules,
+      'react-hooks/refs': 'off',
+      'react-hooks/set-state-in-effect': 'off',
+      '@typescript-eslint/no-floating-promises': 'error',
+      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/consistent-type-imports': 'error',
+      // Imports flow one way: src -> shared, server -> shared; shared imports neither.
+      'import-x/no-restricted-paths': [
+        'error',
+        {
+          zones: [
+            { target: './shared', from: './src', message: 'shared/ must not import from src/' },
+            { target: './shared', from: './server', message: 'shared/ must not import from server/' },
+            { target: './src', from: './server', message: 'the client must not import server code' },
+            { target: './server', from: './src', message: 'the server must not import client code' },
+          ],
+        },
+      ],
+      'no-restricted-imports': 'off',
+    },
+  },
+  {
+    files: ['shared/**/*.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['react', 'react-dom', 'three', '@react-three/*', 'express', 'drizzle-orm', 'drizzle-orm/*', '@electric-sql/*', 'better-auth', 'better-auth/*', 'pg', 'zustand'],
+              message: 'shared/ is pure TypeScript: no React, three, Express or database imports',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    files: ['**/*.js', '**/*.cjs', '**/*.mjs'],
+    ...tseslint.configs.disableTypeChecked,
+    languageOptions: { globals: { ...globals.node } },
+  },
+);
