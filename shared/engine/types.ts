@@ -93,8 +93,8 @@ export interface ElementCheck {
   readonly minimumWall: number;
   /** Max over cases of the ordered nominal wall needed. */
   readonly requiredNominalWall: number;
-  /** (nominalWall − requiredNominalWall) / requiredNominalWall; negative when failing. */
-  readonly margin: number;
+  /** (nominalWall − requiredNominalWall) / requiredNominalWall; negative when failing; null when nothing is required. */
+  readonly margin: number | null;
   readonly governing: CaseName | null;
   readonly lightestSchedule: string | null;
   /** Maximum allowable internal working pressure of the chosen wall (pressure units). */

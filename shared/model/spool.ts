@@ -98,6 +98,8 @@ const elementBase = {
   schedule: scheduleSchema.optional(),
   /** Explicit outside diameter D (in | mm), instead of nps. */
   outsideDiameter: positive().optional(),
+  /** Explicit inside diameter d (in | mm): straights then use the ID form, B31.3 Eq. (3b). */
+  insideDiameter: positive().optional(),
   /** Explicit nominal wall T (in | mm), instead of schedule. */
   nominalWall: positive().optional(),
   /** Outgoing direction in the sketch (straights: run direction; bends: direction after the bend). */
@@ -126,9 +128,9 @@ export const bendSchema = z.object({
 });
 export type Bend = z.infer<typeof bendSchema>;
 
-const withPipeSize = <T extends z.ZodType<{ nps?: unknown; schedule?: unknown; outsideDiameter?: unknown; nominalWall?: unknown }>>(s: T) =>
+const withPipeSize = <T extends z.ZodType<{ nps?: unknown; schedule?: unknown; outsideDiameter?: unknown; insideDiameter?: unknown; nominalWall?: unknown }>>(s: T) =>
   s.superRefine((el, ctx) => {
-    if (el.nps === undefined && el.outsideDiameter === undefined) {
+    if (el.nps === undefined && el.outsideDiameter === undefined && el.insideDiameter === undefined) {
       ctx.addIssue({ code: 'custom', path: ['nps'], message: 'give nps (with schedule) or outsideDiameter' });
     }
     if (el.schedule === undefined && el.nominalWall === undefined) {
