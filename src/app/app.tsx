@@ -1,11 +1,16 @@
-import { CAUTION } from '@shared/model/caution';
+import { useState } from 'react';
+import { QueryClientProvider } from '@tanstack/react-query';
+import { RouterProvider } from 'react-router-dom';
+import { createQueryClient } from '@/lib/query-client';
+import { createAppRouter } from './router';
 
-/** Placeholder shell; the sketcher and spool pages mount here. */
+/** Root component: query cache + router. */
 export function App() {
+  const [queryClient] = useState(createQueryClient);
+  const [router] = useState(createAppRouter);
   return (
-    <main className="mx-auto max-w-3xl p-8 font-sans">
-      <h1 className="text-3xl font-semibold text-steel-800">Spoolwright</h1>
-      <p className="mt-4 text-sm text-steel-600">{CAUTION}</p>
-    </main>
+    <QueryClientProvider client={queryClient}>
+      <RouterProvider router={router} />
+    </QueryClientProvider>
   );
 }

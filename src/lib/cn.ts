@@ -1,0 +1,4 @@
+/** Join class names, dropping falsy ones. */
+export function cn(...parts: (string | false | null | undefined)[]): string {
+  return parts.filter(Boolean).join(' ');
+}
