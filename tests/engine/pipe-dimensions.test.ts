@@ -28,7 +28,7 @@ describe('outside diameters', () => {
     ['5', 'B36.10M', 125, 5.563, 141.3, B10],
     ['6', 'B36.10M', 150, 6.625, 168.3, B10],
     ['8', 'B36.10M', 200, 8.625, 219.1, B10],
-    // NPS 10 and 12 metric ODs differ between the standards (project engine notes §7).
+    // NPS 10 and 12 metric ODs differ between the standards: ASME B36.10M vs B36.19M Table 1.
     ['10', 'B36.10M', 250, 10.75, 273.0, B10],
     ['12', 'B36.10M', 300, 12.75, 323.8, B10],
     ['10', 'B36.19M', 250, 10.75, 273.1, B19],
@@ -120,7 +120,7 @@ describe('walls', () => {
   });
 
   it('carries the OD of its own standard (NPS 10: 273.0 mm B36.10M, 273.1 mm B36.19M)', () => {
-    // Project engine notes §7 / ASME B36.10M and B36.19M Table 1.
+    // ASME B36.10M and B36.19M Table 1 metric columns.
     expect(getPipeWall('10', '40')?.odMm).toBe(273.0);
     expect(getPipeWall('10', '40S')?.odMm).toBe(273.1);
     expect(getPipeWall('12', 'STD')?.odMm).toBe(323.8);
@@ -162,7 +162,7 @@ describe('walls', () => {
   });
 });
 
-describe('STD, XS and the S schedules (project engine notes §7)', () => {
+describe('STD, XS and the S schedules (ASME B36.10M / B36.19M Table 1)', () => {
   const index = (nps: string) => NPS_SIZES.indexOf(nps);
 
   it.each(NPS_SIZES)('NPS %s STD: Sch 40 up to NPS 10, then 0.375 in', (nps) => {
