@@ -231,8 +231,15 @@ export const MATERIALS: readonly Material[] = [
 
 /** Notes for stretches of a stress row where the source omits a column (keyed by row object). */
 const GAP_NOTES = new WeakMap<readonly MaterialPoint[], { fromF: number; toF: number; note: string }>();
+/** Source of each built-in row on its own (the material's `source` names all its rows). */
+const ROW_SOURCES = new WeakMap<readonly MaterialPoint[], string>();
 for (const m of MATERIALS) {
   if (m.spec === 'ASTM A335') GAP_NOTES.set(m.stress, { fromF: 100, toF: 300, note: A335_GAP });
+  const cut = m.source.indexOf(' Sy(T): ');
+  if (cut >= 0) {
+    ROW_SOURCES.set(m.stress, m.source.slice(0, cut));
+    if (m.yield !== undefined) ROW_SOURCES.set(m.yield, YIELD_SOURCE);
+  }
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -358,7 +365,7 @@ function lookupRow(
     ok: true,
     value: r.value,
     fromMemory: r.fromMemory,
-    source: `${source}; ${what} ${where}${r.fromMemory ? ` — ${FROM_MEMORY_NOTE}` : ''}`,
+    source: `${source.replace(/\.\s*$/, '')}; ${what} ${where}${r.fromMemory ? ` — ${FROM_MEMORY_NOTE}` : ''}`,
   };
 }
 
@@ -375,7 +382,7 @@ function belowMinimum(m: Material, tempF: number, what: string): Lookup | undefi
 /** Allowable stress S (psi) at tempF; reason names the table range when above the top temperature or below minTempF. */
 export function allowableStressAt(m: Material, tempF: number): Lookup {
   const what = `${m.id} allowable stress S`;
-  return belowMinimum(m, tempF, what) ?? lookupRow(m.stress, tempF, what, m.source, GAP_NOTES.get(m.stress));
+  return belowMinimum(m, tempF, what) ?? lookupRow(m.stress, tempF, what, ROW_SOURCES.get(m.stress) ?? m.source, GAP_NOTES.get(m.stress));
 }
 
 /**
@@ -391,7 +398,7 @@ export function yieldStrengthAt(m: Material, tempF: number): Lookup {
       reason: `${what}: no yield-versus-temperature table is held for ${m.id}; the specified minimum yield is ${m.yieldPsi} psi at room temperature`,
     };
   }
-  return belowMinimum(m, tempF, what) ?? lookupRow(m.yield, tempF, what, m.source);
+  return belowMinimum(m, tempF, what) ?? lookupRow(m.yield, tempF, what, ROW_SOURCES.get(m.yield) ?? m.source);
 }
 
 // ---------------------------------------------------------------------------------------------
