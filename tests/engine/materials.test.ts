@@ -80,7 +80,7 @@ describe('library integrity', () => {
       );
     },
   );
-  it('leaves out TP347: no stress row was found or recalled (MATERIALS basis note)', () => {
+  it('leaves out TP347: no stress row was found or recalled', () => {
     expect(findMaterial('A312-TP347')).toBeUndefined();
   });
 });
