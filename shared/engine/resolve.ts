@@ -180,6 +180,9 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
     const w = weldStrengthFactorW(material.wFamily, form, tempF);
     W = w.value;
     inputs.push({ symbol: 'W', label: `weld joint strength reduction factor (${w.rule})`, value: W, unit: '', source: w.source });
+    if (W < 1 || w.rule.includes('not embedded')) {
+      notes.push({ level: 'warning', code: 'w-rule', text: `W = ${fmt(W)}: ${w.rule}` });
+    }
   } else {
     W = 1;
     inputs.push({ symbol: 'W', label: 'weld joint strength reduction factor', value: 1, unit: '', source: 'assumed 1.0: no material given (set weldStrengthFactor for welded pipe at elevated temperature)' });
