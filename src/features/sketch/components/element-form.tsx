@@ -1,0 +1,214 @@
+import { useEffect, useMemo } from 'react';
+import { zodResolver } from '@hookform/resolvers/zod';
+import { useForm, useWatch } from 'react-hook-form';
+import { z } from 'zod';
+import { listPipeWalls, normalizeNps, NPS_SIZES, SCHEDULES } from '@shared/data/pipe-dimensions';
+import {
+  bendRadiusSchema,
+  bendSchema,
+  DIRECTIONS,
+  END_TYPES,
+  straightSchema,
+  type Bend,
+  type SpoolElement,
+  type Straight,
+} from '@shared/model/spool';
+import { Button } from '@/components/ui/button';
+import { SelectField, TextField } from '@/components/ui/field';
+import { fieldMessage, parseNumberInput, parseTextInput } from './condition-fields';
+import { roundForEntry, useDisplayUnits, type DisplayUnits } from './display-units';
+
+export const ELEMENT_FIELD_LABELS = {
+  tag: 'Tag',
+  nps: 'NPS',
+  schedule: 'Schedule',
+  direction: 'Direction',
+  length: 'Length',
+  endType: 'End type',
+  angle: 'Bend angle',
+  radiusMode: 'Bend radius given as',
+  radiusValue: 'Bend radius',
+} as const;
+
+/** The element's editable fields, validated with the shared element schemas' own field rules. */
+export const elementFormSchema = z
+  .object({
+    kind: z.enum(['straight', 'bend']),
+    tag: straightSchema.shape.tag,
+    // The picker only offers trade designations, so the form holds the string form of the NPS.
+    nps: z.string().trim().min(1, 'must not be empty').optional(),
+    schedule: z.string().trim().min(1, 'must not be empty').optional(),
+    direction: straightSchema.shape.direction,
+    length: z.number().optional(),
+    endType: straightSchema.shape.endType,
+    angle: z.number().optional(),
+    radiusMode: z.enum(['multipleOfD', 'length']).optional(),
+    radiusValue: z.number().optional(),
+  })
+  .superRefine((v, ctx) => {
+    const check = (schema: z.ZodType, value: unknown, path: string) => {
+      const r = schema.safeParse(value);
+      if (!r.success) ctx.addIssue({ code: 'custom', path: [path], message: r.error.issues[0]?.message ?? 'is not valid' });
+    };
+    if (v.kind === 'straight') check(straightSchema.shape.length, v.length, 'length');
+    if (v.kind === 'bend') {
+      check(bendSchema.shape.angle, v.angle, 'angle');
+      check(bendRadiusSchema, v.radiusMode === 'multipleOfD' ? { multipleOfD: v.radiusValue } : v.radiusValue, 'radiusValue');
+    }
+  });
+export type ElementFormValues = z.infer<typeof elementFormSchema>;
+
+export function elementToForm(el: SpoolElement, units: DisplayUnits): ElementFormValues {
+  const nps = el.nps === undefined ? undefined : (normalizeNps(el.nps) ?? String(el.nps));
+  const base = { tag: el.tag, nps, schedule: el.schedule === undefined ? undefined : String(el.schedule), direction: el.direction };
+  if (el.kind === 'straight') {
+    return { kind: 'straight', ...base, length: roundForEntry(units.toDisplay(el.length, 'length')), endType: el.endType };
+  }
+  const r = el.bendRadius;
+  return {
+    kind: 'bend',
+    ...base,
+    angle: el.angle,
+    radiusMode: typeof r === 'number' ? 'length' : 'multipleOfD',
+    radiusValue: typeof r === 'number' ? roundForEntry(units.toDisplay(r, 'length')) : r.multipleOfD,
+  };
+}
+
+/** The changed fields as a patch in document units (untouched values keep their exact stored number). */
+export function formToElementPatch(
+  values: ElementFormValues,
+  el: SpoolElement,
+  isDirty: (name: keyof ElementFormValues) => boolean,
+  units: DisplayUnits,
+): Partial<Straight> | Partial<Bend> {
+  const patch: Record<string, unknown> = {};
+  if (isDirty('tag')) patch.tag = values.tag;
+  if (isDirty('nps')) patch.nps = values.nps;
+  if (isDirty('schedule')) patch.schedule = values.schedule;
+  if (isDirty('direction')) patch.direction = values.direction;
+  if (el.kind === 'straight') {
+    if (isDirty('length') && values.length !== undefined) patch.length = units.fromDisplay(values.length, 'length');
+    if (isDirty('endType')) patch.endType = values.endType;
+  } else {
+    if (isDirty('angle')) patch.angle = values.angle;
+    if ((isDirty('radiusValue') || isDirty('radiusMode')) && values.radiusValue !== undefined) {
+      patch.bendRadius = values.radiusMode === 'multipleOfD' ? { multipleOfD: values.radiusValue } : units.fromDisplay(values.radiusValue, 'length');
+    }
+  }
+  return patch as Partial<Straight> | Partial<Bend>;
+}
+
+const opt = (values: readonly string[], empty?: string) => [
+  ...(empty !== undefined ? [{ value: '', label: empty }] : []),
+  ...values.map((v) => ({ value: v, label: v })),
+];
+
+export interface ElementFormProps {
+  readonly element: SpoolElement;
+  readonly onApply: (patch: Partial<Straight> | Partial<Bend>) => void;
+  readonly readOnly?: boolean;
+}
+
+/** Properties of one straight or bend. Enter or "Apply" writes the changed fields (one undo step). */
+export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
+  const units = useDisplayUnits();
+  const defaults = useMemo(() => elementToForm(element, units), [element, units]);
+  const form = useForm<ElementFormValues>({ resolver: zodResolver(elementFormSchema), mode: 'onChange', defaultValues: defaults });
+  const { reset, register, formState } = form;
+  useEffect(() => {
+    reset(defaults);
+  }, [defaults, reset]);
+  const nps = useWatch({ control: form.control, name: 'nps' });
+  const radiusMode = useWatch({ control: form.control, name: 'radiusMode' });
+  const scheduleChoices = useMemo(() => {
+    const listed = typeof nps === 'string' && nps !== '' ? listPipeWalls(nps).map((w) => w.schedule) : [];
+    const list = listed.length > 0 ? listed : [...SCHEDULES];
+    const current = defaults.schedule;
+    return current && !list.includes(current) ? [current, ...list] : list;
+  }, [nps, defaults.schedule]);
+  const npsChoices = useMemo(() => {
+    const current = defaults.nps;
+    return current && !NPS_SIZES.includes(current) ? [current, ...NPS_SIZES] : [...NPS_SIZES];
+  }, [defaults.nps]);
+
+  const errors = formState.errors;
+  const msg = (name: keyof typeof ELEMENT_FIELD_LABELS) => fieldMessage(ELEMENT_FIELD_LABELS[name], errors[name]?.message);
+  const submit = form.handleSubmit((values) => {
+    const dirty = formState.dirtyFields as Record<string, unknown>;
+    const patch = formToElementPatch(values, element, (n) => Boolean(dirty[n]), units);
+    if (Object.keys(patch).length > 0) onApply(patch);
+  });
+
+  return (
+    <form aria-label="Element properties" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-3">
+      <div className="grid grid-cols-2 gap-x-3 gap-y-2">
+        <SelectField label="NPS" disabled={readOnly} options={opt(npsChoices)} error={msg('nps')} {...register('nps', { setValueAs: parseTextInput })} />
+        <SelectField
+          label="Schedule"
+          disabled={readOnly}
+          options={opt(scheduleChoices)}
+          error={msg('schedule')}
+          {...register('schedule', { setValueAs: parseTextInput })}
+        />
+        {element.kind === 'straight' ? (
+          <>
+            <TextField
+              label="Length"
+              unit={units.label('length')}
+              inputMode="decimal"
+              autoComplete="off"
+              disabled={readOnly}
+              error={msg('length')}
+              {...register('length', { setValueAs: parseNumberInput })}
+            />
+            <SelectField label="End type" disabled={readOnly} options={opt(END_TYPES, 'plain (default)')} error={msg('endType')} {...register('endType', { setValueAs: parseTextInput })} />
+          </>
+        ) : (
+          <>
+            <TextField
+              label="Bend angle"
+              unit="°"
+              inputMode="decimal"
+              autoComplete="off"
+              disabled={readOnly}
+              error={msg('angle')}
+              {...register('angle', { setValueAs: parseNumberInput })}
+            />
+            <div />
+            <SelectField
+              label="Bend radius given as"
+              disabled={readOnly}
+              options={[
+                { value: 'multipleOfD', label: 'multiple of D' },
+                { value: 'length', label: 'length' },
+              ]}
+              error={msg('radiusMode')}
+              {...register('radiusMode')}
+            />
+            <TextField
+              label="Bend radius"
+              unit={radiusMode === 'multipleOfD' ? '× D' : units.label('length')}
+              inputMode="decimal"
+              autoComplete="off"
+              disabled={readOnly}
+              error={msg('radiusValue')}
+              {...register('radiusValue', { setValueAs: parseNumberInput })}
+            />
+          </>
+        )}
+        <SelectField label="Direction" disabled={readOnly} options={opt(DIRECTIONS, '(not set)')} error={msg('direction')} {...register('direction', { setValueAs: parseTextInput })} />
+        <TextField label="Tag" autoComplete="off" disabled={readOnly} error={msg('tag')} {...register('tag', { setValueAs: parseTextInput })} />
+      </div>
+      {readOnly ? null : (
+        <div className="flex gap-2">
+          <Button type="submit" variant="primary" size="sm" disabled={!formState.isDirty}>
+            Apply
+          </Button>
+          <Button size="sm" variant="ghost" disabled={!formState.isDirty} onClick={() => reset(defaults)}>
+            Discard
+          </Button>
+        </div>
+      )}
+    </form>
+  );
+}

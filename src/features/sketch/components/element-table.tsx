@@ -1,0 +1,161 @@
+import { useEffect, useMemo, useRef, useState } from 'react';
+import {
+  flexRender,
+  getCoreRowModel,
+  getFilteredRowModel,
+  getSortedRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from '@tanstack/react-table';
+import type { ElementCheck } from '@shared/engine/types';
+import type { SpoolElement } from '@shared/model/spool';
+import { inputClass } from '@/components/ui/field';
+import { CheckBadge } from '@/components/ui/status-badge';
+import { formatNumber, formatPercent } from '@/lib/format';
+import { cn } from '@/lib/cn';
+import { caseLabel } from './check-report';
+import { useDisplayUnits } from './display-units';
+
+interface Row {
+  readonly index: number;
+  readonly el: SpoolElement;
+  readonly check: ElementCheck | undefined;
+  readonly status: string;
+}
+
+const STATUS_ORDER: Record<string, number> = { pass: 0, marginal: 1, review: 2, fail: 3, invalid: 4 };
+
+export interface ElementTableProps {
+  readonly elements: readonly SpoolElement[];
+  readonly checks: readonly ElementCheck[];
+  readonly selectedId: string | null;
+  readonly onSelect: (id: string) => void;
+}
+
+/** Every element of the spool with its check; follows and drives the canvas selection. */
+export function ElementTable({ elements, checks, selectedId, onSelect }: ElementTableProps) {
+  const units = useDisplayUnits();
+  const [sorting, setSorting] = useState<SortingState>([]);
+  const [statusFilter, setStatusFilter] = useState('');
+  const byId = useMemo(() => new Map(checks.map((c) => [c.id, c])), [checks]);
+  const data = useMemo<Row[]>(
+    () => elements.map((el, index) => ({ index, el, check: byId.get(el.id), status: byId.get(el.id)?.status ?? 'invalid' })),
+    [elements, byId],
+  );
+  const columns = useMemo<ColumnDef<Row>[]>(
+    () => [
+      { id: 'index', header: '#', accessorFn: (r) => r.index + 1 },
+      { id: 'id', header: 'Element', accessorFn: (r) => r.el.id, cell: ({ row }) => <code>{row.original.el.id}</code> },
+      { id: 'kind', header: 'Kind', accessorFn: (r) => r.el.kind },
+      { id: 'nps', header: 'NPS', accessorFn: (r) => String(r.el.nps ?? '—') },
+      { id: 'schedule', header: 'Sch.', accessorFn: (r) => String(r.el.schedule ?? '—') },
+      {
+        id: 'size',
+        header: `Length / angle`,
+        accessorFn: (r) => (r.el.kind === 'straight' ? r.el.length : r.el.angle),
+        cell: ({ row }) => {
+          const el = row.original.el;
+          return el.kind === 'straight' ? `${formatNumber(units.toDisplay(el.length, 'length'))} ${units.label('length')}` : `${formatNumber(el.angle)}°`;
+        },
+      },
+      {
+        id: 'status',
+        header: 'Check',
+        accessorFn: (r) => r.status,
+        sortingFn: (a, b) => (STATUS_ORDER[a.original.status] ?? 9) - (STATUS_ORDER[b.original.status] ?? 9),
+        filterFn: (row, _id, value) => value === '' || row.original.status === value,
+        cell: ({ row }) => <CheckBadge status={row.original.status} />,
+      },
+      {
+        id: 'margin',
+        header: 'Margin',
+        accessorFn: (r) => r.check?.margin ?? Number.NEGATIVE_INFINITY,
+        cell: ({ row }) => formatPercent(row.original.check?.margin),
+      },
+      { id: 'governing', header: 'Governs', accessorFn: (r) => caseLabel(r.check?.governing) },
+    ],
+    [units],
+  );
+  // The table instance is used only in this component's own render.
+  // eslint-disable-next-line react-hooks/incompatible-library
+  const table = useReactTable({
+    data,
+    columns,
+    state: { sorting, columnFilters: statusFilter ? [{ id: 'status', value: statusFilter }] : [] },
+    onSortingChange: setSorting,
+    getCoreRowModel: getCoreRowModel(),
+    getSortedRowModel: getSortedRowModel(),
+    getFilteredRowModel: getFilteredRowModel(),
+    getRowId: (r) => r.el.id,
+  });
+
+  const bodyRef = useRef<HTMLTableSectionElement>(null);
+  useEffect(() => {
+    if (!selectedId) return;
+    const tr = bodyRef.current?.querySelector<HTMLElement>(`[data-element-id="${CSS.escape(selectedId)}"]`);
+    tr?.scrollIntoView?.({ block: 'nearest' });
+  }, [selectedId]);
+
+  const shown = table.getRowModel().rows.length;
+  return (
+    <section aria-label="Element list" className="flex h-full min-h-0 flex-col">
+      <div className="flex items-center gap-2 border-b border-steel-200 px-2 py-1">
+        <h3 className="text-xs font-semibold uppercase tracking-wide text-steel-600">Element list</h3>
+        <span className="text-xs text-steel-400">
+          {shown} of {elements.length}
+        </span>
+        <select aria-label="Filter elements by check" className={cn(inputClass, 'ml-auto h-7 w-36 text-xs')} value={statusFilter} onChange={(e) => setStatusFilter(e.target.value)}>
+          <option value="">every check</option>
+          {['pass', 'marginal', 'fail', 'review', 'invalid'].map((s) => (
+            <option key={s} value={s}>
+              {s}
+            </option>
+          ))}
+        </select>
+      </div>
+      <div className="min-h-0 flex-1 overflow-auto">
+        <table className="w-full text-xs" data-testid="element-table">
+          <thead className="sticky top-0 bg-steel-100 text-left text-steel-600">
+            {table.getHeaderGroups().map((hg) => (
+              <tr key={hg.id}>
+                {hg.headers.map((h) => {
+                  const sorted = h.column.getIsSorted();
+                  return (
+                    <th key={h.id} className="px-2 py-1 font-medium" aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
+                      <button type="button" className="flex items-center gap-0.5 hover:text-steel-900" onClick={h.column.getToggleSortingHandler()}>
+                        {flexRender(h.column.columnDef.header, h.getContext())}
+                        <span aria-hidden className="text-copper-500">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}</span>
+                      </button>
+                    </th>
+                  );
+                })}
+              </tr>
+            ))}
+          </thead>
+          <tbody ref={bodyRef}>
+            {table.getRowModel().rows.map((row) => {
+              const selected = row.original.el.id === selectedId;
+              return (
+                <tr
+                  key={row.id}
+                  data-element-id={row.original.el.id}
+                  aria-selected={selected}
+                  onClick={() => onSelect(row.original.el.id)}
+                  className={cn('cursor-pointer border-t border-steel-100 hover:bg-steel-50', selected && 'bg-copper-400/20 hover:bg-copper-400/25')}
+                >
+                  {row.getVisibleCells().map((cell) => (
+                    <td key={cell.id} className="px-2 py-0.5 tabular-nums">
+                      {flexRender(cell.column.columnDef.cell, cell.getContext())}
+                    </td>
+                  ))}
+                </tr>
+              );
+            })}
+          </tbody>
+        </table>
+        {elements.length === 0 ? <p className="p-3 text-center text-xs text-steel-500">No elements yet: start a run and draw legs.</p> : null}
+      </div>
+    </section>
+  );
+}
