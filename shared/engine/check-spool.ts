@@ -1,4 +1,4 @@
-import type { SpoolDocument } from '../model/spool';
+import type { SpoolDocument, SpoolElement } from '../model/spool';
 import { CAUTION } from '../model/caution';
 import type { CheckStatus, CheckSummary, ElementCheck, SpoolCheck } from './types';
 import { checkElement } from './check-element';
@@ -22,6 +22,10 @@ export function worseStatus(a: CheckStatus | null, b: CheckStatus): CheckStatus 
  */
 export function checkSpool(doc: SpoolDocument, options: CheckOptions = {}): SpoolCheck {
   const elements: ElementCheck[] = doc.elements.map((el, i) => checkElement(doc, el, i, options.findMaterial));
+  return summarise(doc, elements);
+}
+
+function summarise(doc: SpoolDocument, elements: readonly ElementCheck[]): SpoolCheck {
   const summary: { -readonly [K in keyof CheckSummary]: number } = { pass: 0, marginal: 0, fail: 0, review: 0, invalid: 0 };
   let worst: CheckStatus | null = null;
   for (const e of elements) {
@@ -29,4 +33,31 @@ export function checkSpool(doc: SpoolDocument, options: CheckOptions = {}): Spoo
     worst = worseStatus(worst, e.status);
   }
   return { units: doc.units, elements, summary, worst, caution: CAUTION };
+}
+
+/**
+ * A checker that reuses the result of every element whose object, spool conditions, units and
+ * position are unchanged since the last call. Documents are immutable, so an edit re-checks only
+ * the elements it touched: the sketcher re-colours one element without re-checking a thousand.
+ * Results are identical to `checkSpool` (same pure function per element).
+ */
+export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocument) => SpoolCheck {
+  let cache = new WeakMap<SpoolElement, { doc: SpoolDocument; index: number; result: ElementCheck }>();
+  let lastConditions: SpoolDocument['conditions'] | null = null;
+  let lastUnits: SpoolDocument['units'] | null = null;
+  return (doc) => {
+    if (doc.conditions !== lastConditions || doc.units !== lastUnits) {
+      cache = new WeakMap();
+      lastConditions = doc.conditions;
+      lastUnits = doc.units;
+    }
+    const elements = doc.elements.map((el, i) => {
+      const hit = cache.get(el);
+      if (hit && hit.index === i) return hit.result;
+      const result = checkElement(doc, el, i, options.findMaterial);
+      cache.set(el, { doc, index: i, result });
+      return result;
+    });
+    return summarise(doc, elements);
+  };
 }

@@ -1,5 +1,5 @@
 /** The check engine's public surface: the only barrel of shared/engine. */
-export { checkSpool, worseStatus } from './check-spool';
+export { checkSpool, createSpoolChecker, worseStatus } from './check-spool';
 export type { CheckOptions } from './check-spool';
 export { checkElement, MARGINAL_LIMIT } from './check-element';
 export { resolveElement } from './resolve';
