@@ -1,0 +1,94 @@
+import fs from 'node:fs';
+import path from 'node:path';
+import express, { type RequestHandler } from 'express';
+import { toNodeHandler } from 'better-auth/node';
+import type { Db } from './db/client';
+import type { Auth } from './auth/auth';
+import { loadSession } from './auth/member';
+import type { ServerConfig } from './config';
+import type { Mailer } from './mail/mailer';
+import { silentLogger, type Logger } from './logger';
+import { apiNotFound, errorHandler } from './errors';
+import { spoolsRouter } from './routes/spools';
+import { meRouter } from './routes/me';
+import { checkRouter } from './routes/check';
+import { catalogRouter } from './routes/catalog';
+import { adminRouter } from './routes/admin';
+
+export interface AppDeps {
+  db: Db;
+  auth: Auth;
+  mailer: Mailer;
+  config: ServerConfig;
+  logger?: Logger;
+  /** Built client to serve with SPA fallback (dist/); omitted in tests and the API-only dev server. */
+  staticDir?: string | undefined;
+}
+
+/** Largest JSON body accepted (a 20,000-element spool document fits comfortably). */
+export const JSON_LIMIT = '2mb';
+
+const securityHeaders: RequestHandler = (_req, res, next) => {
+  res.setHeader('X-Content-Type-Options', 'nosniff');
+  res.setHeader('Referrer-Policy', 'same-origin');
+  res.setHeader('X-Frame-Options', 'DENY');
+  next();
+};
+
+/** The Express app without listening, so tests mount it directly. */
+export function createApp(deps: AppDeps) {
+  const logger = deps.logger ?? silentLogger;
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', false);
+  app.use(securityHeaders);
+
+  // better-auth reads the raw body itself, so it is mounted before the JSON parser. Its rate
+  // limiter keys on x-forwarded-for: set it from the socket so clients cannot pick their key.
+  const authHandler = toNodeHandler(deps.auth);
+  app.all('/api/auth{/*any}', (req, res) => {
+    req.headers['x-forwarded-for'] = req.socket.remoteAddress ?? '127.0.0.1';
+    void authHandler(req, res);
+  });
+
+  app.use('/api', (_req, res, next) => {
+    res.setHeader('Cache-Control', 'no-store');
+    next();
+  });
+  app.use('/api', express.json({ limit: JSON_LIMIT }));
+
+  app.get('/api/health', (_req, res) => {
+    res.json({ ok: true });
+  });
+
+  app.use('/api', loadSession(deps.auth, deps.db));
+  app.use('/api/me', meRouter());
+  app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
+  app.use('/api/check', checkRouter());
+  app.use('/api', catalogRouter());
+  app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
+  app.use('/api', apiNotFound);
+
+  if (deps.staticDir) {
+    const dir = path.resolve(deps.staticDir);
+    const indexHtml = path.join(dir, 'index.html');
+    app.use(express.static(dir, { index: false, maxAge: '1h', setHeaders: noCacheHtml }));
+    // SPA fallback: any other GET that wants HTML gets the app shell.
+    app.get('/{*any}', (req, res, next) => {
+      if (!fs.existsSync(indexHtml)) {
+        next();
+        return;
+      }
+      res.setHeader('Cache-Control', 'no-cache');
+      res.sendFile(indexHtml);
+    });
+  }
+
+  app.use(errorHandler(logger));
+  return app;
+}
+
+function noCacheHtml(res: express.Response, filePath: string) {
+  if (filePath.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
+  else if (filePath.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+}

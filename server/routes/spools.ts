@@ -1,0 +1,230 @@
+import { Router } from 'express';
+import { z } from 'zod';
+import { and, eq, inArray } from 'drizzle-orm';
+import type { Db } from '../db/client';
+import { teamMembers, user } from '../db/schema';
+import { getContext, getTeamId, requirePermission } from '../auth/member';
+import { HttpError, forbidden, notFound } from '../errors';
+import { sendQuietly, type Mailer } from '../mail/mailer';
+import type { Logger } from '../logger';
+import { parseBody, parseDocument } from '../validation';
+import { can, findTransition, SPOOL_STATUSES, type Action, type Role, type SpoolStatus } from '../../shared/model/permissions';
+import { runCheck, summarizeCheck } from '../spools/check';
+import type { SpoolDocument } from '../../shared/model/spool';
+import {
+  SORTS,
+  getRevision,
+  getSpool,
+  insertSpool,
+  listEvents,
+  listRevisions,
+  listSpools,
+  saveSpool,
+  softDeleteSpool,
+  transitionSpool,
+  type SpoolSort,
+} from '../spools/repo';
+
+const statusSchema = z.enum(SPOOL_STATUSES);
+
+const listQuerySchema = z.object({
+  search: z.string().trim().max(200).optional(),
+  status: z
+    .string()
+    .optional()
+    .transform((s, ctx) => {
+      if (!s) return undefined;
+      const parts = s.split(',').map((p) => p.trim()).filter(Boolean);
+      const bad = parts.find((p) => !(SPOOL_STATUSES as readonly string[]).includes(p));
+      if (bad !== undefined) {
+        ctx.addIssue({ code: 'custom', message: `unknown status "${bad}" (use ${SPOOL_STATUSES.join(', ')})` });
+        return z.NEVER;
+      }
+      return parts as SpoolStatus[];
+    }),
+  sort: z
+    .string()
+    .optional()
+    .default('-updatedAt')
+    .refine((s) => s in SORTS, { message: `use one of ${Object.keys(SORTS).join(', ')}` })
+    .transform((s) => s as SpoolSort),
+  page: z.coerce.number().int().min(1).max(100_000).optional().default(1),
+  pageSize: z.coerce.number().int().min(1).max(500).optional().default(50),
+});
+
+const saveBodySchema = z.object({
+  document: z.unknown(),
+  baseVersion: z.number({ error: 'must be the version you loaded (a whole number)' }).int().min(1),
+});
+
+const transitionBodySchema = z.object({
+  to: statusSchema,
+  note: z.string().trim().max(2000).optional(),
+  baseVersion: z.number().int().min(1).optional(),
+});
+
+/** The action a move to `to` needs (the permission table decides who holds it). */
+const ACTION_FOR_TARGET: Record<SpoolStatus, Action> = {
+  submitted: 'spool:submit',
+  checked: 'spool:check',
+  draft: 'spool:check',
+  released: 'spool:release',
+};
+
+/** Who hears about a transition: the role that acts next. */
+const NEXT_ROLES: Partial<Record<SpoolStatus, Role[]>> = {
+  submitted: ['checker', 'lead'],
+  checked: ['lead'],
+  released: ['fabricator'],
+};
+
+function checkDocument(doc: SpoolDocument) {
+  return summarizeCheck(runCheck(doc));
+}
+
+const idParam = (raw: unknown): string => {
+  const id = String(raw ?? '');
+  if (id.length === 0 || id.length > 100) throw notFound('Spool not found');
+  return id;
+};
+
+export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string }) {
+  const { db, mailer, logger } = deps;
+  const r = Router();
+
+  r.get('/', requirePermission('spool:view'), async (req, res) => {
+    const q = parseBody(listQuerySchema, req.query, ['query']);
+    res.json(await listSpools(db, getTeamId(res), q));
+  });
+
+  r.post('/', requirePermission('spool:edit'), async (req, res) => {
+    const body = parseBody(z.object({ document: z.unknown() }), req.body ?? {});
+    const document = parseDocument(body.document, ['document']);
+    const ctx = getContext(res);
+    const teamId = getTeamId(res);
+    const id = await insertSpool(db, { teamId, userId: ctx.user.id, document, checkSummary: checkDocument(document) });
+    res.status(201).location(`/api/spools/${id}`).json(await getSpool(db, teamId, id));
+  });
+
+  r.get('/:id', requirePermission('spool:view'), async (req, res) => {
+    const spool = await getSpool(db, getTeamId(res), idParam(req.params.id));
+    if (!spool) throw notFound('Spool not found');
+    res.json(spool);
+  });
+
+  r.put('/:id', requirePermission('spool:edit'), async (req, res) => {
+    const id = idParam(req.params.id);
+    const body = parseBody(saveBodySchema, req.body ?? {});
+    const document = parseDocument(body.document, ['document']);
+    const teamId = getTeamId(res);
+    const out = await saveSpool(db, {
+      teamId,
+      id,
+      userId: getContext(res).user.id,
+      baseVersion: body.baseVersion,
+      document,
+      checkSummary: checkDocument(document),
+    });
+    if (out.kind === 'not_found') throw notFound('Spool not found');
+    if (out.kind === 'conflict') {
+      const current = await getSpool(db, teamId, id);
+      if (!current) throw notFound('Spool not found');
+      throw new HttpError(409, 'conflict', `Someone saved this spool since you loaded it (now version ${current.version})`, { current });
+    }
+    res.json(await getSpool(db, teamId, id));
+  });
+
+  r.delete('/:id', requirePermission('spool:delete'), async (req, res) => {
+    const ok = await softDeleteSpool(db, getTeamId(res), idParam(req.params.id), getContext(res).user.id);
+    if (!ok) throw notFound('Spool not found');
+    res.status(204).end();
+  });
+
+  r.post('/:id/transitions', requirePermission('spool:view'), async (req, res) => {
+    const id = idParam(req.params.id);
+    const body = parseBody(transitionBodySchema, req.body ?? {});
+    const ctx = getContext(res);
+    if (!can(ctx.role, ACTION_FOR_TARGET[body.to])) throw forbidden(`Your role (${ctx.role ?? 'none'}) cannot move a spool to ${body.to}`);
+    const teamId = getTeamId(res);
+    const out = await transitionSpool(db, {
+      teamId,
+      id,
+      userId: ctx.user.id,
+      to: body.to,
+      note: body.note,
+      baseVersion: body.baseVersion,
+      isAllowed: (from, to) => findTransition(from, to) !== undefined,
+    });
+    if (out.kind === 'not_found') throw notFound('Spool not found');
+    if (out.kind === 'conflict') {
+      throw new HttpError(409, 'conflict', 'Someone changed this spool since you loaded it', { current: await getSpool(db, teamId, id) });
+    }
+    if (out.kind === 'invalid') {
+      throw new HttpError(409, 'invalid_transition', `A ${out.from} spool cannot move to ${body.to}`, { from: out.from, to: body.to });
+    }
+    if (out.kind === 'check_failed') {
+      throw new HttpError(409, 'check_failed', 'A spool with failing or invalid elements cannot be released', { summary: out.summary });
+    }
+    const spool = await getSpool(db, teamId, id);
+    if (!spool) throw notFound('Spool not found');
+    await notifyTransition({ teamId, spoolName: spool.name, spoolId: id, from: out.from, to: body.to, note: body.note, actor: ctx.user, lastEditors: out.lastEditors });
+    res.json(spool);
+  });
+
+  r.get('/:id/revisions', requirePermission('spool:view'), async (req, res) => {
+    const items = await listRevisions(db, getTeamId(res), idParam(req.params.id));
+    if (!items) throw notFound('Spool not found');
+    res.json({ items });
+  });
+
+  r.get('/:id/revisions/:rev', requirePermission('spool:view'), async (req, res) => {
+    const rev = Number(req.params.rev);
+    if (!Number.isInteger(rev) || rev < 0) throw notFound('Revision not found');
+    const out = await getRevision(db, getTeamId(res), idParam(req.params.id), rev);
+    if (!out) throw notFound('Revision not found');
+    res.json(out);
+  });
+
+  r.get('/:id/events', requirePermission('spool:view'), async (req, res) => {
+    const id = idParam(req.params.id);
+    const spool = await getSpool(db, getTeamId(res), id);
+    if (!spool) throw notFound('Spool not found');
+    res.json({ items: await listEvents(db, id) });
+  });
+
+  async function notifyTransition(n: {
+    teamId: string;
+    spoolId: string;
+    spoolName: string;
+    from: SpoolStatus;
+    to: SpoolStatus;
+    note: string | undefined;
+    actor: { id: string; name: string };
+    lastEditors: string[];
+  }) {
+    const roles = NEXT_ROLES[n.to];
+    let rows: { email: string; id: string }[];
+    if (roles) {
+      rows = await db
+        .select({ email: user.email, id: user.id })
+        .from(teamMembers)
+        .innerJoin(user, eq(user.id, teamMembers.userId))
+        .where(and(eq(teamMembers.teamId, n.teamId), inArray(teamMembers.role, roles)));
+    } else if (n.lastEditors.length > 0) {
+      rows = await db.select({ email: user.email, id: user.id }).from(user).where(inArray(user.id, n.lastEditors));
+    } else rows = [];
+    const to = [...new Set(rows.filter((r) => r.id !== n.actor.id).map((r) => r.email))];
+    if (to.length === 0) return;
+    const verb = n.to === 'draft' ? 'returned to draft' : n.to;
+    await sendQuietly(mailer, logger, {
+      to,
+      subject: `Spool ${n.spoolName} ${verb}`,
+      text:
+        `${n.actor.name} moved spool ${n.spoolName} from ${n.from} to ${n.to}.\n` +
+        (n.note ? `\nNote: ${n.note}\n` : '') +
+        `\nOpen it: ${deps.publicUrl}/spools/${n.spoolId}\n`,
+    });
+  }
+
+  return r;
+}
