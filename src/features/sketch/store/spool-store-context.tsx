@@ -1,6 +1,6 @@
 import { createContext, useContext, useMemo, useState, type ReactNode } from 'react';
 import { useStore } from 'zustand';
-import { checkSpool, type SpoolCheck } from '@shared/engine';
+import { createSpoolChecker, type SpoolCheck } from '@shared/engine';
 import type { SpoolDocument } from '@shared/model/spool';
 import { createSpoolStore, type SpoolStore, type SpoolStoreState } from './spool-store';
 
@@ -39,8 +39,27 @@ export function useSpoolStore<T>(selector: (state: SpoolStoreState) => T): T {
   return useStore(useSpoolStoreApi(), selector);
 }
 
-/** The check of the current document, derived with `checkSpool` (memoised on the document; never stored). */
+// One memoising checker per store, shared by every component that reads the check: the
+// store keeps unchanged elements as the same objects, so only edited elements are re-checked.
+const checkers = new WeakMap<SpoolStore, { check: (doc: SpoolDocument) => SpoolCheck; doc?: SpoolDocument; result?: SpoolCheck }>();
+
+/** Check a document with the store's shared memoising checker. */
+export function checkWithStore(store: SpoolStore, doc: SpoolDocument): SpoolCheck {
+  let entry = checkers.get(store);
+  if (!entry) {
+    entry = { check: createSpoolChecker() };
+    checkers.set(store, entry);
+  }
+  if (entry.doc !== doc || !entry.result) {
+    entry.result = entry.check(doc);
+    entry.doc = doc;
+  }
+  return entry.result;
+}
+
+/** The check of the current document (derived from the document with `checkSpool` semantics; never stored). */
 export function useSpoolCheck(): SpoolCheck {
+  const store = useSpoolStoreApi();
   const doc = useSpoolStore((s) => s.doc);
-  return useMemo(() => checkSpool(doc), [doc]);
+  return useMemo(() => checkWithStore(store, doc), [store, doc]);
 }
