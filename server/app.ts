@@ -14,6 +14,8 @@ import { meRouter } from './routes/me';
 import { checkRouter } from './routes/check';
 import { catalogRouter } from './routes/catalog';
 import { adminRouter } from './routes/admin';
+import { publicShareRouter, spoolSharesRouter } from './routes/shares';
+import { teamRouter } from './routes/team';
 
 export interface AppDeps {
   db: Db;
@@ -61,11 +63,14 @@ export function createApp(deps: AppDeps) {
     res.json({ ok: true });
   });
 
+  app.use('/api/share', publicShareRouter({ db: deps.db }));
   app.use('/api', loadSession(deps.auth, deps.db));
   app.use('/api/me', meRouter());
+  app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl }));
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
   app.use('/api/check', checkRouter());
   app.use('/api', catalogRouter());
+  app.use('/api/team', teamRouter({ db: deps.db }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);
 

@@ -1,0 +1,116 @@
+import { randomBytes } from 'node:crypto';
+import { Router } from 'express';
+import { and, desc, eq } from 'drizzle-orm';
+import { z } from 'zod';
+import type { Db } from '../db/client';
+import { shareLinks, user } from '../db/schema';
+import { getContext, getTeamId, requirePermission } from '../auth/member';
+import { HttpError, notFound } from '../errors';
+import { parseBody } from '../validation';
+import { getRevision, getSpool } from '../spools/repo';
+import { runCheck } from '../spools/check';
+
+const createSchema = z.object({
+  /** Revision to share; default the current one. */
+  revision: z.number().int().min(0).optional(),
+  expiresInDays: z.number().int().min(1).max(365).optional().default(30),
+});
+
+type ShareRow = typeof shareLinks.$inferSelect;
+
+function toShare(r: ShareRow, publicUrl: string, by: { id: string | null; name: string | null }) {
+  const now = Date.now();
+  return {
+    id: r.id,
+    url: `${publicUrl}/share/${r.id}`,
+    spoolId: r.spoolId,
+    revision: r.revision,
+    status: r.status,
+    name: r.name,
+    createdAt: r.createdAt.toISOString(),
+    expiresAt: r.expiresAt.toISOString(),
+    revokedAt: r.revokedAt ? r.revokedAt.toISOString() : null,
+    active: !r.revokedAt && r.expiresAt.getTime() > now,
+    createdBy: by.id ? { id: by.id, name: by.name ?? '' } : null,
+  };
+}
+
+/** Share links of a spool: /api/spools/:id/shares (lead, admin). */
+export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
+  const { db } = deps;
+  const r = Router({ mergeParams: true });
+
+  r.get('/', requirePermission('share:manage'), async (req, res) => {
+    const params = req.params as { id: string };
+    const teamId = getTeamId(res);
+    if (!(await getSpool(db, teamId, params.id))) throw notFound('Spool not found');
+    const rows = await db
+      .select({ s: shareLinks, byId: user.id, byName: user.name })
+      .from(shareLinks)
+      .leftJoin(user, eq(user.id, shareLinks.createdBy))
+      .where(and(eq(shareLinks.spoolId, params.id), eq(shareLinks.teamId, teamId)))
+      .orderBy(desc(shareLinks.createdAt));
+    res.json({ items: rows.map((x) => toShare(x.s, deps.publicUrl, { id: x.byId, name: x.byName })) });
+  });
+
+  r.post('/', requirePermission('share:manage'), async (req, res) => {
+    const params = req.params as { id: string };
+    const body = parseBody(createSchema, req.body ?? {});
+    const teamId = getTeamId(res);
+    const spool = await getSpool(db, teamId, params.id);
+    if (!spool) throw notFound('Spool not found');
+    const rev = await getRevision(db, teamId, params.id, body.revision ?? spool.revision);
+    if (!rev) throw notFound('Revision not found');
+    const ctx = getContext(res);
+    const [row] = await db
+      .insert(shareLinks)
+      .values({
+        id: randomBytes(24).toString('base64url'),
+        teamId,
+        spoolId: params.id,
+        revision: rev.revision,
+        status: rev.status,
+        name: rev.name,
+        line: rev.line,
+        // The link shows the revision as it is now, even if its draft is edited later.
+        document: rev.document,
+        createdBy: ctx.user.id,
+        expiresAt: new Date(Date.now() + body.expiresInDays * 86_400_000),
+      })
+      .returning();
+    res.status(201).json(toShare(row!, deps.publicUrl, { id: ctx.user.id, name: ctx.user.name }));
+  });
+
+  r.delete('/:shareId', requirePermission('share:manage'), async (req, res) => {
+    const params = req.params as { id: string; shareId: string };
+    const out = await db
+      .update(shareLinks)
+      .set({ revokedAt: new Date() })
+      .where(and(eq(shareLinks.id, params.shareId), eq(shareLinks.spoolId, params.id), eq(shareLinks.teamId, getTeamId(res))))
+      .returning({ id: shareLinks.id });
+    if (out.length === 0) throw notFound('Share link not found');
+    res.status(204).end();
+  });
+
+  return r;
+}
+
+/** GET /api/share/:token — the public read-only view; no account needed. */
+export function publicShareRouter(deps: { db: Db }) {
+  const r = Router();
+  r.get('/:token', async (req, res) => {
+    const token = String(req.params.token);
+    if (token.length > 100) throw notFound('Share link not found');
+    const [row] = await deps.db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
+    if (!row) throw notFound('Share link not found');
+    if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
+    if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
+    res.json({
+      spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
+      check: runCheck(row.document),
+      sharedAt: row.createdAt.toISOString(),
+      expiresAt: row.expiresAt.toISOString(),
+    });
+  });
+  return r;
+}

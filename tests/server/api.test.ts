@@ -1,0 +1,338 @@
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { createTestApp, demoEmail, sampleDocument, type TestApp } from './helpers';
+import { teams, teamMembers } from '../../server/db/schema';
+import { createUserWithPassword } from '../../server/db/seed';
+import { buildLongSpool } from '../../server/db/demo-spools';
+
+let t: TestApp;
+beforeAll(async () => {
+  t = await createTestApp();
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+async function createSpool(name = 'API test spool', doc: Record<string, unknown> = sampleDocument(name)) {
+  const lead = await t.signIn('lead');
+  const r = await lead.post('/api/spools').send({ document: doc });
+  expect(r.status).toBe(201);
+  return r.body as { id: string; version: number; revision: number; status: string };
+}
+
+describe('health, session and /api/me', () => {
+  it('answers health without a session', async () => {
+    const r = await t.anon().get('/api/health');
+    expect(r.status).toBe(200);
+    expect(r.body).toEqual({ ok: true });
+  });
+
+  it('refuses signed-out requests with 401 and the error shape', async () => {
+    const r = await t.anon().get('/api/spools');
+    expect(r.status).toBe(401);
+    expect(r.body.error).toMatchObject({ code: 'unauthenticated' });
+  });
+
+  it('rejects a wrong password', async () => {
+    const r = await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('designer'), password: 'not-the-password' });
+    expect(r.status).toBe(401);
+  });
+
+  it('has no public sign-up', async () => {
+    const r = await t.anon().post('/api/auth/sign-up/email').send({ email: 'new@spoolwright.test', password: 'long-enough-pw', name: 'New' });
+    expect(r.status).toBeGreaterThanOrEqual(400);
+  });
+
+  it('describes the signed-in member', async () => {
+    const r = await (await t.signIn('checker')).get('/api/me');
+    expect(r.status).toBe(200);
+    expect(r.body).toEqual({
+      user: { id: expect.any(String), email: 'checker@spoolwright.test', name: expect.any(String) },
+      team: { id: expect.any(String), name: expect.any(String) },
+      role: 'checker',
+      permissions: expect.arrayContaining(['spool:view', 'spool:check']),
+    });
+    expect(r.body.permissions).not.toContain('spool:edit');
+  });
+
+  it('signs out', async () => {
+    const agent = t.anon();
+    await agent.post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'spoolwright-demo' }).expect(200);
+    await agent.get('/api/me').expect(200);
+    await agent.post('/api/auth/sign-out').send({}).expect(200);
+    await agent.get('/api/me').expect(401);
+  });
+
+  it('serves unknown API routes as JSON 404', async () => {
+    const r = await (await t.signIn('lead')).get('/api/nothing-here');
+    expect(r.status).toBe(404);
+    expect(r.body.error.code).toBe('not_found');
+  });
+});
+
+describe('spools', () => {
+  it('creates, reads and lists a spool with its check summary', async () => {
+    const created = await createSpool('Create-read spool');
+    expect(created).toMatchObject({ name: 'Create-read spool', line: '2"-TS-0001-A1', status: 'draft', revision: 0, version: 1 });
+    const lead = await t.signIn('lead');
+    const r = await lead.get(`/api/spools/${created.id}`);
+    expect(r.status).toBe(200);
+    expect(r.body.document.elements).toHaveLength(3);
+    expect(r.body.summary).toMatchObject({ pass: expect.any(Number), fail: 0 });
+    expect(r.body.createdBy).toMatchObject({ id: expect.any(String), name: expect.any(String) });
+    const list = await lead.get('/api/spools').query({ search: 'create-read' });
+    expect(list.body.total).toBe(1);
+    expect(list.body.items[0]).not.toHaveProperty('document');
+    expect(list.body.items[0]).toMatchObject({ id: created.id, worst: { elementId: expect.any(String), status: expect.any(String) } });
+  });
+
+  it('lists the demo spools with search, status filter, sort and pages', async () => {
+    const lead = await t.signIn('lead');
+    const all = await lead.get('/api/spools').query({ sort: 'name', pageSize: 500 });
+    expect(all.status).toBe(200);
+    const names = all.body.items.map((s: { name: string }) => s.name);
+    expect(names).toEqual([...names].sort((a: string, b: string) => (a < b ? -1 : a > b ? 1 : 0)));
+    const released = await lead.get('/api/spools').query({ status: 'released' });
+    expect(released.body.items.length).toBeGreaterThan(0);
+    expect(released.body.items.every((s: { status: string }) => s.status === 'released')).toBe(true);
+    const paged = await lead.get('/api/spools').query({ sort: 'name', page: 2, pageSize: 2 });
+    expect(paged.body).toMatchObject({ page: 2, pageSize: 2, total: all.body.total });
+    expect(paged.body.items.map((s: { name: string }) => s.name)).toEqual(names.slice(2, 4));
+    const bad = await lead.get('/api/spools').query({ sort: 'colour', status: 'lost' });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.details.map((d: { path: string }) => d.path).sort()).toEqual(['query.sort', 'query.status']);
+  });
+
+  it('names each invalid field with its path (422)', async () => {
+    const doc = sampleDocument('Bad');
+    (doc.elements[1] as Record<string, unknown>).bendRadius = -2;
+    (doc.conditions as Record<string, unknown>).pressure = 'high';
+    const r = await (await t.signIn('designer')).post('/api/spools').send({ document: doc });
+    expect(r.status).toBe(422);
+    expect(r.body.error.code).toBe('validation');
+    const paths = r.body.error.details.map((d: { path: string }) => d.path);
+    expect(paths).toContain('document.conditions.pressure');
+    expect(paths.some((p: string) => p.startsWith('document.elements[1].bendRadius'))).toBe(true);
+    const missing = await (await t.signIn('designer')).post('/api/spools').send({});
+    expect(missing.status).toBe(422);
+    expect(missing.body.error.details[0].path).toBe('document');
+  });
+
+  it('refuses bodies over the limit (413) and broken JSON (400) without internals', async () => {
+    const designer = await t.signIn('designer');
+    const huge = { document: { ...sampleDocument('Huge'), padding: 'x'.repeat(3 * 1024 * 1024) } };
+    const r = await designer.post('/api/spools').send(huge);
+    expect(r.status).toBe(413);
+    expect(r.body.error.code).toBe('payload_too_large');
+    const b = await designer.post('/api/spools').set('content-type', 'application/json').send('{"document": ');
+    expect(b.status).toBe(400);
+    expect(JSON.stringify(b.body)).not.toMatch(/at .*\.(ts|js):\d+/);
+  });
+
+  it('saves with the current baseVersion and answers 409 with the current spool when stale', async () => {
+    const s = await createSpool('Versioned');
+    const designer = await t.signIn('designer');
+    const doc = sampleDocument('Versioned', { line: '2"-TS-0002-A1' });
+    const ok = await designer.put(`/api/spools/${s.id}`).send({ document: doc, baseVersion: 1 });
+    expect(ok.status).toBe(200);
+    expect(ok.body).toMatchObject({ version: 2, line: '2"-TS-0002-A1' });
+    const stale = await designer.put(`/api/spools/${s.id}`).send({ document: sampleDocument('Versioned', { line: 'lost' }), baseVersion: 1 });
+    expect(stale.status).toBe(409);
+    expect(stale.body.error.code).toBe('conflict');
+    expect(stale.body.error.details.current).toMatchObject({ id: s.id, version: 2, line: '2"-TS-0002-A1' });
+    expect(stale.body.error.details.current.document).toBeDefined();
+  });
+
+  it('lets exactly one of many concurrent saves from the same base win', async () => {
+    const s = await createSpool('Race');
+    const agents = [await t.signIn('designer'), await t.signIn('lead'), await t.signIn('admin')];
+    const results = await Promise.all(
+      Array.from({ length: 9 }, (_, i) =>
+        agents[i % 3]!.put(`/api/spools/${s.id}`).send({ document: sampleDocument('Race', { line: `L-${i}` }), baseVersion: 1 }),
+      ),
+    );
+    const codes = results.map((r) => r.status).sort();
+    expect(codes.filter((c) => c === 200)).toHaveLength(1);
+    expect(codes.filter((c) => c === 409)).toHaveLength(8);
+    const winner = results.find((r) => r.status === 200)!;
+    const now = await agents[0]!.get(`/api/spools/${s.id}`);
+    expect(now.body).toMatchObject({ version: 2, line: winner.body.line });
+  });
+
+  it('keeps other teams out (404)', async () => {
+    const s = await createSpool('Team-only');
+    await t.database.db.insert(teams).values({ id: 'team-other', name: 'Other Team' });
+    const id = await createUserWithPassword(t.database.db, { email: 'outsider@spoolwright.test', name: 'Out Sider', password: 'outsider-password' });
+    await t.database.db.insert(teamMembers).values({ teamId: 'team-other', userId: id, role: 'admin' });
+    const out = t.anon();
+    await out.post('/api/auth/sign-in/email').send({ email: 'outsider@spoolwright.test', password: 'outsider-password' }).expect(200);
+    expect((await out.get(`/api/spools/${s.id}`)).status).toBe(404);
+    expect((await out.put(`/api/spools/${s.id}`).send({ document: sampleDocument('x'), baseVersion: 1 })).status).toBe(404);
+    expect((await out.delete(`/api/spools/${s.id}`)).status).toBe(404);
+    expect((await out.get('/api/spools')).body.total).toBe(0);
+  });
+
+  it('soft-deletes (204) and then answers 404', async () => {
+    const s = await createSpool('Doomed');
+    const lead = await t.signIn('lead');
+    await lead.delete(`/api/spools/${s.id}`).expect(204);
+    await lead.get(`/api/spools/${s.id}`).expect(404);
+    await lead.delete(`/api/spools/${s.id}`).expect(404);
+  });
+
+  it('stores a 200-element spool and reads it back unchanged', async () => {
+    const doc = buildLongSpool(200);
+    const s = await createSpool(doc.name, doc as unknown as Record<string, unknown>);
+    const r = await (await t.signIn('fabricator')).get(`/api/spools/${s.id}`);
+    expect(r.body.document.elements).toHaveLength(200);
+    expect(r.body.summary.pass + r.body.summary.marginal + r.body.summary.fail + r.body.summary.review + r.body.summary.invalid).toBe(200);
+  });
+});
+
+describe('lifecycle, revisions and mail', () => {
+  it('goes draft → submitted → checked → released, records events and mails the next role', async () => {
+    const s = await createSpool('Lifecycle');
+    const designer = await t.signIn('designer');
+    const checker = await t.signIn('checker');
+    const lead = await t.signIn('lead');
+    const admin = await t.signIn('admin');
+    expect((await designer.post(`/api/spools/${s.id}/transitions`).send({ to: 'submitted', note: 'please check' })).body.status).toBe('submitted');
+    expect((await checker.post(`/api/spools/${s.id}/transitions`).send({ to: 'checked' })).body.status).toBe('checked');
+    const rel = await lead.post(`/api/spools/${s.id}/transitions`).send({ to: 'released', note: 'go' });
+    expect(rel.status).toBe(200);
+    expect(rel.body).toMatchObject({ status: 'released', revision: 0, version: 4 });
+    const ev = await checker.get(`/api/spools/${s.id}/events`);
+    expect(ev.body.items.map((e: { from: string; to: string }) => `${e.from}>${e.to}`)).toEqual(['draft>submitted', 'submitted>checked', 'checked>released']);
+    expect(ev.body.items[0]).toMatchObject({ note: 'please check', user: { name: expect.any(String) }, createdAt: expect.any(String) });
+    const mail = await admin.get('/api/admin/outbox');
+    expect(mail.status).toBe(200);
+    const subjects = mail.body.items.map((m: { subject: string; to: string }) => `${m.subject} -> ${m.to}`);
+    expect(subjects).toContain('Spool Lifecycle submitted -> checker@spoolwright.test, lead@spoolwright.test');
+    expect(subjects.some((x: string) => x.startsWith('Spool Lifecycle released') && x.includes('fabricator@spoolwright.test'))).toBe(true);
+  });
+
+  it('refuses moves the lifecycle does not allow (409) and releasing a failing spool', async () => {
+    const s = await createSpool('Out of order');
+    const lead = await t.signIn('lead');
+    const r = await lead.post(`/api/spools/${s.id}/transitions`).send({ to: 'released' });
+    expect(r.status).toBe(409);
+    expect(r.body.error).toMatchObject({ code: 'invalid_transition', details: { from: 'draft', to: 'released' } });
+    const bad = await lead.post(`/api/spools/${s.id}/transitions`).send({ to: 'approved' });
+    expect(bad.status).toBe(422);
+    const failing = await createSpool('Failing', sampleDocument('Failing', { conditions: { pressure: 2500, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 } }));
+    await lead.post(`/api/spools/${failing.id}/transitions`).send({ to: 'submitted' }).expect(200);
+    await lead.post(`/api/spools/${failing.id}/transitions`).send({ to: 'checked' }).expect(200);
+    const rel = await lead.post(`/api/spools/${failing.id}/transitions`).send({ to: 'released' });
+    expect(rel.status).toBe(409);
+    expect(rel.body.error.code).toBe('check_failed');
+  });
+
+  it('returns a submitted spool to draft with a note, mailing its designer', async () => {
+    const designer = await t.signIn('designer');
+    const c = await designer.post('/api/spools').send({ document: sampleDocument('Returned') });
+    await designer.post(`/api/spools/${c.body.id}/transitions`).send({ to: 'submitted' }).expect(200);
+    const back = await (await t.signIn('checker')).post(`/api/spools/${c.body.id}/transitions`).send({ to: 'draft', note: 'B1 radius?' });
+    expect(back.body.status).toBe('draft');
+    const mail = await (await t.signIn('admin')).get('/api/admin/outbox');
+    expect(mail.body.items.find((m: { subject: string }) => m.subject === 'Spool Returned returned to draft')).toMatchObject({
+      to: 'designer@spoolwright.test',
+      text: expect.stringContaining('B1 radius?'),
+    });
+  });
+
+  it('opens a new revision in draft when a checked spool is edited; the old one stays readable', async () => {
+    const s = await createSpool('Revised');
+    const lead = await t.signIn('lead');
+    await lead.post(`/api/spools/${s.id}/transitions`).send({ to: 'submitted' }).expect(200);
+    const checked = await lead.post(`/api/spools/${s.id}/transitions`).send({ to: 'checked' });
+    const edited = await lead
+      .put(`/api/spools/${s.id}`)
+      .send({ document: sampleDocument('Revised', { line: '2"-TS-0003-A1' }), baseVersion: checked.body.version });
+    expect(edited.status).toBe(200);
+    expect(edited.body).toMatchObject({ status: 'draft', revision: 1, line: '2"-TS-0003-A1' });
+    const list = await lead.get(`/api/spools/${s.id}/revisions`);
+    expect(list.body.items.map((r: { revision: number; status: string; current: boolean }) => [r.revision, r.status, r.current])).toEqual([
+      [0, 'checked', false],
+      [1, 'draft', true],
+    ]);
+    const old = await (await t.signIn('fabricator')).get(`/api/spools/${s.id}/revisions/0`);
+    expect(old.status).toBe(200);
+    expect(old.body).toMatchObject({ revision: 0, status: 'checked', line: '2"-TS-0001-A1', current: false });
+    expect(old.body.document.line).toBe('2"-TS-0001-A1');
+    await lead.get(`/api/spools/${s.id}/revisions/7`).expect(404);
+    const ev = await lead.get(`/api/spools/${s.id}/events`);
+    expect(ev.body.items.at(-1)).toMatchObject({ from: 'checked', to: 'draft', revision: 1 });
+  });
+});
+
+describe('password reset by e-mail', () => {
+  it('mails a reset link; the token sets a new password', async () => {
+    const anon = t.anon();
+    const req = await anon.post('/api/auth/request-password-reset').send({ email: demoEmail('fabricator'), redirectTo: '/reset-password' });
+    expect(req.status).toBe(200);
+    const mail = await (await t.signIn('admin')).get('/api/admin/outbox');
+    const msg = mail.body.items.find((m: { to: string; subject: string }) => m.to === demoEmail('fabricator') && /reset/i.test(m.subject));
+    expect(msg).toBeDefined();
+    const token = /reset-password\/([^?\s]+)/.exec(msg.text)?.[1];
+    expect(token).toBeTruthy();
+    await anon.post('/api/auth/reset-password').send({ token, newPassword: 'a-brand-new-password' }).expect(200);
+    await anon.post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'a-brand-new-password' }).expect(200);
+    await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'spoolwright-demo' }).expect(401);
+  });
+});
+
+describe('check, catalog and share links', () => {
+  it('checks a posted document like the headless checker', async () => {
+    const r = await (await t.signIn('fabricator')).post('/api/check').send(sampleDocument('Loose'));
+    expect(r.status).toBe(200);
+    expect(r.body).toMatchObject({ units: 'imperial', summary: expect.any(Object), caution: expect.any(String) });
+    expect(r.body.elements).toHaveLength(3);
+    const bad = await (await t.signIn('fabricator')).post('/api/check').send({ units: 'cubits' });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.details.map((d: { path: string }) => d.path)).toContain('units');
+  });
+
+  it('serves materials and dimensions to signed-in members', async () => {
+    const agent = await t.signIn('checker');
+    const m = await agent.get('/api/materials');
+    expect(m.body.items.map((x: { id: string }) => x.id)).toContain('A106-B');
+    const d = await agent.get('/api/dimensions');
+    const four = d.body.sizes.find((s: { nps: string }) => s.nps === '4');
+    expect(four.walls.find((w: { schedule: string }) => w.schedule === '40')).toMatchObject({ wallIn: 0.237 }); // ASME B36.10M: NPS 4 Sch 40 = 0.237 in (from memory)
+  });
+
+  it('shares one revision read-only until revoked', async () => {
+    const s = await createSpool('Shared');
+    const lead = await t.signIn('lead');
+    const share = await lead.post(`/api/spools/${s.id}/shares`).send({ expiresInDays: 7 });
+    expect(share.status).toBe(201);
+    expect(share.body).toMatchObject({ revision: 0, active: true, url: expect.stringContaining(`/share/${share.body.id}`) });
+    const view = await t.anon().get(`/api/share/${share.body.id}`);
+    expect(view.status).toBe(200);
+    expect(view.body.spool).toMatchObject({ name: 'Shared', revision: 0 });
+    expect(view.body.check.elements).toHaveLength(3);
+    // Later edits of the draft do not leak into the link.
+    await lead.put(`/api/spools/${s.id}`).send({ document: sampleDocument('Shared', { line: 'changed' }), baseVersion: 1 }).expect(200);
+    expect((await t.anon().get(`/api/share/${share.body.id}`)).body.spool.line).toBe('2"-TS-0001-A1');
+    expect((await lead.get(`/api/spools/${s.id}/shares`)).body.items).toHaveLength(1);
+    await lead.delete(`/api/spools/${s.id}/shares/${share.body.id}`).expect(204);
+    expect((await t.anon().get(`/api/share/${share.body.id}`)).status).toBe(410);
+    expect((await t.anon().get('/api/share/not-a-token')).status).toBe(404);
+  });
+});
+
+describe('team members', () => {
+  it('lets admins add a member who can then sign in, and keeps one admin', async () => {
+    const admin = await t.signIn('admin');
+    const add = await admin.post('/api/team/members').send({ email: 'new.checker@spoolwright.test', name: 'Noor Halvorsen', role: 'checker', password: 'checker-password-1' });
+    expect(add.status).toBe(201);
+    const agent = t.anon();
+    await agent.post('/api/auth/sign-in/email').send({ email: 'new.checker@spoolwright.test', password: 'checker-password-1' }).expect(200);
+    expect((await agent.get('/api/me')).body.role).toBe('checker');
+    await admin.patch(`/api/team/members/${add.body.userId}`).send({ role: 'lead' }).expect(200);
+    const me = (await admin.get('/api/me')).body;
+    const last = await admin.patch(`/api/team/members/${me.user.id}`).send({ role: 'designer' });
+    expect(last.status).toBe(409);
+    const list = await (await t.signIn('fabricator')).get('/api/team/members');
+    expect(list.body.items.length).toBeGreaterThanOrEqual(6);
+  });
+});
