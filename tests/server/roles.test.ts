@@ -1,0 +1,158 @@
+import { randomUUID } from 'node:crypto';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type request from 'supertest';
+import { createTestApp, sampleDocument, type TestApp } from './helpers';
+import { teamMembers } from '../../server/db/schema';
+import { createUserWithPassword, DEMO_TEAM } from '../../server/db/seed';
+import { ROLES, type Role } from '../../shared/model/permissions';
+
+// The roles table of the product design, written out here on purpose (not read from
+// shared/model/permissions.ts) so that a wrong permission table fails this test.
+const D: Role = 'designer';
+const C: Role = 'checker';
+const F: Role = 'fabricator';
+const L: Role = 'lead';
+const A: Role = 'admin';
+const EVERY_MEMBER = [D, C, F, L, A];
+
+type Who = Role | 'anonymous';
+interface Call {
+  method: 'get' | 'post' | 'put' | 'patch' | 'delete';
+  path: string;
+  body?: object;
+}
+interface RouteCase {
+  name: string;
+  /** Who may do it; everyone else gets 403 (signed out: 401). */
+  allowed: readonly Role[];
+  /** Open to everybody, signed in or not. */
+  isPublic?: boolean;
+  /** Build a fresh target for one request (state-dependent routes). */
+  setup: () => Promise<Call>;
+}
+
+let t: TestApp;
+let admin: request.Agent;
+let fixed: { spoolId: string; shareId: string; fabricatorId: string };
+
+async function newSpool(state: 'draft' | 'submitted' | 'checked' = 'draft') {
+  const r = await admin.post('/api/spools').send({ document: sampleDocument(`Matrix ${randomUUID().slice(0, 8)}`) });
+  expect(r.status).toBe(201);
+  const id = r.body.id as string;
+  if (state !== 'draft') await admin.post(`/api/spools/${id}/transitions`).send({ to: 'submitted' }).expect(200);
+  if (state === 'checked') await admin.post(`/api/spools/${id}/transitions`).send({ to: 'checked' }).expect(200);
+  const now = await admin.get(`/api/spools/${id}`);
+  return { id, version: now.body.version as number };
+}
+
+const ROUTES: RouteCase[] = [
+  { name: 'GET /api/health', allowed: EVERY_MEMBER, isPublic: true, setup: async () => ({ method: 'get', path: '/api/health' }) },
+  { name: 'GET /api/me', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/me' }) },
+  { name: 'GET /api/spools', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/spools' }) },
+  { name: 'POST /api/spools (create)', allowed: [D, L, A], setup: async () => ({ method: 'post', path: '/api/spools', body: { document: sampleDocument('Created by matrix') } }) },
+  { name: 'GET /api/spools/:id (view)', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}` }) },
+  {
+    name: 'PUT /api/spools/:id (edit)',
+    allowed: [D, L, A],
+    setup: async () => {
+      const s = await newSpool();
+      return { method: 'put', path: `/api/spools/${s.id}`, body: { document: sampleDocument('Edited by matrix'), baseVersion: s.version } };
+    },
+  },
+  { name: 'DELETE /api/spools/:id', allowed: [L, A], setup: async () => ({ method: 'delete', path: `/api/spools/${(await newSpool()).id}` }) },
+  {
+    name: 'POST transitions → submitted (submit for check)',
+    allowed: [D, L, A],
+    setup: async () => ({ method: 'post', path: `/api/spools/${(await newSpool()).id}/transitions`, body: { to: 'submitted' } }),
+  },
+  {
+    name: 'POST transitions → checked (mark checked)',
+    allowed: [C, L, A],
+    setup: async () => ({ method: 'post', path: `/api/spools/${(await newSpool('submitted')).id}/transitions`, body: { to: 'checked' } }),
+  },
+  {
+    name: 'POST transitions → draft (return with comments)',
+    allowed: [C, L, A],
+    setup: async () => ({ method: 'post', path: `/api/spools/${(await newSpool('submitted')).id}/transitions`, body: { to: 'draft', note: 'see B1' } }),
+  },
+  {
+    name: 'POST transitions → released (approve for fabrication)',
+    allowed: [L, A],
+    setup: async () => ({ method: 'post', path: `/api/spools/${(await newSpool('checked')).id}/transitions`, body: { to: 'released' } }),
+  },
+  { name: 'GET /api/spools/:id/revisions', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/revisions` }) },
+  { name: 'GET /api/spools/:id/revisions/:rev', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/revisions/0` }) },
+  { name: 'GET /api/spools/:id/events', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/events` }) },
+  { name: 'POST /api/check', allowed: EVERY_MEMBER, setup: async () => ({ method: 'post', path: '/api/check', body: sampleDocument('Checked only') }) },
+  { name: 'GET /api/materials', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/materials' }) },
+  { name: 'GET /api/dimensions', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/dimensions' }) },
+  { name: 'GET /api/spools/:id/shares', allowed: [L, A], setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/shares` }) },
+  { name: 'POST /api/spools/:id/shares (create share link)', allowed: [L, A], setup: async () => ({ method: 'post', path: `/api/spools/${fixed.spoolId}/shares`, body: {} }) },
+  {
+    name: 'DELETE /api/spools/:id/shares/:shareId (revoke)',
+    allowed: [L, A],
+    setup: async () => {
+      const s = await admin.post(`/api/spools/${fixed.spoolId}/shares`).send({});
+      return { method: 'delete', path: `/api/spools/${fixed.spoolId}/shares/${s.body.id}` };
+    },
+  },
+  { name: 'GET /api/share/:token (public view)', allowed: EVERY_MEMBER, isPublic: true, setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareId}` }) },
+  { name: 'GET /api/team/members', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/team/members' }) },
+  {
+    name: 'POST /api/team/members (manage members)',
+    allowed: [A],
+    setup: async () => ({
+      method: 'post',
+      path: '/api/team/members',
+      body: { email: `m-${randomUUID().slice(0, 8)}@spoolwright.test`, name: 'Matrix Member', role: 'fabricator', password: 'matrix-password' },
+    }),
+  },
+  {
+    name: 'PATCH /api/team/members/:userId (change role)',
+    allowed: [A],
+    setup: async () => ({ method: 'patch', path: `/api/team/members/${fixed.fabricatorId}`, body: { role: 'fabricator' } }),
+  },
+  {
+    name: 'DELETE /api/team/members/:userId',
+    allowed: [A],
+    setup: async () => {
+      const id = await createUserWithPassword(t.database.db, { email: `d-${randomUUID().slice(0, 8)}@spoolwright.test`, name: 'Leaving Member', password: 'leaving-password' });
+      await t.database.db.insert(teamMembers).values({ teamId: DEMO_TEAM.id, userId: id, role: 'designer' });
+      return { method: 'delete', path: `/api/team/members/${id}` };
+    },
+  },
+  { name: 'GET /api/admin/outbox', allowed: [A], setup: async () => ({ method: 'get', path: '/api/admin/outbox' }) },
+];
+
+beforeAll(async () => {
+  t = await createTestApp();
+  admin = await t.signIn('admin');
+  const s = await newSpool();
+  const share = await admin.post(`/api/spools/${s.id}/shares`).send({});
+  const members = await admin.get('/api/team/members');
+  const fab = members.body.items.find((m: { role: string }) => m.role === 'fabricator');
+  fixed = { spoolId: s.id, shareId: share.body.id, fabricatorId: fab.userId };
+});
+afterAll(async () => {
+  await t?.close();
+});
+
+const WHO: Who[] = [...ROLES, 'anonymous'];
+
+describe.each(ROUTES)('$name', (route) => {
+  it.each(WHO)('as %s', async (who) => {
+    const call = await route.setup();
+    const agent = who === 'anonymous' ? t.anon() : await t.signIn(who);
+    let req = agent[call.method](call.path);
+    if (call.body) req = req.send(call.body);
+    const r = await req;
+    const allowed = route.isPublic || (who !== 'anonymous' && route.allowed.includes(who));
+    if (allowed) {
+      expect(r.status, `${route.name} as ${who}: ${r.text.slice(0, 200)}`).toBeGreaterThanOrEqual(200);
+      expect(r.status, `${route.name} as ${who}: ${r.text.slice(0, 200)}`).toBeLessThan(300);
+    } else {
+      expect(r.status, `${route.name} as ${who}: ${r.text.slice(0, 200)}`).toBe(who === 'anonymous' ? 401 : 403);
+      expect(r.body.error.code).toBe(who === 'anonymous' ? 'unauthenticated' : 'forbidden');
+    }
+  });
+});
