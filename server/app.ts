@@ -8,7 +8,7 @@ import { loadSession } from './auth/member';
 import type { ServerConfig } from './config';
 import type { Mailer } from './mail/mailer';
 import { silentLogger, type Logger } from './logger';
-import { apiNotFound, errorHandler } from './errors';
+import { HttpError, apiNotFound, errorHandler } from './errors';
 import { spoolsRouter } from './routes/spools';
 import { meRouter } from './routes/me';
 import { checkRouter } from './routes/check';
@@ -37,6 +37,21 @@ const securityHeaders: RequestHandler = (_req, res, next) => {
   next();
 };
 
+const SAFE_METHODS = new Set(['GET', 'HEAD', 'OPTIONS']);
+
+/** Cookie-authenticated writes from a page on another origin are refused (CSRF belt to SameSite's braces). */
+function refuseForeignOrigins(trusted: readonly string[]): RequestHandler {
+  const allowed = new Set(trusted);
+  return (req, _res, next) => {
+    const origin = req.headers.origin;
+    if (SAFE_METHODS.has(req.method) || origin === undefined || allowed.has(origin)) {
+      next();
+      return;
+    }
+    next(new HttpError(403, 'forbidden', `Requests from ${origin} are not accepted`));
+  };
+}
+
 /** The Express app without listening, so tests mount it directly. */
 export function createApp(deps: AppDeps) {
   const logger = deps.logger ?? silentLogger;
@@ -57,6 +72,7 @@ export function createApp(deps: AppDeps) {
     res.setHeader('Cache-Control', 'no-store');
     next();
   });
+  if (deps.config.originCheck) app.use('/api', refuseForeignOrigins(deps.config.trustedOrigins));
   app.use('/api', express.json({ limit: JSON_LIMIT }));
 
   app.get('/api/health', (_req, res) => {

@@ -18,6 +18,8 @@ export interface ServerConfig {
   readonly trustedOrigins: readonly string[];
   /** better-auth's rate limiter; on unless explicitly turned off. */
   readonly rateLimit: boolean;
+  /** Refuse state-changing requests whose Origin is not trusted (better-auth's check and ours). */
+  readonly originCheck: boolean;
   /** Sender address of outgoing mail. */
   readonly mailFrom: string;
 }
@@ -54,6 +56,7 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     authSecret: secret,
     trustedOrigins: overrides.trustedOrigins ?? [...origins],
     rateLimit: overrides.rateLimit ?? env.RATE_LIMIT !== 'off',
+    originCheck: overrides.originCheck ?? env.ORIGIN_CHECK !== 'off',
     mailFrom: overrides.mailFrom ?? (env.MAIL_FROM || 'Spoolwright <no-reply@spoolwright.test>'),
   };
 }

@@ -114,7 +114,7 @@ export function demoEmail(role: Role): string {
 /** createApp() over a fresh demo database, quiet, rate limiter off unless asked for. */
 export async function createTestApp(overrides: Partial<ServerConfig> = {}): Promise<TestApp> {
   const database = await createTestDatabase();
-  const config = loadConfig({ NODE_ENV: 'test' }, { rateLimit: false, dataDir: os.tmpdir(), ...overrides });
+  const config = loadConfig({ NODE_ENV: 'test' }, { rateLimit: false, originCheck: false, dataDir: os.tmpdir(), ...overrides });
   const mailer = createMailer({ db: database.db, from: config.mailFrom, logger: silentLogger });
   const auth = createAuth({ db: database.db, config, mailer, logger: silentLogger });
   const app = createApp({ db: database.db, auth, mailer, config, logger: silentLogger });

@@ -54,7 +54,8 @@ export async function stopServer(p: ServerProcess, signal: NodeJS.Signals = 'SIG
 export async function signInCookie(url: string, email: string, password: string): Promise<string> {
   const r = await fetch(`${url}/api/auth/sign-in/email`, {
     method: 'POST',
-    headers: { 'content-type': 'application/json' },
+    // Sent like a browser page on the app's own origin would (node's fetch sets sec-fetch-mode).
+    headers: { 'content-type': 'application/json', origin: url },
     body: JSON.stringify({ email, password }),
   });
   if (r.status !== 200) throw new Error(`sign-in failed: ${r.status} ${await r.text()}`);
@@ -67,7 +68,7 @@ export async function signInCookie(url: string, email: string, password: string)
 export async function api(url: string, cookie: string, method: string, p: string, body?: unknown) {
   const r = await fetch(`${url}${p}`, {
     method,
-    headers: { cookie, ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
+    headers: { cookie, origin: url, ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
     body: body === undefined ? undefined : JSON.stringify(body),
   });
   const text = await r.text();

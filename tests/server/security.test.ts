@@ -1,0 +1,53 @@
+import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
+import { createTestApp, DEMO_PASSWORD, demoEmail, sampleDocument, type TestApp } from './helpers';
+
+describe('sign-in rate limit', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp({ rateLimit: true });
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
+
+  it('allows 5 sign-in attempts per 10 s from one address, then answers 429', async () => {
+    const codes: number[] = [];
+    for (let i = 0; i < 7; i++) {
+      const r = await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('designer'), password: 'wrong-password' });
+      codes.push(r.status);
+    }
+    expect(codes.slice(0, 5)).toEqual([401, 401, 401, 401, 401]);
+    expect(codes.slice(5)).toEqual([429, 429]);
+  });
+
+  it('keys the limit on the socket address, not a client-supplied x-forwarded-for', async () => {
+    const agent = t.anon();
+    const r = await agent.post('/api/auth/sign-in/email').set('x-forwarded-for', '10.1.2.3').send({ email: demoEmail('lead'), password: DEMO_PASSWORD });
+    expect(r.status).toBe(429);
+  });
+});
+
+describe('origin checks', () => {
+  let t: TestApp;
+  beforeAll(async () => {
+    t = await createTestApp({ originCheck: true, trustedOrigins: ['http://127.0.0.1:5174'] });
+  });
+  afterAll(async () => {
+    await t?.close();
+  });
+
+  it('refuses a cookie-carrying auth request and an API write from a foreign origin', async () => {
+    const agent = t.anon();
+    await agent.post('/api/auth/sign-in/email').set('origin', 'http://127.0.0.1:5174').send({ email: demoEmail('lead'), password: DEMO_PASSWORD }).expect(200);
+    const created = await agent.post('/api/spools').set('origin', 'http://127.0.0.1:5174').send({ document: sampleDocument('Origin') });
+    expect(created.status).toBe(201);
+    const foreign = await agent.put(`/api/spools/${created.body.id}`).set('origin', 'http://evil.example').send({ document: sampleDocument('Origin'), baseVersion: 1 });
+    expect(foreign.status).toBe(403);
+    // better-auth logs the refused origin through our (silent) logger.
+    const errSpy = vi.spyOn(console, 'error').mockImplementation(() => {});
+    const out = await agent.post('/api/auth/sign-out').set('origin', 'http://evil.example').send({});
+    errSpy.mockRestore();
+    expect(out.status).toBe(403);
+    expect((await agent.get('/api/me')).status).toBe(200);
+  });
+});
