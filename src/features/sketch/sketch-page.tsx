@@ -49,6 +49,47 @@ function downloadJson(filename: string, data: unknown) {
 
 const fileNameOf = (doc: SpoolDocument) => `${(doc.name || 'spool').replace(/[^\w.-]+/g, '-').replace(/^-+|-+$/g, '') || 'spool'}.spool.json`;
 
+/** A text box that edits a document field on blur / Enter and follows the document otherwise. */
+function MetaInput({
+  label,
+  value,
+  onCommit,
+  disabled,
+  className,
+  placeholder,
+}: {
+  label: string;
+  value: string;
+  onCommit: (v: string) => void;
+  disabled: boolean;
+  className: string;
+  placeholder?: string;
+}) {
+  const [text, setText] = useState(value);
+  const [focused, setFocused] = useState(false);
+  useEffect(() => {
+    if (!focused) setText(value);
+  }, [value, focused]);
+  return (
+    <input
+      aria-label={label}
+      placeholder={placeholder}
+      className={cn(inputClass, className)}
+      value={text}
+      disabled={disabled}
+      onChange={(e) => setText(e.target.value)}
+      onFocus={() => setFocused(true)}
+      onBlur={() => {
+        setFocused(false);
+        if (text !== value) onCommit(text);
+      }}
+      onKeyDown={(e) => {
+        if (e.key === 'Enter') (e.target as HTMLInputElement).blur();
+      }}
+    />
+  );
+}
+
 /** The header of the sketcher: name, line, state, save, import/export, lifecycle, units. */
 function SpoolBar({
   spool,
@@ -119,25 +160,8 @@ function SpoolBar({
 
   return (
     <div className="flex flex-wrap items-center gap-3 border-b border-steel-200 bg-steel-50 px-3 py-2">
-      <input
-        aria-label="Spool name"
-        className={cn(inputClass, 'w-56 font-semibold')}
-        defaultValue={doc.name ?? ''}
-        key={`name-${doc.name ?? ''}`}
-        disabled={!canEdit}
-        onBlur={(e) => api.getState().setMeta({ name: e.target.value })}
-        onKeyDown={(e) => e.key === 'Enter' && (e.target as HTMLInputElement).blur()}
-      />
-      <input
-        aria-label="Line number"
-        placeholder="line number"
-        className={cn(inputClass, 'w-40')}
-        defaultValue={doc.line ?? ''}
-        key={`line-${doc.line ?? ''}`}
-        disabled={!canEdit}
-        onBlur={(e) => api.getState().setMeta({ line: e.target.value })}
-        onKeyDown={(e) => e.key === 'Enter' && (e.target as HTMLInputElement).blur()}
-      />
+      <MetaInput label="Spool name" value={doc.name ?? ''} disabled={!canEdit} className="w-56 font-semibold" onCommit={(name) => api.getState().setMeta({ name })} />
+      <MetaInput label="Line number" placeholder="line number" value={doc.line ?? ''} disabled={!canEdit} className="w-40" onCommit={(line) => api.getState().setMeta({ line })} />
       <LifecycleBadge status={spool.status} />
       <span className="text-xs text-steel-500" data-testid="revision">
         rev. {spool.revision} · saved version {spool.version}

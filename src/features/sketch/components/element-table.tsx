@@ -77,12 +77,16 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
     ],
     [units],
   );
+  const columnFilters = useMemo(() => (statusFilter ? [{ id: 'status', value: statusFilter }] : []), [statusFilter]);
   // The table instance is used only in this component's own render.
   // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data,
     columns,
-    state: { sorting, columnFilters: statusFilter ? [{ id: 'status', value: statusFilter }] : [] },
+    state: { sorting, columnFilters },
+    // Rows are not paginated; an automatic page reset on every data change would re-render in a loop.
+    autoResetPageIndex: false,
+    autoResetExpanded: false,
     onSortingChange: setSorting,
     getCoreRowModel: getCoreRowModel(),
     getSortedRowModel: getSortedRowModel(),

