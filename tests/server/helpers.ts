@@ -63,8 +63,8 @@ function getTemplate(): Promise<Blob> {
   return templatePromise;
 }
 
-/** A fresh PostgreSQL database on the TEST_DATABASE_URL server, migrated and seeded; dropped on close. */
-async function createPostgresDatabase(url: string): Promise<Database> {
+/** An empty database on the TEST_DATABASE_URL server: its URL and a function that drops it. */
+export async function createEmptyPostgresDatabase(url: string): Promise<{ url: string; drop: () => Promise<void> }> {
   const name = `spoolwright_test_${process.pid}_${randomBytes(4).toString('hex')}`;
   const admin = new pg.Client({ connectionString: url });
   await admin.connect();
@@ -72,17 +72,28 @@ async function createPostgresDatabase(url: string): Promise<Database> {
   await admin.end();
   const u = new URL(url);
   u.pathname = `/${name}`;
-  const database = openPostgres(u.toString());
+  return {
+    url: u.toString(),
+    async drop() {
+      const a = new pg.Client({ connectionString: url });
+      await a.connect();
+      await a.query(`drop database if exists ${name} with (force)`);
+      await a.end();
+    },
+  };
+}
+
+/** A fresh PostgreSQL database on the TEST_DATABASE_URL server, migrated and seeded; dropped on close. */
+async function createPostgresDatabase(url: string): Promise<Database> {
+  const empty = await createEmptyPostgresDatabase(url);
+  const database = openPostgres(empty.url);
   await database.migrate();
   await seedDemo(database.db);
   return {
     ...database,
     async close() {
       await database.close();
-      const a = new pg.Client({ connectionString: url });
-      await a.connect();
-      await a.query(`drop database if exists ${name} with (force)`);
-      await a.end();
+      await empty.drop();
     },
   };
 }

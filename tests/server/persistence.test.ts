@@ -2,29 +2,33 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { DEMO_PASSWORD, TEST_DATABASE_URL, sampleDocument } from './helpers';
+import { DEMO_PASSWORD, TEST_DATABASE_URL, createEmptyPostgresDatabase, sampleDocument } from './helpers';
 import { api, signInCookie, spawnServer, stopServer, type ServerProcess } from './server-process';
 
-// These tests run real server processes on the embedded database in a temp directory.
-const suite = TEST_DATABASE_URL ? describe.skip : describe;
+// Real server processes: on the embedded database in a temp directory, or on a fresh
+// PostgreSQL database when TEST_DATABASE_URL is set (the lock test is the embedded one's).
+const embeddedOnly = TEST_DATABASE_URL ? it.skip : it;
 
 let dir: string;
+let pgDb: { url: string; drop: () => Promise<void> } | undefined;
 const started: ServerProcess[] = [];
-const start = async (opts?: Parameters<typeof spawnServer>[1]) => {
-  const p = await spawnServer(dir, opts);
+const start = async (opts: Parameters<typeof spawnServer>[1] = {}) => {
+  const p = await spawnServer(dir, pgDb ? { ...opts, env: { DATABASE_URL: pgDb.url, ...opts.env } } : opts);
   started.push(p);
   return p;
 };
 
-beforeAll(() => {
+beforeAll(async () => {
   dir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-persist-'));
+  if (TEST_DATABASE_URL) pgDb = await createEmptyPostgresDatabase(TEST_DATABASE_URL);
 });
 afterAll(async () => {
   for (const p of started) await stopServer(p, 'SIGKILL');
   fs.rmSync(dir, { recursive: true, force: true });
+  await pgDb?.drop();
 });
 
-suite('the embedded database across processes', () => {
+describe(`the ${TEST_DATABASE_URL ? 'PostgreSQL' : 'embedded'} database across processes`, () => {
   it('keeps a saved spool across a restart and seeds only once', async () => {
     const a = await start();
     expect(a.output()).toContain(`Spoolwright is running at ${a.url}`);
@@ -38,7 +42,7 @@ suite('the embedded database across processes', () => {
     expect(saved.status).toBe(200);
     const before = await api(a.url, cookie, 'GET', '/api/spools?pageSize=500');
     expect(await stopServer(a)).toBe(0);
-    expect(fs.existsSync(path.join(dir, 'spoolwright.lock'))).toBe(false);
+    if (!pgDb) expect(fs.existsSync(path.join(dir, 'spoolwright.lock'))).toBe(false);
 
     const b = await start();
     const cookie2 = await signInCookie(b.url, 'checker@spoolwright.test', DEMO_PASSWORD);
@@ -50,7 +54,7 @@ suite('the embedded database across processes', () => {
     await stopServer(b);
   });
 
-  it('refuses a second process on the same data directory with a clear message', async () => {
+  embeddedOnly('refuses a second process on the same data directory with a clear message', async () => {
     const a = await start();
     const b = await start({ waitReady: false });
     expect(await b.exited).toBe(3);
