@@ -1,0 +1,212 @@
+/**
+ * Canvas benchmark: builds the stand-alone bench page, serves it on 127.0.0.1, and drives
+ * Debian's Chromium (software WebGL) through generated spools of 50, 300 and 1,000
+ * elements with antialiasing off and on. Prints frames per second while orbiting and the
+ * time from an edit to its new colour on screen (read back from the drawing buffer).
+ *
+ *   npx tsx bench/canvas.ts [--sizes 50,300,1000] [--seconds 4] [--labels auto|all|none] [--no-build] [--screenshots <dir>]
+ */
+import { createServer, type Server } from 'node:http';
+import { readFile, stat } from 'node:fs/promises';
+import { extname, join, normalize, resolve } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Page } from 'playwright-core';
+
+const root = resolve(fileURLToPath(new URL('..', import.meta.url)));
+const outDir = join(root, 'node_modules', '.cache', 'canvas-bench');
+const entry = 'src/features/sketch/canvas/bench.html';
+
+const args = process.argv.slice(2);
+const argValue = (name: string) => {
+  const i = args.indexOf(name);
+  return i >= 0 ? args[i + 1] : undefined;
+};
+const sizes = (argValue('--sizes') ?? '50,300,1000').split(',').map(Number);
+const seconds = Number(argValue('--seconds') ?? 4);
+const skipBuild = args.includes('--no-build');
+const labels = argValue('--labels') ?? 'auto';
+/** Save a screenshot of each configuration into this folder. */
+const shotDir = argValue('--screenshots');
+
+const MIME: Record<string, string> = {
+  '.html': 'text/html',
+  '.js': 'text/javascript',
+  '.css': 'text/css',
+  '.woff2': 'font/woff2',
+  '.woff': 'font/woff',
+  '.svg': 'image/svg+xml',
+  '.json': 'application/json',
+};
+
+async function buildBench() {
+  const { build } = await import('vite');
+  const t0 = performance.now();
+  await build({
+    root,
+    configFile: join(root, 'vite.config.ts'),
+    logLevel: 'warn',
+    build: { outDir, emptyOutDir: true, rollupOptions: { input: join(root, entry) } },
+  });
+  console.log(`built bench page in ${((performance.now() - t0) / 1000).toFixed(1)} s`);
+}
+
+function serve(): Promise<{ server: Server; port: number }> {
+  const server = createServer((req, res) => {
+    void (async () => {
+      const url = new URL(req.url ?? '/', 'http://127.0.0.1');
+      const file = normalize(join(outDir, decodeURIComponent(url.pathname)));
+      if (!file.startsWith(outDir)) {
+        res.writeHead(403).end();
+        return;
+      }
+      try {
+        const s = await stat(file);
+        if (!s.isFile()) throw new Error('not a file');
+        res.writeHead(200, { 'content-type': MIME[extname(file)] ?? 'application/octet-stream' });
+        res.end(await readFile(file));
+      } catch {
+        res.writeHead(404).end('not found');
+      }
+    })();
+  });
+  return new Promise((ok) => {
+    server.listen(0, '127.0.0.1', () => {
+      const addr = server.address();
+      ok({ server, port: typeof addr === 'object' && addr ? addr.port : 0 });
+    });
+  });
+}
+
+interface Row {
+  elements: number;
+  antialias: boolean;
+  firstFrameMs: number;
+  fps: number;
+  editMs: number[];
+  calls: number;
+  triangles: number;
+  renderer: string;
+}
+
+async function measure(page: Page, base: string, n: number, aa: boolean): Promise<Row> {
+  const t0 = Date.now();
+  await page.goto(`${base}/${entry}?n=${n}&aa=${aa ? 1 : 0}&labels=${labels}`);
+  await page.waitForFunction(() => (window.__spoolwright?.frames ?? 0) > 0, undefined, { timeout: 120_000 });
+  const firstFrameMs = Date.now() - t0;
+  // Warm up, then orbit for `seconds`, one small step per animation frame.
+  const fps = await page.evaluate(async (secs) => {
+    const hooks = window.__spoolwright!;
+    const orbit = (ms: number) =>
+      new Promise<number>((done) => {
+        const start = performance.now();
+        const f0 = hooks.frames;
+        const tick = () => {
+          const now = performance.now();
+          if (now - start >= ms) {
+            done(((hooks.frames - f0) * 1000) / (now - start));
+            return;
+          }
+          hooks.orbitBy(0.01);
+          requestAnimationFrame(tick);
+        };
+        requestAnimationFrame(tick);
+      });
+    await orbit(800);
+    return orbit(secs * 1000);
+  }, seconds);
+  const info = await page.evaluate(() => {
+    window.__spoolwright!.fit();
+    return window.__spoolwright!.info();
+  });
+  if (shotDir) {
+    await page.waitForTimeout(300);
+    await page.screenshot({ path: join(shotDir, `canvas-${n}-${aa ? 'aa' : 'noaa'}.png`) });
+  }
+  // Edit → colour: alternate a straight between a failing and a passing schedule and wait for
+  // the pixel under its mid-point to change.
+  const editMs = await page.evaluate(async (count) => {
+    const hooks = window.__spoolwright!;
+    const frame = () => new Promise((r) => requestAnimationFrame(r));
+    await frame();
+    await frame();
+    const els = hooks.store.getState().doc.elements;
+    const straights = els.filter((e) => e.kind === 'straight');
+    const target = straights[straights.length - 1]!;
+    const times: number[] = [];
+    for (let i = 0; i < count; i++) {
+      const p = hooks.project(target.id)!;
+      const before = hooks.readPixel(p.x, p.y)!.join(',');
+      const schedule = i % 2 === 0 ? '5' : '160';
+      const t = performance.now();
+      hooks.store.getState().updateElement(target.id, { schedule }, { history: 'never' });
+      for (;;) {
+        await frame();
+        const now = hooks.readPixel(p.x, p.y)!.join(',');
+        if (now !== before) break;
+        if (performance.now() - t > 5000) {
+          times.push(Number.NaN);
+          break;
+        }
+      }
+      if (times.length === i) times.push(performance.now() - t);
+      await frame();
+    }
+    return times;
+  }, 6);
+  return { elements: n, antialias: aa, firstFrameMs, fps, editMs, calls: info.calls, triangles: info.triangles, renderer: info.renderer };
+}
+
+const median = (xs: number[]) => {
+  const s = xs.filter(Number.isFinite).sort((a, b) => a - b);
+  return s.length === 0 ? Number.NaN : s[Math.floor(s.length / 2)]!;
+};
+
+async function main() {
+  if (!skipBuild) await buildBench();
+  const { server, port } = await serve();
+  const browser = await chromium.launch({
+    executablePath: '/usr/bin/chromium',
+    headless: true,
+    args: [
+      '--no-sandbox',
+      '--disable-background-networking',
+      '--disable-component-update',
+      '--disable-sync',
+      '--no-first-run',
+      '--disable-quic',
+      '--use-angle=swiftshader',
+      '--enable-unsafe-swiftshader',
+    ],
+  });
+  const rows: Row[] = [];
+  try {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
+    // tsx keeps function names with a __name helper that page.evaluate bodies then call.
+    await page.addInitScript({ content: 'window.__name = (f) => f;' });
+    page.on('pageerror', (e) => console.error('page error:', e.message));
+    for (const n of sizes) {
+      for (const aa of [false, true]) {
+        const row = await measure(page, `http://127.0.0.1:${port}`, n, aa);
+        rows.push(row);
+        console.log(`measured ${n} elements, antialias ${aa ? 'on' : 'off'}`);
+      }
+    }
+  } finally {
+    await browser.close();
+    server.close();
+  }
+  console.log(`\nrenderer: ${rows[0]?.renderer ?? '?'}; canvas 1280×720 CSS px, DPR 1; orbit ${seconds} s per row`);
+  console.log('| elements | antialias | first frame (ms) | fps orbiting | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles |');
+  console.log('|---:|:---:|---:|---:|---:|---:|---:|---:|');
+  for (const r of rows) {
+    const finite = r.editMs.filter(Number.isFinite);
+    console.log(
+      `| ${r.elements} | ${r.antialias ? 'on' : 'off'} | ${r.firstFrameMs} | ${r.fps.toFixed(1)} | ${median(r.editMs).toFixed(0)} | ${finite.length ? Math.max(...finite).toFixed(0) : 'n/a'} | ${r.calls} | ${r.triangles} |`,
+    );
+  }
+}
+
+main().catch((e: unknown) => {
+  console.error(e);
+  process.exitCode = 1;
+});

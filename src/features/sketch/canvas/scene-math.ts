@@ -1,0 +1,73 @@
+import { Matrix4, Quaternion, Vector3 } from 'three';
+import type { PathSegment } from '../geometry/spool-path';
+import type { Vec3 } from '../geometry/vec';
+
+/** Placement of one element's mesh: geometry parameters and a pose (document units). */
+export interface MeshSpec {
+  readonly kind: 'straight' | 'bend';
+  readonly od: number;
+  /** Straights: length; bends: centreline radius. */
+  readonly size: number;
+  /** Bends: arc in radians (0 for straights). */
+  readonly arc: number;
+  readonly position: readonly [number, number, number];
+  readonly quaternion: readonly [number, number, number, number];
+}
+
+const Y = new Vector3(0, 1, 0);
+const toV = (v: Vec3) => new Vector3(v.x, v.y, v.z);
+
+/** Quaternion turning +y onto a unit direction. */
+export function quaternionAlong(dir: Vec3): [number, number, number, number] {
+  const q = new Quaternion().setFromUnitVectors(Y, toV(dir).normalize());
+  return [q.x, q.y, q.z, q.w];
+}
+
+/** The mesh placement of a path segment (straights: a +y cylinder at the mid-point; bends: the torus frame at the centre). */
+export function meshSpecOf(seg: PathSegment): MeshSpec {
+  if (seg.kind === 'straight') {
+    return {
+      kind: 'straight',
+      od: seg.outsideDiameter,
+      size: seg.length,
+      arc: 0,
+      position: [seg.midpoint.x, seg.midpoint.y, seg.midpoint.z],
+      quaternion: quaternionAlong(seg.dir),
+    };
+  }
+  const m = new Matrix4().makeBasis(toV(seg.xAxis), toV(seg.yAxis), toV(seg.normal));
+  const q = new Quaternion().setFromRotationMatrix(m);
+  return {
+    kind: 'bend',
+    od: seg.outsideDiameter,
+    size: seg.radius,
+    arc: seg.angleRad,
+    position: [seg.centre.x, seg.centre.y, seg.centre.z],
+    quaternion: [q.x, q.y, q.z, q.w],
+  };
+}
+
+/** Equal placements (for React.memo). */
+export function sameSpec(a: MeshSpec, b: MeshSpec): boolean {
+  return (
+    a.kind === b.kind &&
+    a.od === b.od &&
+    a.size === b.size &&
+    a.arc === b.arc &&
+    a.position.every((v, i) => v === b.position[i]) &&
+    a.quaternion.every((v, i) => v === b.quaternion[i])
+  );
+}
+
+/** Scene units per document length unit: the scene is in inches (metric documents are scaled by 1/25.4). */
+export function sceneScale(units: 'imperial' | 'metric'): number {
+  return units === 'metric' ? 1 / 25.4 : 1;
+}
+
+/** A round step (1, 2, 5 × 10ⁿ) near `raw`. */
+export function niceStep(raw: number): number {
+  if (!(raw > 0)) return 1;
+  const p = 10 ** Math.floor(Math.log10(raw));
+  const f = raw / p;
+  return (f < 1.5 ? 1 : f < 3.5 ? 2 : f < 7.5 ? 5 : 10) * p;
+}

@@ -1,0 +1,110 @@
+import { useCallback, useMemo } from 'react';
+import { Canvas } from '@react-three/fiber';
+import { OrbitControls } from '@react-three/drei';
+import type { CheckStatus, SpoolCheck } from '@shared/engine/types';
+import { buildSpoolPath } from '../geometry/spool-path';
+import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
+import { DimensionLabels } from './dimension-labels';
+import { ElementMesh, SelectionOutline } from './element-mesh';
+import { EndMarkers } from './end-markers';
+import { GridAndAxes } from './grid-and-axes';
+import { meshSpecOf, sceneScale } from './scene-math';
+import { StatusLegend } from './status-legend';
+import { BACKGROUND_COLOR } from './status-style';
+import { ISOMETRIC_VIEW, ViewController } from './view-controller';
+
+export interface SketchCanvasProps {
+  readonly className?: string;
+  /** The check to colour by; default: `useSpoolCheck()` of the store. */
+  readonly check?: SpoolCheck;
+  /** Show the status key in the top-left corner (default true). */
+  readonly showLegend?: boolean;
+}
+
+/**
+ * The 3D-lite isometric sketch of the spool in the nearest `SpoolStoreProvider`.
+ *
+ * - Orthographic camera from the south-east above; drag to orbit, right-drag / shift-drag
+ *   to pan, wheel to zoom. "Fit to spool": `store.getState().requestFit()`.
+ * - Straights are open tubes and bends torus segments at their true OD and bend radius,
+ *   coloured and patterned by check status (see `STATUS_STYLES`, `StatusLegend`).
+ * - Hover highlights; click selects (`store.select`); a click on empty space clears it.
+ * - Labels follow `view.showDimensions`; antialiasing follows `view.antialias`.
+ * - Renders on demand only (`frameloop="demand"`), device pixel ratio 1.
+ * - `window.__spoolwright` carries test hooks (`SpoolwrightCanvasHooks`), e.g. `project(id)`.
+ * - No canvas-level keyboard shortcuts: keys belong to the page's drawing bar.
+ *
+ * Lazy-load it through `SketchCanvasLazy` (sketch-canvas-lazy.ts) to keep three.js out of
+ * the first download.
+ */
+export function SketchCanvas({ className, check: checkProp, showLegend = true }: SketchCanvasProps) {
+  const store = useSpoolStoreApi();
+  const derived = useSpoolCheck();
+  const check = checkProp ?? derived;
+  const doc = useSpoolStore((s) => s.doc);
+  const selectedId = useSpoolStore((s) => s.selectedId);
+  const hoveredId = useSpoolStore((s) => s.hoveredId);
+  const view = useSpoolStore((s) => s.view);
+  const select = useSpoolStore((s) => s.select);
+  const hover = useSpoolStore((s) => s.hover);
+
+  const path = useMemo(() => buildSpoolPath(doc), [doc]);
+  const specs = useMemo(() => path.segments.map(meshSpecOf), [path]);
+  const statuses = useMemo(() => new Map<string, CheckStatus>(check.elements.map((e) => [e.id, e.status])), [check]);
+  const scale = sceneScale(doc.units);
+  const selectedSpec = selectedId !== null ? specs[path.byId.get(selectedId)?.index ?? -1] : undefined;
+  const onHover = useCallback(
+    (id: string | null) => {
+      hover(id);
+      document.body.style.cursor = id ? 'pointer' : '';
+    },
+    [hover],
+  );
+
+  return (
+    <div data-testid="sketch-canvas" className={`relative h-full w-full ${className ?? ''}`}>
+      <Canvas
+        key={view.antialias ? 'aa' : 'no-aa'}
+        orthographic
+        camera={{ position: [ISOMETRIC_VIEW.x * 500, ISOMETRIC_VIEW.y * 500, ISOMETRIC_VIEW.z * 500], zoom: 2, near: 0.1, far: 1e7 }}
+        frameloop="demand"
+        flat
+        dpr={1}
+        gl={{ antialias: view.antialias, preserveDrawingBuffer: true }}
+        onPointerMissed={() => select(null)}
+        aria-label="Isometric sketch of the spool"
+      >
+        <color attach="background" args={[BACKGROUND_COLOR]} />
+        <ambientLight intensity={1.6} />
+        <directionalLight position={[0.4, 1, 0.7]} intensity={1.2} />
+        <group scale={scale}>
+          {path.segments.map((seg, i) => (
+            <ElementMesh
+              key={seg.id}
+              id={seg.id}
+              spec={specs[i]!}
+              status={statuses.get(seg.id) ?? 'invalid'}
+              highlight={seg.id === selectedId ? 'selected' : seg.id === hoveredId ? 'hover' : 'none'}
+              onSelect={select}
+              onHover={onHover}
+            />
+          ))}
+          {selectedSpec ? <SelectionOutline spec={selectedSpec} /> : null}
+          <EndMarkers segments={path.segments} />
+          <DimensionLabels
+            segments={path.segments}
+            statuses={statuses}
+            units={doc.units}
+            mode={view.showDimensions}
+            selectedId={selectedId}
+            hoveredId={hoveredId}
+          />
+          <GridAndAxes bbox={path.bbox} />
+        </group>
+        <OrbitControls makeDefault enableDamping={false} />
+        <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
+      </Canvas>
+      {showLegend ? <StatusLegend summary={check.summary} className="pointer-events-none absolute top-2 left-2 rounded bg-white/85 px-2 py-1" /> : null}
+    </div>
+  );
+}
