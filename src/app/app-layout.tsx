@@ -1,7 +1,6 @@
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { useMe } from '@/features/auth/api/get-me';
 import { useSignOut } from '@/features/auth/api/sign-out';
-import { Button } from '@/components/ui/button';
 import { cn } from '@/lib/cn';
 
 const roleLabel: Record<string, string> = {
@@ -43,15 +42,14 @@ export function AppLayout() {
               </span>
             </>
           ) : null}
-          <Button
-            size="sm"
-            variant="ghost"
-            className="text-steel-200 hover:bg-steel-700 hover:text-white"
+          <button
+            type="button"
+            className="rounded border border-steel-600 px-2 py-0.5 text-xs text-steel-100 hover:bg-steel-700 hover:text-white disabled:opacity-50"
             disabled={signOut.isPending}
             onClick={() => signOut.mutate(undefined, { onSettled: () => void navigate('/sign-in', { replace: true }) })}
           >
             Sign out
-          </Button>
+          </button>
         </div>
       </header>
       <div className="min-h-0 flex-1">

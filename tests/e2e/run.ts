@@ -114,10 +114,12 @@ interface Outcome {
   error?: string;
 }
 const outcomes: Outcome[] = [];
+let currentStep = '';
 
 /** Run one step of a journey; a failed step stops the journey (the rest are reported as not run). */
 async function step(name: string, fn: () => Promise<void>): Promise<void> {
   const t0 = Date.now();
+  currentStep = name;
   let timer: NodeJS.Timeout | undefined;
   try {
     await Promise.race([
@@ -202,7 +204,7 @@ async function designerJourney(ctx: BrowserContext, base: string, shared: { spoo
   const page = await ctx.newPage();
   page.setDefaultTimeout(STEP_TIMEOUT);
   const consoleErrors: string[] = [];
-  page.on('pageerror', (e) => consoleErrors.push(e.message));
+  page.on('pageerror', (e) => consoleErrors.push(`${currentStep}: ${e.message}\n${e.stack ?? ''}`));
   await journey(
     'designer journey',
     async () => {

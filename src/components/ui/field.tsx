@@ -1,8 +1,10 @@
 import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
 import { cn } from '@/lib/cn';
 
+/** Input look without a width (callers set one). */
 export const inputClass =
-  'h-8 w-full rounded border border-steel-300 bg-white px-2 text-sm text-steel-900 focus:border-copper-500 focus:outline-none disabled:bg-steel-100 disabled:text-steel-500 aria-[invalid=true]:border-red-500';
+  'h-8 rounded border border-steel-300 bg-white px-2 text-sm text-steel-900 focus:border-copper-500 focus:outline-none disabled:bg-steel-100 disabled:text-steel-500 aria-[invalid=true]:border-red-500';
+const fieldInputClass = `${inputClass} w-full`;
 
 interface FieldShellProps {
   readonly label: string;
@@ -51,7 +53,7 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
   return (
     <FieldShell label={label} unit={unit} error={error} hint={hint} className={className}>
       {(id, describedBy) => (
-        <input ref={ref} id={id} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={inputClass} {...rest} />
+        <input ref={ref} id={id} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={fieldInputClass} {...rest} />
       )}
     </FieldShell>
   );
@@ -71,7 +73,7 @@ export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(funct
   return (
     <FieldShell label={label} error={error} hint={hint} className={className}>
       {(id, describedBy) => (
-        <select ref={ref} id={id} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={inputClass} {...rest}>
+        <select ref={ref} id={id} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={fieldInputClass} {...rest}>
           {options.map((o) => (
             <option key={o.value} value={o.value}>
               {o.label}

@@ -1,24 +1,25 @@
+import type { CheckStatus } from '@shared/engine/types';
+import { STATUS_STYLES, statusSwatchBackground } from '@/features/sketch/canvas/status-style';
 import { cn } from '@/lib/cn';
 
-/** Check-status look: each status has a tint and a glyph so it reads without colour too. */
-const checkLook: Record<string, { cls: string; glyph: string; label: string }> = {
-  pass: { cls: 'bg-emerald-50 text-emerald-800 border-emerald-300', glyph: '✓', label: 'pass' },
-  marginal: { cls: 'bg-amber-50 text-amber-800 border-amber-300', glyph: '≈', label: 'marginal' },
-  fail: { cls: 'bg-red-50 text-red-800 border-red-300', glyph: '✕', label: 'fail' },
-  review: { cls: 'bg-violet-50 text-violet-800 border-violet-300', glyph: '?', label: 'review' },
-  invalid: { cls: 'bg-steel-100 text-steel-700 border-steel-300', glyph: '!', label: 'invalid' },
-};
-
+/**
+ * Check-status badge: the same colours, patterns and glyphs as the sketch (one visual code for
+ * the whole app), so a status reads without colour too.
+ */
 export function CheckBadge({ status, className }: { readonly status: string | null | undefined; readonly className?: string }) {
   if (!status) return <span className="text-xs text-steel-400">—</span>;
-  const look = checkLook[status] ?? checkLook.invalid!;
+  const key = (status in STATUS_STYLES ? status : 'invalid') as CheckStatus;
+  const look = STATUS_STYLES[key];
   return (
     <span
       data-check-status={status}
-      className={cn('inline-flex items-center gap-1 rounded border px-1.5 py-px text-xs font-medium', look.cls, className)}
+      title={look.description}
+      className={cn('inline-flex items-center gap-1 rounded border border-steel-200 bg-white px-1.5 py-px text-xs font-medium', className)}
+      style={{ color: look.ink }}
     >
+      <span aria-hidden className="inline-block h-2.5 w-3.5 rounded-sm" style={{ background: statusSwatchBackground(key) }} />
       <span aria-hidden>{look.glyph}</span>
-      {look.label}
+      {status}
     </span>
   );
 }
