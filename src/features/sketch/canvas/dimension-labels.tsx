@@ -1,15 +1,23 @@
-import { memo } from 'react';
-import { Html } from '@react-three/drei';
+import { useEffect, type MutableRefObject, type ReactNode } from 'react';
+import { useFrame, useThree } from '@react-three/fiber';
+import { Vector3 } from 'three';
 import type { CheckStatus } from '@shared/engine/types';
 import type { UnitSystem } from '@shared/model/spool';
 import { UNIT_LABELS } from '@shared/units/units';
 import type { PathSegment } from '../geometry/spool-path';
+import type { Vec3 } from '../geometry/vec';
 import type { DimensionMode } from '../store/spool-store';
 import { STATUS_STYLES } from './status-style';
 
-/** In `auto` mode every element is labelled up to this many elements; beyond it only the selected and hovered ones. */
-export const AUTO_LABEL_LIMIT = 60;
-/** Most labels drawn in `all` mode (each is a DOM node moved on every frame). */
+/*
+ * Labels are plain DOM nodes in one overlay above the canvas; a frame callback inside the
+ * canvas moves them to their projected anchors on every rendered frame (no React work per
+ * frame, no per-label React root), so they stay crisp and cheap.
+ */
+
+/** In `auto` mode straights are labelled while the spool has at most this many elements; beyond it only the selected and hovered ones. */
+export const AUTO_LABEL_LIMIT = 24;
+/** Most labels drawn in `all` mode. */
 export const ALL_LABEL_LIMIT = 400;
 
 const fmt = (v: number) => String(Math.round(v * 100) / 100);
@@ -22,68 +30,90 @@ export function dimensionText(seg: PathSegment, units: UnitSystem): string {
 
 /** Which segments get a label. */
 export function pickLabelled(segments: readonly PathSegment[], mode: DimensionMode, selectedId: string | null, hoveredId: string | null): PathSegment[] {
-  if (mode === 'none') return segments.filter((s) => s.id === selectedId || s.id === hoveredId);
-  if (mode === 'all' || segments.length <= AUTO_LABEL_LIMIT) {
-    const first = segments.slice(0, ALL_LABEL_LIMIT);
-    const extra = segments.filter((s, i) => i >= ALL_LABEL_LIMIT && (s.id === selectedId || s.id === hoveredId));
-    return [...first, ...extra];
-  }
-  return segments.filter((s) => s.id === selectedId || s.id === hoveredId);
+  const focused = (s: PathSegment) => s.id === selectedId || s.id === hoveredId;
+  if (mode === 'all') return segments.filter((s, i) => i < ALL_LABEL_LIMIT || focused(s));
+  if (mode === 'auto' && segments.length <= AUTO_LABEL_LIMIT) return segments.filter((s) => s.kind === 'straight' || focused(s));
+  return segments.filter(focused);
 }
 
-interface LabelProps {
-  readonly id: string;
-  readonly text: string;
-  readonly status: CheckStatus;
-  readonly x: number;
-  readonly y: number;
-  readonly z: number;
-  readonly emphasis: boolean;
+/** A label for the overlay: an anchor in document units and its content. */
+export interface ScreenLabel {
+  readonly key: string;
+  readonly anchor: Vec3;
+  readonly content: ReactNode;
+  readonly className?: string;
 }
 
-const DimensionLabel = memo(function DimensionLabel({ id, text, status, x, y, z, emphasis }: LabelProps) {
-  const st = STATUS_STYLES[status];
+/** Dimension labels of the chosen segments, with the status glyph as a non-colour cue. */
+export function dimensionLabels(
+  segments: readonly PathSegment[],
+  statuses: ReadonlyMap<string, CheckStatus>,
+  units: UnitSystem,
+  mode: DimensionMode,
+  selectedId: string | null,
+  hoveredId: string | null,
+): ScreenLabel[] {
+  return pickLabelled(segments, mode, selectedId, hoveredId).map((seg) => {
+    const st = STATUS_STYLES[statuses.get(seg.id) ?? 'invalid'];
+    const emphasis = seg.id === selectedId || seg.id === hoveredId;
+    return {
+      key: seg.id,
+      anchor: seg.labelAnchor,
+      className: `whitespace-nowrap rounded border bg-white px-1 leading-tight text-steel-800 ${emphasis ? 'border-steel-700 text-xs font-semibold' : 'border-steel-300 text-[10px]'}`,
+      content: (
+        <span data-label-for={seg.id}>
+          <span style={{ color: st.ink }} aria-label={st.label}>
+            {st.glyph}
+          </span>{' '}
+          <span className="text-steel-500">{seg.id}</span> {dimensionText(seg, units)}
+        </span>
+      ),
+    };
+  });
+}
+
+export type LabelRegistry = MutableRefObject<Map<string, HTMLDivElement>>;
+
+/** The DOM side: one absolutely placed node per label, parked off-screen until projected. */
+export function LabelOverlay({ labels, registry }: { readonly labels: readonly ScreenLabel[]; readonly registry: LabelRegistry }) {
   return (
-    <Html position={[x, y, z]} center zIndexRange={[30, 0]} style={{ pointerEvents: 'none' }}>
-      <div
-        data-label-for={id}
-        className={`whitespace-nowrap rounded border bg-white/90 px-1 font-sans leading-tight text-steel-800 shadow-sm ${emphasis ? 'border-steel-700 text-xs font-semibold' : 'border-steel-300 text-[10px]'}`}
-      >
-        <span style={{ color: st.ink }} aria-label={st.label}>
-          {st.glyph}
-        </span>{' '}
-        <span className="text-steel-500">{id}</span> {text}
-      </div>
-    </Html>
-  );
-});
-
-export interface DimensionLabelsProps {
-  readonly segments: readonly PathSegment[];
-  readonly statuses: ReadonlyMap<string, CheckStatus>;
-  readonly units: UnitSystem;
-  readonly mode: DimensionMode;
-  readonly selectedId: string | null;
-  readonly hoveredId: string | null;
-}
-
-/** Dimension labels (drei Html, so text stays crisp and readable at any zoom). */
-export function DimensionLabels({ segments, statuses, units, mode, selectedId, hoveredId }: DimensionLabelsProps) {
-  const shown = pickLabelled(segments, mode, selectedId, hoveredId);
-  return (
-    <group>
-      {shown.map((seg) => (
-        <DimensionLabel
-          key={seg.id}
-          id={seg.id}
-          text={dimensionText(seg, units)}
-          status={statuses.get(seg.id) ?? 'invalid'}
-          x={seg.labelAnchor.x}
-          y={seg.labelAnchor.y}
-          z={seg.labelAnchor.z}
-          emphasis={seg.id === selectedId || seg.id === hoveredId}
-        />
+    <div className="pointer-events-none absolute inset-0 overflow-hidden font-sans" data-testid="sketch-labels">
+      {labels.map((l) => (
+        <div
+          key={l.key}
+          ref={(el) => {
+            if (el) registry.current.set(l.key, el);
+            else registry.current.delete(l.key);
+          }}
+          className={`absolute top-0 left-0 ${l.className ?? ''}`}
+          style={{ transform: 'translate(-10000px, 0)' }}
+        >
+          {l.content}
+        </div>
       ))}
-    </group>
+    </div>
   );
+}
+
+const v = new Vector3();
+
+/** The canvas side: moves each label to its anchor's screen point after every rendered frame. */
+export function LabelProjector({ labels, registry, scale }: { readonly labels: readonly ScreenLabel[]; readonly registry: LabelRegistry; readonly scale: number }) {
+  const invalidate = useThree((s) => s.invalidate);
+  useEffect(() => invalidate(), [labels, invalidate]);
+  useFrame(({ camera, size }) => {
+    for (const l of labels) {
+      const el = registry.current.get(l.key);
+      if (!el) continue;
+      v.set(l.anchor.x * scale, l.anchor.y * scale, l.anchor.z * scale).project(camera);
+      if (v.z < -1 || v.z > 1) {
+        el.style.transform = 'translate(-10000px, 0)';
+        continue;
+      }
+      const x = ((v.x + 1) / 2) * size.width;
+      const y = ((1 - v.y) / 2) * size.height;
+      el.style.transform = `translate(${x.toFixed(1)}px, ${y.toFixed(1)}px) translate(-50%, -50%)`;
+    }
+  });
+  return null;
 }

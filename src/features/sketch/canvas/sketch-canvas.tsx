@@ -1,13 +1,13 @@
-import { useCallback, useMemo } from 'react';
+import { useCallback, useMemo, useRef } from 'react';
 import { Canvas } from '@react-three/fiber';
 import { OrbitControls } from '@react-three/drei';
 import type { CheckStatus, SpoolCheck } from '@shared/engine/types';
 import { buildSpoolPath } from '../geometry/spool-path';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
-import { DimensionLabels } from './dimension-labels';
+import { LabelOverlay, LabelProjector, dimensionLabels } from './dimension-labels';
 import { ElementMesh, SelectionOutline } from './element-mesh';
 import { EndMarkers } from './end-markers';
-import { GridAndAxes } from './grid-and-axes';
+import { GridAndAxes, axisLabels } from './grid-and-axes';
 import { meshSpecOf, sceneScale } from './scene-math';
 import { StatusLegend } from './status-legend';
 import { BACKGROUND_COLOR } from './status-style';
@@ -53,6 +53,12 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
   const statuses = useMemo(() => new Map<string, CheckStatus>(check.elements.map((e) => [e.id, e.status])), [check]);
   const scale = sceneScale(doc.units);
   const selectedSpec = selectedId !== null ? specs[path.byId.get(selectedId)?.index ?? -1] : undefined;
+  const registry = useRef(new Map<string, HTMLDivElement>());
+  const axes = useMemo(() => axisLabels(path.bbox), [path.bbox]);
+  const labels = useMemo(
+    () => [...axes, ...dimensionLabels(path.segments, statuses, doc.units, view.showDimensions, selectedId, hoveredId)],
+    [axes, path.segments, statuses, doc.units, view.showDimensions, selectedId, hoveredId],
+  );
   const onHover = useCallback(
     (id: string | null) => {
       hover(id);
@@ -91,19 +97,13 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
           ))}
           {selectedSpec ? <SelectionOutline spec={selectedSpec} /> : null}
           <EndMarkers segments={path.segments} />
-          <DimensionLabels
-            segments={path.segments}
-            statuses={statuses}
-            units={doc.units}
-            mode={view.showDimensions}
-            selectedId={selectedId}
-            hoveredId={hoveredId}
-          />
           <GridAndAxes bbox={path.bbox} />
         </group>
+        <LabelProjector labels={labels} registry={registry} scale={scale} />
         <OrbitControls makeDefault enableDamping={false} />
         <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
       </Canvas>
+      <LabelOverlay labels={labels} registry={registry} />
       {showLegend ? <StatusLegend summary={check.summary} className="pointer-events-none absolute top-2 left-2 rounded bg-white/85 px-2 py-1" /> : null}
     </div>
   );
