@@ -23,7 +23,7 @@ export function FieldShell({ label, unit, error, hint, children, className }: Fi
     <div className={cn('flex flex-col gap-0.5', className)}>
       <label htmlFor={id} className="text-xs font-medium text-steel-600">
         {label}
-        {unit ? <span className="ml-1 font-normal text-steel-400">({unit})</span> : null}
+        {unit ? <span className="font-normal text-steel-400"> ({unit})</span> : null}
       </label>
       {children(id, error || hint ? msgId : undefined)}
       {error ? (
