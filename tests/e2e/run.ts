@@ -199,6 +199,14 @@ const DESIGNER_STEPS = [
   'finds the spool in the register',
 ];
 const FABRICATOR_STEPS = ['fabricator signs in', 'opens the spool and finds editing unavailable'];
+const MORE_STEPS = [
+  'undo and redo by keyboard',
+  'metric display shows mm and MPa without changing the stored values',
+  'leaving with unsaved changes asks first',
+  'a stale save shows what differs and can load the saved version',
+  'submits the spool for check',
+  'export downloads the document; import brings one back and reports bad files by field',
+];
 
 async function designerJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string; spoolName?: string }) {
   const page = await ctx.newPage();
@@ -332,6 +340,114 @@ async function fabricatorJourney(ctx: BrowserContext, base: string, shared: { sp
   await page.close();
 }
 
+const rowCount = (page: Page) => page.locator('[data-testid="element-table"] tbody tr').count();
+
+async function waitRows(page: Page, n: number): Promise<void> {
+  await page.waitForFunction((want) => document.querySelectorAll('[data-testid="element-table"] tbody tr').length === want, n, { timeout: STEP_TIMEOUT });
+}
+
+async function moreDesignerJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string }) {
+  const page = await ctx.newPage();
+  page.setDefaultTimeout(STEP_TIMEOUT);
+  await journey(
+    'designer: history, units, guards, conflicts, lifecycle, files',
+    async () => {
+      await step(MORE_STEPS[0]!, async () => {
+        expect(shared.spoolId, 'no spool from the designer journey');
+        await signIn(page, base, 'designer@spoolwright.test');
+        await page.goto(`${base}/spools/${shared.spoolId}`);
+        await waitRows(page, 7);
+        await page.getByLabel('Leg length').fill('24');
+        await page.getByRole('button', { name: 'Draw leg South' }).click();
+        await waitRows(page, 9);
+        await page.locator('body').click({ position: { x: 5, y: 5 } });
+        await page.keyboard.press('Control+z');
+        await waitRows(page, 7);
+        await page.keyboard.press('Control+Shift+z');
+        await waitRows(page, 9);
+        await page.keyboard.press('Control+z');
+        await waitRows(page, 7);
+        // a reversal is refused with a message
+        await page.getByRole('button', { name: 'Draw leg West' }).click();
+        const notice = await page.getByTestId('edit-notice').textContent();
+        expect(notice?.includes('double back'), `refusal reads "${notice}"`);
+      });
+      await step(MORE_STEPS[1]!, async () => {
+        await page.locator('[data-units="metric"]').click();
+        await page.getByText('Leg length (mm)').waitFor();
+        const s1 = await page.locator('[data-testid="element-table"] tr[data-element-id="S1"]').textContent();
+        // S1 cut length 33 in = 838.2 mm
+        expect(s1?.includes('838.2 mm'), `S1 row reads "${s1}"`);
+        await page.getByRole('tab', { name: 'Design conditions' }).click();
+        // 1100 psi = 7.58423 MPa
+        const p = await page.getByLabel(/Internal design pressure/).inputValue();
+        expect(p === '7.58423', `pressure shows "${p}"`);
+        expect((await page.getByTestId('dirty').count()) === 0, 'switching units made the spool dirty');
+        await page.locator('[data-units="imperial"]').click();
+        await page.getByText('Leg length (in)').waitFor();
+      });
+      await step(MORE_STEPS[2]!, async () => {
+        await page.getByRole('button', { name: 'Draw leg South' }).click();
+        await waitRows(page, 9);
+        await page.getByRole('link', { name: 'Spool register' }).click();
+        await page.getByRole('alertdialog', { name: 'Unsaved changes' }).waitFor();
+        await page.getByRole('button', { name: 'Stay' }).click();
+        expect(page.url().endsWith(`/spools/${shared.spoolId}`), `left to ${page.url()}`);
+        expect((await rowCount(page)) === 9, 'the edit was lost');
+      });
+      await step(MORE_STEPS[3]!, async () => {
+        // someone else saves first
+        const res = await page.request.get(`${base}/api/spools/${shared.spoolId}`);
+        expect(res.ok(), `GET spool ${res.status()}`);
+        const current = (await res.json()) as { version: number; document: { conditions: Record<string, unknown>; elements: { id: string; tag?: string }[] } };
+        const theirs = {
+          ...current.document,
+          conditions: { ...current.document.conditions, temperature: 250 },
+          elements: current.document.elements.map((e) => (e.id === 'S2' ? { ...e, tag: 'changed elsewhere' } : e)),
+        };
+        const put = await page.request.put(`${base}/api/spools/${shared.spoolId}`, {
+          data: { document: theirs, baseVersion: current.version },
+          headers: { Origin: base },
+        });
+        expect(put.ok(), `PUT by the other editor answered ${put.status()} ${await put.text()}`);
+        await page.getByRole('button', { name: 'Save', exact: true }).click();
+        const panel = page.getByTestId('conflict');
+        await panel.waitFor();
+        const text = (await page.getByTestId('conflict-changes').textContent()) ?? '';
+        for (const want of ['conditions: differs in temperature', 'S2: differs in tag', 'S4: differs in length', 'only in yours']) {
+          expect(text.includes(want), `conflict list lacks "${want}": ${text}`);
+        }
+        await page.getByRole('button', { name: /Load the saved version/ }).click();
+        await waitRows(page, 7);
+        expect((await page.getByTestId('dirty').count()) === 0, 'still dirty after loading the saved version');
+      });
+      await step(MORE_STEPS[4]!, async () => {
+        await page.getByRole('button', { name: 'Submit for check' }).click();
+        await page.locator('[data-lifecycle="submitted"]').waitFor();
+      });
+      await step(MORE_STEPS[5]!, async () => {
+        const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export' }).click()]);
+        const file = await download.path();
+        const doc = JSON.parse(fs.readFileSync(file, 'utf8')) as { elements: { id: string }[]; conditions: { temperature: number } };
+        expect(doc.elements.length === 7 && doc.conditions.temperature === 250, `exported ${doc.elements.length} elements, T ${doc.conditions.temperature}`);
+        const shorter = { ...doc, elements: doc.elements.slice(0, 5) };
+        await page.getByTestId('import-input').setInputFiles({ name: 'shorter.spool.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(shorter)) });
+        await waitRows(page, 5);
+        await page.getByTestId('dirty').waitFor();
+        const bad = { ...doc, elements: [{ id: 'X1', kind: 'straight', nps: '2', schedule: '40', length: -3 }] };
+        await page.getByTestId('import-input').setInputFiles({ name: 'bad.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(bad)) });
+        const alert = page.getByText('Not imported:').locator('..');
+        await alert.waitFor();
+        const alertText = await alert.textContent();
+        expect(alertText?.includes('elements[0].length'), `import error reads "${alertText}"`);
+        expect((await rowCount(page)) === 5, 'a bad file changed the sketch');
+      });
+    },
+    MORE_STEPS,
+  );
+  await page.close();
+}
+
 // ---------------------------------------------------------------------------------------------
 
 async function main(): Promise<number> {
@@ -355,6 +471,9 @@ async function main(): Promise<number> {
     const fabricator = await browser.newContext({ viewport: { width: 1440, height: 900 } });
     await fabricatorJourney(fabricator, server.url, shared);
     await fabricator.close();
+    const again = await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
+    await moreDesignerJourney(again, server.url, shared);
+    await again.close();
   } catch (e) {
     outcomes.push({ name: 'setup', ok: false, ms: 0, error: e instanceof Error ? e.message : String(e) });
     console.log(`setup failed: ${e instanceof Error ? e.message : String(e)}`);
@@ -364,7 +483,7 @@ async function main(): Promise<number> {
     if (server) await stopServer(server.child);
     fs.rmSync(dataDir, { recursive: true, force: true });
   }
-  const notRun = DESIGNER_STEPS.length + FABRICATOR_STEPS.length - outcomes.filter((o) => o.name !== 'setup').length;
+  const notRun = DESIGNER_STEPS.length + FABRICATOR_STEPS.length + MORE_STEPS.length - outcomes.filter((o) => o.name !== 'setup').length;
   const passed = outcomes.filter((o) => o.ok).length;
   const failed = outcomes.filter((o) => !o.ok).length + Math.max(0, notRun);
   console.log(`${passed} passed, ${failed} failed`);
