@@ -4,7 +4,7 @@ import express, { type RequestHandler } from 'express';
 import { toNodeHandler } from 'better-auth/node';
 import type { Db } from './db/client';
 import type { Auth } from './auth/auth';
-import { loadSession } from './auth/member';
+import { MembershipCache, loadSession } from './auth/member';
 import type { ServerConfig } from './config';
 import type { Mailer } from './mail/mailer';
 import { silentLogger, type Logger } from './logger';
@@ -80,13 +80,14 @@ export function createApp(deps: AppDeps) {
   });
 
   app.use('/api/share', publicShareRouter({ db: deps.db }));
-  app.use('/api', loadSession(deps.auth, deps.db));
+  const memberships = new MembershipCache(deps.db);
+  app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
   app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl }));
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
   app.use('/api/check', checkRouter());
   app.use('/api', catalogRouter());
-  app.use('/api/team', teamRouter({ db: deps.db }));
+  app.use('/api/team', teamRouter({ db: deps.db, memberships }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);
 

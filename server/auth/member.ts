@@ -44,12 +44,42 @@ async function findMembership(db: Db, userId: string) {
   return row;
 }
 
+type Membership = Awaited<ReturnType<typeof findMembership>>;
+
+/**
+ * Memberships read in the last few seconds. Role changes made through this process clear the
+ * entry at once; the TTL bounds how long another process (several servers on one PostgreSQL)
+ * can act on a stale role.
+ */
+export class MembershipCache {
+  private readonly entries = new Map<string, { value: Membership; expires: number }>();
+  constructor(
+    private readonly db: Db,
+    private readonly ttlMs = 5_000,
+  ) {}
+
+  async get(userId: string): Promise<Membership> {
+    const now = Date.now();
+    const hit = this.entries.get(userId);
+    if (hit && hit.expires > now) return hit.value;
+    const value = await findMembership(this.db, userId);
+    if (this.entries.size > 10_000) this.entries.clear();
+    this.entries.set(userId, { value, expires: now + this.ttlMs });
+    return value;
+  }
+
+  invalidate(userId?: string) {
+    if (userId === undefined) this.entries.clear();
+    else this.entries.delete(userId);
+  }
+}
+
 /** Reads the session (cookie cache first) and the membership into res.locals.ctx; never rejects. */
-export function loadSession(auth: Auth, db: Db): RequestHandler {
+export function loadSession(auth: Auth, memberships: MembershipCache): RequestHandler {
   return async (req: Request, res: Response, next: NextFunction) => {
     const session = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
     if (session) {
-      const m = await findMembership(db, session.user.id);
+      const m = await memberships.get(session.user.id);
       const ctx: RequestContext = {
         user: { id: session.user.id, email: session.user.email, name: session.user.name },
         team: m ? { id: m.teamId, name: m.teamName } : null,

@@ -3,7 +3,7 @@ import { and, asc, count, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
 import { teamMembers, user } from '../db/schema';
-import { getTeamId, requirePermission } from '../auth/member';
+import { getTeamId, requirePermission, type MembershipCache } from '../auth/member';
 import { HttpError, notFound } from '../errors';
 import { parseBody } from '../validation';
 import { createUserWithPassword } from '../db/seed';
@@ -19,7 +19,7 @@ const addSchema = z.object({
 });
 
 /** /api/team/members: everyone in the team may list; admins add, re-role and remove. */
-export function teamRouter(deps: { db: Db }) {
+export function teamRouter(deps: { db: Db; memberships: MembershipCache }) {
   const { db } = deps;
   const r = Router();
 
@@ -49,6 +49,7 @@ export function teamRouter(deps: { db: Db }) {
     if (existing) throw new HttpError(409, 'conflict', 'A user with this e-mail already exists');
     const id = await createUserWithPassword(db, { email, name: body.name, password: body.password });
     await db.insert(teamMembers).values({ teamId, userId: id, role: body.role });
+    deps.memberships.invalidate(id);
     res.status(201).json({ userId: id, email, name: body.name, role: body.role });
   });
 
@@ -62,6 +63,7 @@ export function teamRouter(deps: { db: Db }) {
       throw new HttpError(409, 'conflict', 'A team keeps at least one admin');
     }
     await db.update(teamMembers).set({ role: body.role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
+    deps.memberships.invalidate(userId);
     const [row] = (await listMembers(teamId)).filter((x) => x.userId === userId);
     res.json({ ...row!, createdAt: row!.createdAt.toISOString() });
   });
@@ -73,6 +75,7 @@ export function teamRouter(deps: { db: Db }) {
     if (!m) throw notFound('Member not found');
     if (m.role === 'admin' && (await adminCount(teamId)) <= 1) throw new HttpError(409, 'conflict', 'A team keeps at least one admin');
     await db.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
+    deps.memberships.invalidate(userId);
     res.status(204).end();
   });
 

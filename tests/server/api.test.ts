@@ -329,6 +329,8 @@ describe('team members', () => {
     await agent.post('/api/auth/sign-in/email').send({ email: 'new.checker@spoolwright.test', password: 'checker-password-1' }).expect(200);
     expect((await agent.get('/api/me')).body.role).toBe('checker');
     await admin.patch(`/api/team/members/${add.body.userId}`).send({ role: 'lead' }).expect(200);
+    // The new role applies to the member's next request.
+    expect((await agent.get('/api/me')).body.role).toBe('lead');
     const me = (await admin.get('/api/me')).body;
     const last = await admin.patch(`/api/team/members/${me.user.id}`).send({ role: 'designer' });
     expect(last.status).toBe(409);
