@@ -5,6 +5,7 @@ import { convert } from '@shared/units/units';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { cn } from '@/lib/cn';
+import { FALLBACK_BEND_RADIUS } from '../geometry/pipe-size';
 import { useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
 import { useDisplayUnits } from './display-units';
 import { DIRECTION_KEYS, KEY_HELP, useSketchKeys } from './sketch-keys';
@@ -68,6 +69,8 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
   const canUndo = useSpoolStore((s) => s.canUndo);
   const canRedo = useSpoolStore((s) => s.canRedo);
   const elementCount = useSpoolStore((s) => s.doc.elements.length);
+  const defaultRadius = useSpoolStore((s) => s.doc.defaultBendRadius);
+  const radiusChoice = defaultRadius && typeof defaultRadius === 'object' ? String(defaultRadius.multipleOfD) : defaultRadius === undefined ? '' : 'length';
 
   const [lengthText, setLengthText] = useState(() => (units.display === 'metric' ? '1000' : '36'));
   const [insertAfter, setInsertAfter] = useState(false);
@@ -189,6 +192,33 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
                 Start run
               </Button>
             </div>
+            <label className="flex flex-col text-[11px] text-steel-500" title="Bend radius given to bends drawn from now on (existing bends keep theirs)">
+              New bends
+              <select
+                aria-label="Radius of new bends"
+                className={cn(inputClass, 'w-24')}
+                value={radiusChoice}
+                onChange={(e) => {
+                  const v = Number(e.target.value);
+                  if (Number.isFinite(v) && v > 0) report(api.getState().setDefaultBendRadius({ multipleOfD: v }));
+                }}
+              >
+                {radiusChoice === '' ? (
+                  <option value="">
+                    {typeof FALLBACK_BEND_RADIUS === 'object' ? `${FALLBACK_BEND_RADIUS.multipleOfD} × D` : 'standard'} (default)
+                  </option>
+                ) : null}
+                {radiusChoice === 'length' ? <option value="length">as set</option> : null}
+                {['1', '1.5', '2', '3', '5'].map((m) => (
+                  <option key={m} value={m}>
+                    {m} × D
+                  </option>
+                ))}
+                {radiusChoice !== '' && radiusChoice !== 'length' && !['1', '1.5', '2', '3', '5'].includes(radiusChoice) ? (
+                  <option value={radiusChoice}>{radiusChoice} × D</option>
+                ) : null}
+              </select>
+            </label>
             <div className="h-8 w-px bg-steel-200" />
             <label className="flex flex-col text-[11px] text-steel-500">
               Leg length ({units.label('length')})
