@@ -16,6 +16,7 @@ import { catalogRouter } from './routes/catalog';
 import { adminRouter } from './routes/admin';
 import { publicShareRouter, spoolSharesRouter } from './routes/shares';
 import { teamRouter } from './routes/team';
+import { commentsRouter } from './routes/comments';
 
 export interface AppDeps {
   db: Db;
@@ -83,6 +84,7 @@ export function createApp(deps: AppDeps) {
   const memberships = new MembershipCache(deps.db);
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
+  app.use('/api/spools/:id/comments', commentsRouter({ db: deps.db }));
   app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl }));
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
   app.use('/api/check', checkRouter());

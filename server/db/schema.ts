@@ -142,3 +142,23 @@ export const outbox = pgTable('outbox', {
   raw: text('raw').notNull(),
   createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
 });
+
+/** Review comments, optionally pinned to one element of one revision. */
+export const spoolComments = pgTable(
+  'spool_comments',
+  {
+    id: serial('id').primaryKey(),
+    spoolId: text('spool_id')
+      .notNull()
+      .references(() => spools.id, { onDelete: 'cascade' }),
+    revision: integer('revision').notNull(),
+    /** Element id within the document; null for a comment on the whole spool. */
+    elementId: text('element_id'),
+    body: text('body').notNull(),
+    userId: text('user_id').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
+    resolvedAt: timestamp('resolved_at', { withTimezone: true }),
+    resolvedBy: text('resolved_by').references(() => user.id, { onDelete: 'set null' }),
+  },
+  (t) => [index('spool_comments_spool_idx').on(t.spoolId, t.id)],
+);

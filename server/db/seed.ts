@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { count, sql } from 'drizzle-orm';
 import { hashPassword } from 'better-auth/crypto';
 import type { Db } from './client';
-import { account, spools, teamMembers, teams, user } from './schema';
+import { account, spoolComments, spools, teamMembers, teams, user } from './schema';
 import { DEMO_SPOOLS } from './demo-spools';
 import { insertSpool } from '../spools/repo';
 import { runCheck, summarizeCheck } from '../spools/check';
@@ -47,7 +47,7 @@ export async function isDatabaseEmpty(db: Db): Promise<boolean> {
 /** Remove all data (used by `npm run seed` before seeding again). */
 export async function clearDatabase(db: Db) {
   await db.execute(
-    sql`truncate table "spool_events", "spool_revisions", "share_links", "spools", "team_members", "teams", "outbox", "session", "account", "verification", "user" restart identity cascade`,
+    sql`truncate table "spool_comments", "spool_events", "spool_revisions", "share_links", "spools", "team_members", "teams", "outbox", "session", "account", "verification", "user" restart identity cascade`,
   );
 }
 
@@ -80,6 +80,13 @@ export async function seedDemo(db: Db) {
   }
   if (second) {
     await transitionSpool(db, { teamId: DEMO_TEAM.id, id: second, userId: designer, to: 'submitted', note: 'Please check the bend margins', isAllowed: allow });
+    await db.insert(spoolComments).values({
+      spoolId: second,
+      revision: 0,
+      elementId: 'SV-B1',
+      body: 'Margin on this bend is thin at 5D; can we go to 10S → 40S here or open the radius?',
+      userId: ids.get('checker')!,
+    });
   }
   const [n] = await db.select({ n: count() }).from(spools);
   return { team: DEMO_TEAM, users: DEMO_USERS.length, spools: n?.n ?? 0 };

@@ -320,6 +320,30 @@ describe('check, catalog and share links', () => {
   });
 });
 
+describe('review comments', () => {
+  it('pins comments to elements of a revision and resolves them', async () => {
+    const s = await createSpool('Commented');
+    const fabricator = await t.signIn('fabricator');
+    const c = await fabricator.post(`/api/spools/${s.id}/comments`).send({ body: 'Can B1 be shop-bent?', elementId: 'B1' });
+    expect(c.status).toBe(201);
+    expect(c.body).toMatchObject({ revision: 0, elementId: 'B1', body: 'Can B1 be shop-bent?', user: { name: expect.any(String) }, resolvedAt: null });
+    const bad = await fabricator.post(`/api/spools/${s.id}/comments`).send({ body: 'x', elementId: 'NOPE' });
+    expect(bad.status).toBe(422);
+    expect(bad.body.error.details[0].path).toBe('elementId');
+    const done = await (await t.signIn('designer')).patch(`/api/spools/${s.id}/comments/${c.body.id}`).send({ resolved: true });
+    expect(done.body).toMatchObject({ resolvedAt: expect.any(String), resolvedBy: { name: expect.any(String) } });
+    const list = await (await t.signIn('checker')).get(`/api/spools/${s.id}/comments`);
+    expect(list.body.items).toHaveLength(1);
+  });
+
+  it('seeds a checker comment on the submitted demo spool', async () => {
+    const lead = await t.signIn('lead');
+    const list = await lead.get('/api/spools').query({ status: 'submitted', search: 'SV-204' });
+    const comments = await lead.get(`/api/spools/${list.body.items[0].id}/comments`);
+    expect(comments.body.items[0]).toMatchObject({ elementId: 'SV-B1' });
+  });
+});
+
 describe('team members', () => {
   it('lets admins add a member who can then sign in, and keeps one admin', async () => {
     const admin = await t.signIn('admin');

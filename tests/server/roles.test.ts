@@ -83,6 +83,20 @@ const ROUTES: RouteCase[] = [
   { name: 'GET /api/spools/:id/revisions', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/revisions` }) },
   { name: 'GET /api/spools/:id/revisions/:rev', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/revisions/0` }) },
   { name: 'GET /api/spools/:id/events', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/events` }) },
+  { name: 'GET /api/spools/:id/comments', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/comments` }) },
+  {
+    name: 'POST /api/spools/:id/comments (comment on elements)',
+    allowed: EVERY_MEMBER,
+    setup: async () => ({ method: 'post', path: `/api/spools/${fixed.spoolId}/comments`, body: { body: 'Matrix comment', elementId: 'B1' } }),
+  },
+  {
+    name: 'PATCH /api/spools/:id/comments/:commentId (resolve)',
+    allowed: EVERY_MEMBER,
+    setup: async () => {
+      const c = await admin.post(`/api/spools/${fixed.spoolId}/comments`).send({ body: 'To resolve' });
+      return { method: 'patch', path: `/api/spools/${fixed.spoolId}/comments/${c.body.id}`, body: { resolved: true } };
+    },
+  },
   { name: 'POST /api/check', allowed: EVERY_MEMBER, setup: async () => ({ method: 'post', path: '/api/check', body: sampleDocument('Checked only') }) },
   { name: 'GET /api/materials', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/materials' }) },
   { name: 'GET /api/dimensions', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/dimensions' }) },
