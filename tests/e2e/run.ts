@@ -115,6 +115,8 @@ interface Outcome {
 }
 const outcomes: Outcome[] = [];
 let currentStep = '';
+/** Page of the running journey, for a screenshot when a step fails. */
+let currentPage: Page | undefined;
 
 /** Run one step of a journey; a failed step stops the journey (the rest are reported as not run). */
 async function step(name: string, fn: () => Promise<void>): Promise<void> {
@@ -133,6 +135,14 @@ async function step(name: string, fn: () => Promise<void>): Promise<void> {
   } catch (e) {
     const error = e instanceof Error ? e.message.split('\n').slice(0, 6).join('\n') : String(e);
     outcomes.push({ name, ok: false, ms: Date.now() - t0, error });
+    if (currentPage) {
+      const shot = path.join(RESULTS, `failed-${outcomes.length}.png`);
+      fs.mkdirSync(RESULTS, { recursive: true });
+      await currentPage.screenshot({ path: shot, timeout: 5000 }).then(
+        () => console.log(`      screenshot: ${path.relative(ROOT, shot)}`),
+        () => undefined,
+      );
+    }
     console.log(`  ✕ ${name}\n      ${error.replace(/\n/g, '\n      ')}`);
     throw new JourneyStopped();
   } finally {
@@ -207,9 +217,11 @@ const MORE_STEPS = [
   'submits the spool for check',
   'export downloads the document; import brings one back and reports bad files by field',
 ];
+const REVIEW_STEPS = ['checker marks the spool checked (and cannot edit it)', 'lead cannot release it while bends fail'];
 
 async function designerJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string; spoolName?: string }) {
   const page = await ctx.newPage();
+  currentPage = page;
   page.setDefaultTimeout(STEP_TIMEOUT);
   const consoleErrors: string[] = [];
   page.on('pageerror', (e) => consoleErrors.push(`${currentStep}: ${e.message}\n${e.stack ?? ''}`));
@@ -314,6 +326,7 @@ async function designerJourney(ctx: BrowserContext, base: string, shared: { spoo
 
 async function fabricatorJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string }) {
   const page = await ctx.newPage();
+  currentPage = page;
   page.setDefaultTimeout(STEP_TIMEOUT);
   await journey(
     'fabricator journey',
@@ -348,6 +361,7 @@ async function waitRows(page: Page, n: number): Promise<void> {
 
 async function moreDesignerJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string }) {
   const page = await ctx.newPage();
+  currentPage = page;
   page.setDefaultTimeout(STEP_TIMEOUT);
   await journey(
     'designer: history, units, guards, conflicts, lifecycle, files',
@@ -424,6 +438,7 @@ async function moreDesignerJourney(ctx: BrowserContext, base: string, shared: { 
       await step(MORE_STEPS[4]!, async () => {
         await page.getByRole('button', { name: 'Submit for check' }).click();
         await page.locator('[data-lifecycle="submitted"]').waitFor();
+        expect((await page.getByRole('button', { name: 'Mark checked' }).count()) === 0, 'a designer is offered "Mark checked"');
       });
       await step(MORE_STEPS[5]!, async () => {
         const [download] = await Promise.all([page.waitForEvent('download'), page.getByRole('button', { name: 'Export' }).click()]);
@@ -444,6 +459,43 @@ async function moreDesignerJourney(ctx: BrowserContext, base: string, shared: { 
       });
     },
     MORE_STEPS,
+  );
+  await page.close();
+}
+
+async function reviewJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string }) {
+  const page = await ctx.newPage();
+  currentPage = page;
+  page.setDefaultTimeout(STEP_TIMEOUT);
+  await journey(
+    'checker and lead',
+    async () => {
+      await step(REVIEW_STEPS[0]!, async () => {
+        expect(shared.spoolId, 'no spool from the designer journey');
+        await signIn(page, base, 'checker@spoolwright.test');
+        await page.goto(`${base}/spools/${shared.spoolId}`);
+        await page.locator('[data-lifecycle="submitted"]').waitFor();
+        await page.getByTestId('view-only').waitFor();
+        expect((await page.getByRole('button', { name: 'Return to designer' }).count()) === 1, 'no "Return to designer" for the checker');
+        expect((await page.getByRole('button', { name: 'Release for fabrication' }).count()) === 0, 'a checker is offered "Release"');
+        await page.getByRole('button', { name: 'Mark checked' }).click();
+        await page.locator('[data-lifecycle="checked"]').waitFor();
+      });
+      await step(REVIEW_STEPS[1]!, async () => {
+        await page.getByRole('button', { name: 'Sign out' }).click();
+        await page.waitForURL(/\/sign-in/);
+        await signIn(page, base, 'lead@spoolwright.test');
+        await page.goto(`${base}/spools/${shared.spoolId}`);
+        const release = page.getByRole('button', { name: 'Release for fabrication' });
+        await release.waitFor();
+        expect(await release.isDisabled(), 'release is offered although B2 and B3 fail');
+        expect((await release.getAttribute('data-blocked')) === 'check', 'release is disabled for another reason');
+        await page.getByRole('link', { name: 'Spool register' }).click();
+        await page.getByLabel('Filter by state').selectOption('checked');
+        await page.locator(`[data-spool-id="${shared.spoolId}"] [data-lifecycle="checked"]`).waitFor();
+      });
+    },
+    REVIEW_STEPS,
   );
   await page.close();
 }
@@ -474,6 +526,9 @@ async function main(): Promise<number> {
     const again = await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
     await moreDesignerJourney(again, server.url, shared);
     await again.close();
+    const review = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    await reviewJourney(review, server.url, shared);
+    await review.close();
   } catch (e) {
     outcomes.push({ name: 'setup', ok: false, ms: 0, error: e instanceof Error ? e.message : String(e) });
     console.log(`setup failed: ${e instanceof Error ? e.message : String(e)}`);
@@ -483,7 +538,7 @@ async function main(): Promise<number> {
     if (server) await stopServer(server.child);
     fs.rmSync(dataDir, { recursive: true, force: true });
   }
-  const notRun = DESIGNER_STEPS.length + FABRICATOR_STEPS.length + MORE_STEPS.length - outcomes.filter((o) => o.name !== 'setup').length;
+  const notRun = DESIGNER_STEPS.length + FABRICATOR_STEPS.length + MORE_STEPS.length + REVIEW_STEPS.length - outcomes.filter((o) => o.name !== 'setup').length;
   const passed = outcomes.filter((o) => o.ok).length;
   const failed = outcomes.filter((o) => !o.ok).length + Math.max(0, notRun);
   console.log(`${passed} passed, ${failed} failed`);

@@ -198,17 +198,22 @@ function SpoolBar({
             />
           </>
         ) : null}
-        {moves.map((t) => (
-          <Button
-            key={t.to}
-            size="sm"
-            disabled={isDirty || transition.isPending}
-            title={isDirty ? 'Save first' : undefined}
-            onClick={() => runTransition(t.to)}
-          >
-            {TRANSITION_LABELS[`${t.from}>${t.to}`] ?? t.to}
-          </Button>
-        ))}
+        {moves.map((t) => {
+          // The server refuses to release a spool with failing or uncheckable elements; say so up front.
+          const blockedByCheck = t.to === 'released' && check.summary.fail + check.summary.invalid > 0;
+          return (
+            <Button
+              key={t.to}
+              size="sm"
+              disabled={isDirty || transition.isPending || blockedByCheck}
+              title={isDirty ? 'Save first' : blockedByCheck ? 'Every element must pass (or be marginal/reviewed) before release' : undefined}
+              data-blocked={blockedByCheck ? 'check' : undefined}
+              onClick={() => runTransition(t.to)}
+            >
+              {TRANSITION_LABELS[`${t.from}>${t.to}`] ?? t.to}
+            </Button>
+          );
+        })}
         {canEdit ? (
           <Button size="sm" variant="primary" onClick={onSave} disabled={!isDirty || saving} title="Save (Ctrl+S)">
             {saving ? 'Saving…' : isDirty ? 'Save' : 'Saved'}
