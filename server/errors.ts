@@ -30,7 +30,7 @@ export class HttpError extends Error {
 
 export const notFound = (what = 'Not found') => new HttpError(404, 'not_found', what);
 export const forbidden = (message = 'Your role does not allow this') => new HttpError(403, 'forbidden', message);
-export const validationError = (issues: FieldIssue[], message = 'The request has invalid fields') =>
+export const validationError = (issues: readonly FieldIssue[], message = 'The request has invalid fields') =>
   new HttpError(422, 'validation', message, issues);
 
 /** JSON 404 for unknown /api routes (never the SPA page). */

@@ -4,7 +4,9 @@ import { and, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { teamMembers, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
-import { HttpError, forbidden, notFound } from '../errors';
+import { HttpError, forbidden, notFound, validationError } from '../errors';
+import { parseCsv, receiveCsv } from '../csv';
+import { readLineList } from '../spools/line-list';
 import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
 import { parseBody, parseDocument } from '../validation';
@@ -104,6 +106,26 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const teamId = getTeamId(res);
     const id = await insertSpool(db, { teamId, userId: ctx.user.id, document, checkSummary: checkDocument(document) });
     res.status(201).location(`/api/spools/${id}`).json(await getSpool(db, teamId, id));
+  });
+
+  // Line-list CSV: one spool per row with its design conditions; all rows or none.
+  r.post('/import', requirePermission('spool:edit'), receiveCsv, async (_req, res) => {
+    const csv = parseCsv(String(res.locals.csv ?? ''));
+    if (csv.errors.length > 0) {
+      throw validationError(csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), 'The CSV could not be read');
+    }
+    const { docs, issues } = readLineList(csv.headers, csv.rows);
+    if (issues.length > 0) throw validationError(issues, `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`);
+    const teamId = getTeamId(res);
+    const userId = getContext(res).user.id;
+    const ids = await db.transaction(async (tx) => {
+      const out: string[] = [];
+      for (const document of docs) out.push(await insertSpool(tx as unknown as Db, { teamId, userId, document, checkSummary: checkDocument(document) }));
+      return out;
+    });
+    const items = [];
+    for (const id of ids) items.push(await getSpool(db, teamId, id));
+    res.status(201).json({ created: ids.length, items });
   });
 
   r.get('/:id', requirePermission('spool:view'), async (req, res) => {

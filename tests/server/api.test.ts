@@ -320,6 +320,37 @@ describe('check, catalog and share links', () => {
   });
 });
 
+describe('line-list import', () => {
+  const good = [
+    'Name,Line,Units,Pressure,Temperature,Material,Corrosion Allowance',
+    'LL-01 Fuel gas knock-out,2"-FG-5001-A1,imperial,275,250,A106-B,0.0625',
+    'LL-02 Fuel gas to heater,2"-FG-5002-A1,,275,250,A106-B,0.0625',
+    '"LL-03 Condensate, return",1"-CR-5003-S1,metric,1.2,90,A312-TP316L,0',
+  ].join('\n');
+
+  it('creates one spool per row with its design conditions', async () => {
+    const r = await (await t.signIn('designer')).post('/api/spools/import').set('content-type', 'text/csv').send(good);
+    expect(r.status).toBe(201);
+    expect(r.body.created).toBe(3);
+    expect(r.body.items[2]).toMatchObject({ name: 'LL-03 Condensate, return', line: '1"-CR-5003-S1', status: 'draft' });
+    expect(r.body.items[2].document).toMatchObject({ units: 'metric', conditions: { pressure: 1.2, temperature: 90, material: 'A312-TP316L' }, elements: [] });
+  });
+
+  it('reports bad rows by line number and writes nothing', async () => {
+    const lead = await t.signIn('lead');
+    const before = (await lead.get('/api/spools')).body.total;
+    const csv = ['name,line,pressure,temperature,material', 'OK row,L1,100,100,A106-B', 'Bad pressure,L2,lots,100,A106-B', ',L3,100,,A106-B'].join('\n');
+    const r = await lead.post('/api/spools/import').attach('file', Buffer.from(csv), 'line-list.csv');
+    expect(r.status).toBe(422);
+    const got = r.body.error.details.map((d: { line: number; column: string }) => `${d.line}:${d.column}`);
+    expect(got).toEqual(expect.arrayContaining(['3:pressure', '4:name', '4:temperature']));
+    expect(got.some((x: string) => x.startsWith('2:'))).toBe(false);
+    expect((await lead.get('/api/spools')).body.total).toBe(before);
+    const unknown = await lead.post('/api/spools/import').set('content-type', 'text/csv').send('name,pressure,temperature,colour\nA,1,2,red');
+    expect(unknown.body.error.details[0]).toMatchObject({ line: 1, column: 'colour' });
+  });
+});
+
 describe('review comments', () => {
   it('pins comments to elements of a revision and resolves them', async () => {
     const s = await createSpool('Commented');

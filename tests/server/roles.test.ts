@@ -20,6 +20,8 @@ interface Call {
   method: 'get' | 'post' | 'put' | 'patch' | 'delete';
   path: string;
   body?: object;
+  /** Sent as text/csv instead of JSON. */
+  csv?: string;
 }
 interface RouteCase {
   name: string;
@@ -50,6 +52,11 @@ const ROUTES: RouteCase[] = [
   { name: 'GET /api/me', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/me' }) },
   { name: 'GET /api/spools', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/spools' }) },
   { name: 'POST /api/spools (create)', allowed: [D, L, A], setup: async () => ({ method: 'post', path: '/api/spools', body: { document: sampleDocument('Created by matrix') } }) },
+  {
+    name: 'POST /api/spools/import (line-list CSV)',
+    allowed: [D, L, A],
+    setup: async () => ({ method: 'post', path: '/api/spools/import', csv: 'name,pressure,temperature,material\nMatrix import,150,100,A106-B' }),
+  },
   { name: 'GET /api/spools/:id (view)', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}` }) },
   {
     name: 'PUT /api/spools/:id (edit)',
@@ -159,6 +166,7 @@ describe.each(ROUTES)('$name', (route) => {
     const agent = who === 'anonymous' ? t.anon() : await t.signIn(who);
     let req = agent[call.method](call.path);
     if (call.body) req = req.send(call.body);
+    if (call.csv) req = req.set('content-type', 'text/csv').send(call.csv);
     const r = await req;
     const allowed = route.isPublic || (who !== 'anonymous' && route.allowed.includes(who));
     if (allowed) {

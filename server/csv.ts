@@ -1,0 +1,73 @@
+import type { RequestHandler } from 'express';
+import multer from 'multer';
+import Papa from 'papaparse';
+import { HttpError } from './errors';
+
+/** Largest CSV upload accepted. */
+export const CSV_LIMIT_BYTES = 1024 * 1024;
+
+const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: CSV_LIMIT_BYTES, files: 1, fields: 10 } }).single('file');
+
+/**
+ * Accept a CSV as a multipart upload (field `file`) or as a raw `text/csv` body; the text
+ * lands in res.locals.csv. Other multipart fields stay in req.body.
+ */
+export const receiveCsv: RequestHandler = (req, res, next) => {
+  const type = req.headers['content-type'] ?? '';
+  if (type.startsWith('multipart/form-data')) {
+    upload(req, res, (err: unknown) => {
+      if (err) {
+        const code = (err as { code?: string }).code;
+        next(code === 'LIMIT_FILE_SIZE' ? new HttpError(413, 'payload_too_large', 'The CSV file is larger than 1 MB') : new HttpError(400, 'bad_request', 'The upload could not be read'));
+        return;
+      }
+      if (!req.file) {
+        next(new HttpError(422, 'validation', 'Attach the CSV as the "file" field', [{ path: 'file', message: 'is required' }]));
+        return;
+      }
+      res.locals.csv = req.file.buffer.toString('utf8');
+      next();
+    });
+    return;
+  }
+  if (type.startsWith('text/csv') || type.startsWith('text/plain')) {
+    const chunks: Buffer[] = [];
+    let size = 0;
+    req.on('data', (c: Buffer) => {
+      size += c.length;
+      if (size <= CSV_LIMIT_BYTES) chunks.push(c);
+    });
+    req.on('end', () => {
+      if (size > CSV_LIMIT_BYTES) {
+        next(new HttpError(413, 'payload_too_large', 'The CSV file is larger than 1 MB'));
+        return;
+      }
+      res.locals.csv = Buffer.concat(chunks).toString('utf8');
+      next();
+    });
+    req.on('error', next);
+    return;
+  }
+  next(new HttpError(415, 'bad_request', 'Send the CSV as multipart/form-data (field "file") or as text/csv'));
+};
+
+export interface CsvRow {
+  /** Line number in the file (the header is line 1). */
+  line: number;
+  values: Record<string, string>;
+}
+
+/** Parse CSV text with a header row; header names are trimmed and lower-cased. */
+export function parseCsv(text: string): { headers: string[]; rows: CsvRow[]; errors: { line: number; message: string }[] } {
+  const out = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
+    header: true,
+    skipEmptyLines: 'greedy',
+    transformHeader: (h) => h.trim().toLowerCase(),
+    transform: (v) => v.trim(),
+  });
+  const headers = out.meta.fields ?? [];
+  // With header: true, data row i sits on file line i + 2 (ignoring quoted newlines).
+  const rows = out.data.map((values, i) => ({ line: i + 2, values }));
+  const errors = out.errors.map((e) => ({ line: (e.row ?? 0) + 2, message: e.message }));
+  return { headers, rows, errors };
+}
