@@ -19,15 +19,17 @@ const columns: ColumnDef<SpoolSummary>[] = [
   {
     id: 'name',
     header: 'Spool',
+    // Sorting happens on the server; the accessors only make the columns sortable.
+    accessorFn: (r) => r.name ?? '',
     cell: ({ row }) => (
       <Link to={`/spools/${row.original.id}`} className="font-medium text-steel-900 underline-offset-2 hover:text-copper-600 hover:underline">
         {row.original.name || '(unnamed)'}
       </Link>
     ),
   },
-  { id: 'line', header: 'Line', cell: ({ row }) => row.original.line || <span className="text-steel-400">—</span> },
-  { id: 'status', header: 'State', cell: ({ row }) => <LifecycleBadge status={row.original.status} /> },
-  { id: 'revision', header: 'Rev.', cell: ({ row }) => <span className="tabular-nums">{row.original.revision}</span> },
+  { id: 'line', header: 'Line', accessorFn: (r) => r.line ?? '', cell: ({ row }) => row.original.line || <span className="text-steel-400">—</span> },
+  { id: 'status', header: 'State', accessorFn: (r) => r.status, cell: ({ row }) => <LifecycleBadge status={row.original.status} /> },
+  { id: 'revision', header: 'Rev.', accessorFn: (r) => r.revision, cell: ({ row }) => <span className="tabular-nums">{row.original.revision}</span> },
   {
     id: 'worst',
     header: 'Weakest element',
@@ -42,7 +44,7 @@ const columns: ColumnDef<SpoolSummary>[] = [
         <span className="text-xs text-steel-400">no elements</span>
       ),
   },
-  { id: 'updatedAt', header: 'Last saved', cell: ({ row }) => <span className="tabular-nums">{formatDateTime(row.original.updatedAt)}</span> },
+  { id: 'updatedAt', header: 'Last saved', accessorFn: (r) => r.updatedAt, cell: ({ row }) => <span className="tabular-nums">{formatDateTime(row.original.updatedAt)}</span> },
 ];
 
 function parseSort(sort: string | null): SortingState {
