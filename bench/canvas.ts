@@ -133,15 +133,21 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
     const straights = els.filter((e) => e.kind === 'straight');
     const target = straights[straights.length - 1]!;
     const times: number[] = [];
+    // A 5 × 5 patch around the mid-point: thin pipes may be only a few pixels wide.
+    const patch = (x: number, y: number) => {
+      const out: string[] = [];
+      for (let dx = -2; dx <= 2; dx++) for (let dy = -2; dy <= 2; dy++) out.push((hooks.readPixel(x + dx, y + dy) ?? []).join(','));
+      return out.join(';');
+    };
     for (let i = 0; i < count; i++) {
       const p = hooks.project(target.id)!;
-      const before = hooks.readPixel(p.x, p.y)!.join(',');
+      const before = patch(p.x, p.y);
       const schedule = i % 2 === 0 ? '5' : '160';
       const t = performance.now();
       hooks.store.getState().updateElement(target.id, { schedule }, { history: 'never' });
       for (;;) {
         await frame();
-        const now = hooks.readPixel(p.x, p.y)!.join(',');
+        const now = patch(p.x, p.y);
         if (now !== before) break;
         if (performance.now() - t > 5000) {
           times.push(Number.NaN);

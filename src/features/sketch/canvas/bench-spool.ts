@@ -1,12 +1,13 @@
 import type { Direction, SpoolDocument } from '@shared/model/spool';
 import { createSpoolStore } from '../store/spool-store';
 
-/** Schedules cycled per leg so the bench spool shows several statuses (NPS 2 at 1,500 psi). */
-const SCHEDULES = ['40', '80', '10', '40', '5', '160', '40', 'XS'];
+/** Schedules cycled per leg so the bench spool shows several statuses (NPS 6 at 1,500 psi). */
+const SCHEDULES = ['80', '40', '160', 'XS', '10', '120', 'STD', '80'];
 
 /**
- * A generated spool of about `count` elements for benchmarks: a serpentine of 2" legs that
- * fills rows east/west, steps north between rows and climbs a level after every few rows.
+ * A generated spool of `count` elements for benchmarks: a serpentine of 6" legs (3D bends)
+ * that fills rows east/west, steps north between rows and climbs a level after a number of
+ * rows chosen so the spool stays roughly as wide as it is tall.
  */
 export function generateBenchSpool(count: number): SpoolDocument {
   const store = createSpoolStore({
@@ -17,27 +18,25 @@ export function generateBenchSpool(count: number): SpoolDocument {
     elements: [],
   });
   const s = store.getState();
-  s.startRun({ nps: '2', schedule: '40' }, { history: 'never' });
-  const rowsPerLevel = 8;
+  s.startRun({ nps: '6', schedule: '80' }, { history: 'never' });
+  const rows = Math.ceil(count / 4);
+  const rowsPerLevel = Math.max(3, Math.round(Math.sqrt(rows * 1.5)));
   let row = 0;
-  let level = 0;
   let leg = 0;
   let along: Direction = 'east';
   let step: Direction = 'north';
   while (store.getState().doc.elements.length < count) {
-    s.setDrawingPipe({ nps: '2', schedule: SCHEDULES[leg % SCHEDULES.length]! });
+    s.setDrawingPipe({ nps: '6', schedule: SCHEDULES[leg % SCHEDULES.length]! });
     leg++;
-    s.addLeg(along, 120, { history: 'never' });
+    s.addLeg(along, 360, { history: 'never' });
     if (store.getState().doc.elements.length >= count) break;
     row++;
     if (row % rowsPerLevel === 0) {
-      level++;
-      s.addLeg('up', 40, { history: 'never' });
+      s.addLeg('up', 90, { history: 'never' });
       step = step === 'north' ? 'south' : 'north';
-    } else s.addLeg(step, 30, { history: 'never' });
+    } else s.addLeg(step, 90, { history: 'never' });
     along = along === 'east' ? 'west' : 'east';
   }
-  void level;
   const doc = store.getState().doc;
   return { ...doc, elements: doc.elements.slice(0, count) };
 }

@@ -1,18 +1,17 @@
 import { useLayoutEffect, useMemo, useRef } from 'react';
-import { CircleGeometry, CylinderGeometry, Object3D, TorusGeometry, type BufferGeometry, type InstancedMesh } from 'three';
+import { CircleGeometry, CylinderGeometry, DoubleSide, MeshLambertMaterial, Object3D, RingGeometry, TorusGeometry, type BufferGeometry, type InstancedMesh, type Material } from 'three';
 import type { PathSegment } from '../geometry/spool-path';
 import { add, scale, type Vec3 } from '../geometry/vec';
-import { plainMaterial } from './materials';
 import { quaternionAlong } from './scene-math';
 
 /*
  * Marks at element ends, our own simple symbols:
  * - weld: a dark bead ring where two straights meet;
- * - tangent: a thin light ring where a straight meets a bend (the tangent point);
+ * - tangent: a thin light flat ring where a straight meets a bend (the tangent point);
  * - open end: a flat dark disc on a plain free end of the run;
  * - bevel: a short light cone on a bevelled free end;
- * - threaded: three thin rings near the end of a threaded straight;
- * - grooved: one dark ring a little in from the end of a grooved straight.
+ * - threaded: three thin dark flat rings near the end of a threaded straight;
+ * - grooved: one wider dark flat ring a little in from the end of a grooved straight.
  * Each kind is one InstancedMesh, so the marks add a handful of draw calls at any size.
  */
 export type MarkerKind = 'weld' | 'tangent' | 'open' | 'bevel' | 'thread' | 'groove';
@@ -68,14 +67,28 @@ interface MarkerLook {
   readonly offset: number;
 }
 
+/** A flat ring around the pipe (cheap: 20 triangles), facing along +y. */
+const flatRing = (inner: number, outer: number) => new RingGeometry(inner, outer, 10, 1).rotateX(-Math.PI / 2);
+
 const LOOKS: Record<MarkerKind, () => MarkerLook> = {
-  weld: () => ({ geometry: new TorusGeometry(1, 0.14, 4, 12).rotateX(Math.PI / 2), color: '#2b3440', grow: 0.52, offset: 0 }),
-  tangent: () => ({ geometry: new TorusGeometry(1, 0.06, 3, 12).rotateX(Math.PI / 2), color: '#e6eaef', grow: 0.51, offset: 0 }),
-  open: () => ({ geometry: new CircleGeometry(1, 12).rotateX(-Math.PI / 2), color: '#364151', grow: 0.5, offset: 0.001 }),
-  bevel: () => ({ geometry: new CylinderGeometry(0.7, 1, 0.5, 12, 1, true), color: '#cbd3dc', grow: 0.5, offset: 0.12 }),
-  thread: () => ({ geometry: new TorusGeometry(1, 0.06, 3, 12).rotateX(Math.PI / 2), color: '#2b3440', grow: 0.51, offset: 0 }),
-  groove: () => ({ geometry: new TorusGeometry(1, 0.1, 3, 12).rotateX(Math.PI / 2), color: '#1d232c', grow: 0.5, offset: 0 }),
+  weld: () => ({ geometry: new TorusGeometry(1, 0.14, 3, 10).rotateX(Math.PI / 2), color: '#2b3440', grow: 0.52, offset: 0 }),
+  tangent: () => ({ geometry: flatRing(1, 1.18), color: '#e6eaef', grow: 0.5, offset: 0 }),
+  open: () => ({ geometry: new CircleGeometry(1, 10).rotateX(-Math.PI / 2), color: '#364151', grow: 0.5, offset: 0.001 }),
+  bevel: () => ({ geometry: new CylinderGeometry(0.7, 1, 0.5, 10, 1, true), color: '#cbd3dc', grow: 0.5, offset: 0.12 }),
+  thread: () => ({ geometry: flatRing(1, 1.15), color: '#2b3440', grow: 0.5, offset: 0 }),
+  groove: () => ({ geometry: flatRing(0.9, 1.2), color: '#1d232c', grow: 0.5, offset: 0 }),
 };
+
+const markerMaterials = new Map<string, Material>();
+/** Marker materials are double-sided: flat rings and discs are seen from both sides. */
+function markerMaterial(color: string): Material {
+  let m = markerMaterials.get(color);
+  if (!m) {
+    m = new MeshLambertMaterial({ color, side: DoubleSide });
+    markerMaterials.set(color, m);
+  }
+  return m;
+}
 
 const scratch = new Object3D();
 
@@ -98,7 +111,7 @@ function MarkerInstances({ kind, markers }: { readonly kind: MarkerKind; readonl
     mesh.instanceMatrix.needsUpdate = true;
     mesh.computeBoundingSphere();
   }, [markers, look]);
-  return <instancedMesh key={markers.length} ref={ref} args={[look.geometry, plainMaterial(look.color), markers.length]} raycast={() => null} />;
+  return <instancedMesh key={markers.length} ref={ref} args={[look.geometry, markerMaterial(look.color), markers.length]} raycast={() => null} />;
 }
 
 /** All end marks of the spool. */

@@ -9,7 +9,7 @@ import { CylinderGeometry, TorusGeometry, type BufferGeometry } from 'three';
 /** Radial segments of every pipe. */
 export const RADIAL_SEGMENTS = 8;
 /** Degrees of arc per torus segment (at least 2 segments per bend). */
-const DEGREES_PER_SEGMENT = 15;
+const DEGREES_PER_SEGMENT = 22.5;
 const AROUND_TILES = 3;
 
 /** An open tube of outside diameter `od` and `length` along +y, centred at the origin. */

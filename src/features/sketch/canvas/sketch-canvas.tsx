@@ -5,7 +5,8 @@ import type { CheckStatus, SpoolCheck } from '@shared/engine/types';
 import { buildSpoolPath } from '../geometry/spool-path';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
 import { LabelOverlay, LabelProjector, dimensionLabels } from './dimension-labels';
-import { ElementMesh, SelectionOutline } from './element-mesh';
+import { CHUNK_SIZE, ElementChunk, itemKey, type ChunkItem } from './element-chunks';
+import { HighlightMesh, SelectionOutline } from './element-mesh';
 import { EndMarkers } from './end-markers';
 import { GridAndAxes, axisLabels } from './grid-and-axes';
 import { meshSpecOf, sceneScale } from './scene-math';
@@ -52,7 +53,17 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
   const specs = useMemo(() => path.segments.map(meshSpecOf), [path]);
   const statuses = useMemo(() => new Map<string, CheckStatus>(check.elements.map((e) => [e.id, e.status])), [check]);
   const scale = sceneScale(doc.units);
-  const selectedSpec = selectedId !== null ? specs[path.byId.get(selectedId)?.index ?? -1] : undefined;
+  const chunks = useMemo(() => {
+    const out: { items: ChunkItem[]; key: string }[] = [];
+    for (let i = 0; i < path.segments.length; i += CHUNK_SIZE) {
+      const items = path.segments.slice(i, i + CHUNK_SIZE).map((seg, k) => ({ id: seg.id, spec: specs[i + k]!, status: statuses.get(seg.id) ?? 'invalid' }));
+      out.push({ items, key: items.map(itemKey).join(';') });
+    }
+    return out;
+  }, [path, specs, statuses]);
+  const specOf = (id: string | null) => (id !== null ? specs[path.byId.get(id)?.index ?? -1] : undefined);
+  const selectedSpec = specOf(selectedId);
+  const hoveredSpec = hoveredId !== selectedId ? specOf(hoveredId) : undefined;
   const registry = useRef(new Map<string, HTMLDivElement>());
   const axes = useMemo(() => axisLabels(path.bbox), [path.bbox]);
   const labels = useMemo(
@@ -84,17 +95,11 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
         <ambientLight intensity={1.6} />
         <directionalLight position={[0.4, 1, 0.7]} intensity={1.2} />
         <group scale={scale}>
-          {path.segments.map((seg, i) => (
-            <ElementMesh
-              key={seg.id}
-              id={seg.id}
-              spec={specs[i]!}
-              status={statuses.get(seg.id) ?? 'invalid'}
-              highlight={seg.id === selectedId ? 'selected' : seg.id === hoveredId ? 'hover' : 'none'}
-              onSelect={select}
-              onHover={onHover}
-            />
+          {chunks.map((c, k) => (
+            <ElementChunk key={k} items={c.items} chunkKey={c.key} onSelect={select} onHover={onHover} />
           ))}
+          {hoveredSpec ? <HighlightMesh spec={hoveredSpec} status={statuses.get(hoveredId!) ?? 'invalid'} highlight="hover" /> : null}
+          {selectedSpec ? <HighlightMesh spec={selectedSpec} status={statuses.get(selectedId!) ?? 'invalid'} highlight="selected" /> : null}
           {selectedSpec ? <SelectionOutline spec={selectedSpec} /> : null}
           <EndMarkers segments={path.segments} />
           <GridAndAxes bbox={path.bbox} />
