@@ -260,6 +260,16 @@ function ConditionsPanel({ readOnly }: { readOnly: boolean }) {
   );
 }
 
+function useDocumentTitle(title: string) {
+  useEffect(() => {
+    const before = document.title;
+    document.title = title;
+    return () => {
+      document.title = before;
+    };
+  }, [title]);
+}
+
 function LeaveGuard({ isDirty }: { isDirty: boolean }) {
   const blocker = useBlocker(({ currentLocation, nextLocation }) => isDirty && currentLocation.pathname !== nextLocation.pathname);
   useEffect(() => {
@@ -302,6 +312,7 @@ function SketchScreen({ spool }: { spool: Spool }) {
   const [conflict, setConflict] = useState<{ mine: SpoolDocument; current: Spool } | null>(null);
   const [importIssues, setImportIssues] = useState<FieldIssue[] | null>(null);
   const update = useUpdateSpool();
+  useDocumentTitle(`${doc.name || 'Spool'}${isDirty ? ' (unsaved)' : ''} · Spoolwright`);
 
   useEffect(() => {
     if (selectedId) setTab('element');
@@ -386,8 +397,8 @@ function SketchScreen({ spool }: { spool: Spool }) {
           <div className="flex min-w-0 flex-1 flex-col">
             <div className="relative min-h-0 flex-1">
               <CanvasSlot />
-              <CautionNote className="pointer-events-none absolute right-2 bottom-2 left-2 bg-white/90" />
             </div>
+            <CautionNote className="shrink-0 rounded-none border-t border-steel-200" />
             <div className="h-56 shrink-0 border-t border-steel-200 bg-white">
               <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={(id) => api.getState().select(id)} />
             </div>

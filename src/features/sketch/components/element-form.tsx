@@ -155,6 +155,7 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
             <TextField
               label="Length"
               unit={units.label('length')}
+              hint="cut length: the leg less the bend tangents"
               inputMode="decimal"
               autoComplete="off"
               disabled={readOnly}

@@ -64,6 +64,9 @@ export function SpoolListPage() {
   const sorting = parseSort(params.get('sort'));
   const sortParam = sorting[0] ? `${sorting[0].desc ? '-' : ''}${sorting[0].id}` : '-updatedAt';
 
+  useEffect(() => {
+    document.title = 'Spool register · Spoolwright';
+  }, []);
   const [searchDraft, setSearchDraft] = useState(search);
   useEffect(() => {
     const t = setTimeout(() => {
