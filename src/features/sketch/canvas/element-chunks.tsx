@@ -43,7 +43,7 @@ export function worldGeometry(spec: MeshSpec): BufferGeometry {
   return g;
 }
 
-interface Range {
+export interface Range {
   readonly id: string;
   /** First triangle index after this element's triangles. */
   readonly endTriangle: number;
@@ -143,6 +143,7 @@ function ElementChunkImpl({ items, onSelect, onHover }: ElementChunkProps) {
             key={status}
             geometry={geometry}
             material={statusMaterial(status)}
+            userData={{ elementRanges: ranges }}
             onClick={(e: ThreeEvent<MouseEvent>) => {
               const id = idOf(e);
               if (!id) return;

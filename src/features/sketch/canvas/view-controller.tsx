@@ -1,6 +1,8 @@
 import { useCallback, useEffect, useLayoutEffect, useRef } from 'react';
 import { useFrame, useThree } from '@react-three/fiber';
-import { Vector3, type OrthographicCamera } from 'three';
+import { Raycaster, Vector2, Vector3, type Object3D, type OrthographicCamera } from 'three';
+import { add, scale as scaleVec, sub, type Vec3 } from '../geometry/vec';
+import { elementAtTriangle, type Range } from './element-chunks';
 import type { SpoolPath } from '../geometry/spool-path';
 import type { SpoolStore } from '../store/spool-store';
 
@@ -17,7 +19,11 @@ interface OrbitLike {
  * Coordinates are CSS pixels in the page (what `page.mouse.click` takes).
  */
 export interface SpoolwrightCanvasHooks {
-  /** Screen point of an element's centreline mid-point, or null when it is not in the spool. */
+  /**
+   * Screen point on an element where a click reaches it: the first of several centreline
+   * points (mid-point first) not hidden by another element; the mid-point when all are hidden;
+   * null when the element is not in the spool.
+   */
   project(elementId: string): { x: number; y: number } | null;
   /** Frames rendered since the canvas mounted. */
   readonly frames: number;
@@ -56,6 +62,7 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
   const size = useThree((s) => s.size);
   const gl = useThree((s) => s.gl);
   const invalidate = useThree((s) => s.invalidate);
+  const scene = useThree((s) => s.scene);
   const frames = useRef(0);
   const pathRef = useRef(path);
   pathRef.current = path;
@@ -114,9 +121,30 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
       project(id) {
         const seg = pathRef.current.byId.get(id);
         if (!seg) return null;
-        const p = new Vector3(seg.midpoint.x, seg.midpoint.y, seg.midpoint.z).multiplyScalar(scale).project(camera);
         const rect = gl.domElement.getBoundingClientRect();
-        return { x: rect.left + ((p.x + 1) / 2) * rect.width, y: rect.top + ((1 - p.y) / 2) * rect.height };
+        const along = (t: number): Vec3 => {
+          if (seg.kind === 'straight') return add(seg.start, scaleVec(sub(seg.end, seg.start), t));
+          const phi = seg.angleRad * t;
+          return add(seg.centre, add(scaleVec(seg.xAxis, seg.radius * Math.cos(phi)), scaleVec(seg.yAxis, seg.radius * Math.sin(phi))));
+        };
+        const toScreen = (q: Vec3) => {
+          const p = new Vector3(q.x, q.y, q.z).multiplyScalar(scale).project(camera);
+          return { ndc: new Vector2(p.x, p.y), x: rect.left + ((p.x + 1) / 2) * rect.width, y: rect.top + ((1 - p.y) / 2) * rect.height };
+        };
+        const pickable: Object3D[] = [];
+        scene.traverse((o) => {
+          if (o.userData.elementRanges) pickable.push(o);
+        });
+        const ray = new Raycaster();
+        for (const t of [0.5, 0.35, 0.65, 0.2, 0.8, 0.1, 0.9]) {
+          const s = toScreen(along(t));
+          ray.setFromCamera(s.ndc, camera);
+          const hit = ray.intersectObjects(pickable, false)[0];
+          const ranges = hit?.object.userData.elementRanges as Range[] | undefined;
+          if (hit && ranges && hit.faceIndex != null && elementAtTriangle(ranges, hit.faceIndex) === id) return { x: s.x, y: s.y };
+        }
+        const mid = toScreen(along(0.5));
+        return { x: mid.x, y: mid.y };
       },
       get frames() {
         return frames.current;
@@ -154,7 +182,7 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
     return () => {
       if (window.__spoolwright === hooks) delete window.__spoolwright;
     };
-  }, [camera, controls, gl, invalidate, fit, scale, store]);
+  }, [camera, controls, gl, invalidate, fit, scale, store, scene]);
 
   return null;
 }
