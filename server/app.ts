@@ -16,6 +16,7 @@ import { catalogRouter } from './routes/catalog';
 import { adminRouter } from './routes/admin';
 import { publicShareRouter, spoolSharesRouter } from './routes/shares';
 import { teamRouter } from './routes/team';
+import { TeamMaterials } from './materials/team-materials';
 import { commentsRouter } from './routes/comments';
 
 export interface AppDeps {
@@ -80,15 +81,16 @@ export function createApp(deps: AppDeps) {
     res.json({ ok: true });
   });
 
-  app.use('/api/share', publicShareRouter({ db: deps.db }));
+  const materials = new TeamMaterials(deps.db);
+  app.use('/api/share', publicShareRouter({ db: deps.db, materials }));
   const memberships = new MembershipCache(deps.db);
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
   app.use('/api/spools/:id/comments', commentsRouter({ db: deps.db }));
   app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl }));
-  app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
-  app.use('/api/check', checkRouter());
-  app.use('/api', catalogRouter());
+  app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials }));
+  app.use('/api/check', checkRouter({ materials }));
+  app.use('/api', catalogRouter({ db: deps.db, materials }));
   app.use('/api/team', teamRouter({ db: deps.db, memberships }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);

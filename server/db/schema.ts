@@ -2,6 +2,7 @@ import { sql } from 'drizzle-orm';
 import { index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 import type { SpoolDocument } from '../../shared/model/spool';
 import type { CheckSummary, CheckStatus } from '../../shared/engine/types';
+import type { Material } from '../../shared/data/materials';
 import { user } from './auth-schema';
 
 export * from './auth-schema';
@@ -161,4 +162,21 @@ export const spoolComments = pgTable(
     resolvedBy: text('resolved_by').references(() => user.id, { onDelete: 'set null' }),
   },
   (t) => [index('spool_comments_spool_idx').on(t.spoolId, t.id)],
+);
+
+/** A team's own materials (uploaded with a source note); they take precedence over the library. */
+export const teamMaterials = pgTable(
+  'team_materials',
+  {
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    /** Material id as documents reference it, e.g. "A106-B" or a team code. */
+    id: text('id').notNull(),
+    material: jsonb('material').$type<Material>().notNull(),
+    sourceNote: text('source_note').notNull(),
+    createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+    ...timestamps,
+  },
+  (t) => [primaryKey({ columns: [t.teamId, t.id] })],
 );

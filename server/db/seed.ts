@@ -47,7 +47,7 @@ export async function isDatabaseEmpty(db: Db): Promise<boolean> {
 /** Remove all data (used by `npm run seed` before seeding again). */
 export async function clearDatabase(db: Db) {
   await db.execute(
-    sql`truncate table "spool_comments", "spool_events", "spool_revisions", "share_links", "spools", "team_members", "teams", "outbox", "session", "account", "verification", "user" restart identity cascade`,
+    sql`truncate table "team_materials", "spool_comments", "spool_events", "spool_revisions", "share_links", "spools", "team_members", "teams", "outbox", "session", "account", "verification", "user" restart identity cascade`,
   );
 }
 

@@ -1,5 +1,12 @@
 import { Router } from 'express';
-import { requireSignedIn } from '../auth/member';
+import { and, eq, sql } from 'drizzle-orm';
+import { z } from 'zod';
+import type { Db } from '../db/client';
+import { teamMaterials } from '../db/schema';
+import { getContext, getTeamId, requirePermission, requireSignedIn } from '../auth/member';
+import { notFound, validationError } from '../errors';
+import { parseCsv, receiveCsv } from '../csv';
+import { readMaterialsCsv, type TeamMaterials } from '../materials/team-materials';
 import { MATERIALS } from '../../shared/data/materials';
 import { NPS_SIZES, PIPE_DIMENSION_SOURCES, SCHEDULES, getPipeSize, listPipeWalls } from '../../shared/data/pipe-dimensions';
 
@@ -19,11 +26,49 @@ function buildDimensions() {
   return { schedules: SCHEDULES, sizes, sources: PIPE_DIMENSION_SOURCES };
 }
 
-export function catalogRouter() {
+export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
+  const { db, materials } = deps;
   const r = Router();
   let dimensions: ReturnType<typeof buildDimensions> | undefined;
-  r.get('/materials', requireSignedIn, (_req, res) => {
-    res.json({ items: MATERIALS });
+
+  /** Library rows (`origin: 'library'`) and the team's own (`origin: 'team'`, with `sourceNote`), team first. */
+  r.get('/materials', requireSignedIn, async (_req, res) => {
+    const teamId = getContext(res).team?.id;
+    res.json({ items: teamId ? await materials.list(teamId) : MATERIALS.map((m) => ({ ...m, origin: 'library' as const })) });
+  });
+
+  // Materials CSV with a source note (multipart field `source`, or ?source= with text/csv); all rows or none.
+  r.post('/materials/import', requirePermission('materials:manage'), receiveCsv, async (req, res) => {
+    const fromBody = (req.body as Record<string, unknown> | undefined)?.source;
+    const source = z.string().trim().min(3).max(500).safeParse(typeof fromBody === 'string' ? fromBody : req.query.source);
+    if (!source.success) throw validationError([{ path: 'source', message: 'give the source of the values (table, edition, document), at least 3 characters' }]);
+    const csv = parseCsv(String(res.locals.csv ?? ''));
+    if (csv.errors.length > 0) throw validationError(csv.errors.map((e) => ({ path: `line ${e.line}`, message: e.message })), 'The CSV could not be read');
+    const out = readMaterialsCsv(csv.headers, csv.rows, source.data);
+    if (out.issues.length > 0) throw validationError(out.issues, `${out.issues.length} problem${out.issues.length === 1 ? '' : 's'} in the materials file; nothing was imported`);
+    const teamId = getTeamId(res);
+    const userId = getContext(res).user.id;
+    await db.transaction(async (tx) => {
+      for (const m of out.materials) {
+        await tx
+          .insert(teamMaterials)
+          .values({ teamId, id: m.id, material: m, sourceNote: source.data, createdBy: userId })
+          .onConflictDoUpdate({ target: [teamMaterials.teamId, teamMaterials.id], set: { material: m, sourceNote: source.data, updatedAt: sql`now()` } });
+      }
+    });
+    materials.invalidate(teamId);
+    res.status(201).json({ imported: out.materials.length, items: out.materials });
+  });
+
+  r.delete('/materials/:id', requirePermission('materials:manage'), async (req, res) => {
+    const teamId = getTeamId(res);
+    const gone = await db
+      .delete(teamMaterials)
+      .where(and(eq(teamMaterials.teamId, teamId), eq(teamMaterials.id, String(req.params.id))))
+      .returning({ id: teamMaterials.id });
+    if (gone.length === 0) throw notFound('The team has no material with this id');
+    materials.invalidate(teamId);
+    res.status(204).end();
   });
   r.get('/dimensions', requireSignedIn, (_req, res) => {
     dimensions ??= buildDimensions();

@@ -9,6 +9,7 @@ import { HttpError, notFound } from '../errors';
 import { parseBody } from '../validation';
 import { getRevision, getSpool } from '../spools/repo';
 import { runCheck } from '../spools/check';
+import type { TeamMaterials } from '../materials/team-materials';
 
 const createSchema = z.object({
   /** Revision to share; default the current one. */
@@ -96,7 +97,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
 }
 
 /** GET /api/share/:token — the public read-only view; no account needed. */
-export function publicShareRouter(deps: { db: Db }) {
+export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
   const r = Router();
   r.get('/:token', async (req, res) => {
     const token = String(req.params.token);
@@ -107,7 +108,7 @@ export function publicShareRouter(deps: { db: Db }) {
     if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
     res.json({
       spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
-      check: runCheck(row.document),
+      check: runCheck(row.document, await deps.materials.finder(row.teamId)),
       sharedAt: row.createdAt.toISOString(),
       expiresAt: row.expiresAt.toISOString(),
     });

@@ -2,11 +2,12 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { and, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { teamMembers, user } from '../db/schema';
+import { teamMembers, user, type StoredCheckSummary } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, forbidden, notFound, validationError } from '../errors';
 import { parseCsv, receiveCsv } from '../csv';
 import { readLineList } from '../spools/line-list';
+import type { TeamMaterials } from '../materials/team-materials';
 import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
 import { parseBody, parseDocument } from '../validation';
@@ -80,9 +81,6 @@ const NEXT_ROLES: Partial<Record<SpoolStatus, Role[]>> = {
   released: ['fabricator'],
 };
 
-function checkDocument(doc: SpoolDocument) {
-  return summarizeCheck(runCheck(doc));
-}
 
 const idParam = (raw: unknown): string => {
   const id = String(raw ?? '');
@@ -90,9 +88,12 @@ const idParam = (raw: unknown): string => {
   return id;
 };
 
-export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string }) {
+export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string; materials: TeamMaterials }) {
   const { db, mailer, logger } = deps;
   const r = Router();
+
+  /** Check with the team's materials and keep what the list shows. */
+  const checkDocument = async (teamId: string, doc: SpoolDocument) => summarizeCheck(runCheck(doc, await deps.materials.finder(teamId)));
 
   r.get('/', requirePermission('spool:view'), async (req, res) => {
     const q = parseBody(listQuerySchema, req.query, ['query']);
@@ -104,7 +105,7 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const document = parseDocument(body.document, ['document']);
     const ctx = getContext(res);
     const teamId = getTeamId(res);
-    const id = await insertSpool(db, { teamId, userId: ctx.user.id, document, checkSummary: checkDocument(document) });
+    const id = await insertSpool(db, { teamId, userId: ctx.user.id, document, checkSummary: await checkDocument(teamId, document) });
     res.status(201).location(`/api/spools/${id}`).json(await getSpool(db, teamId, id));
   });
 
@@ -118,9 +119,11 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     if (issues.length > 0) throw validationError(issues, `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`);
     const teamId = getTeamId(res);
     const userId = getContext(res).user.id;
+    const summaries: StoredCheckSummary[] = [];
+    for (const document of docs) summaries.push(await checkDocument(teamId, document));
     const ids = await db.transaction(async (tx) => {
       const out: string[] = [];
-      for (const document of docs) out.push(await insertSpool(tx as unknown as Db, { teamId, userId, document, checkSummary: checkDocument(document) }));
+      for (const [i, document] of docs.entries()) out.push(await insertSpool(tx as unknown as Db, { teamId, userId, document, checkSummary: summaries[i] ?? null }));
       return out;
     });
     const items = [];
@@ -145,7 +148,7 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
       userId: getContext(res).user.id,
       baseVersion: body.baseVersion,
       document,
-      checkSummary: checkDocument(document),
+      checkSummary: await checkDocument(teamId, document),
     });
     if (out.kind === 'not_found') throw notFound('Spool not found');
     if (out.kind === 'conflict') {

@@ -1,4 +1,4 @@
-import { checkSpool } from '../../shared/engine/index';
+import { checkSpool, type MaterialFinder } from '../../shared/engine/index';
 import type { CheckStatus, CheckSummary, ElementCheck, SpoolCheck } from '../../shared/engine/types';
 import type { SpoolDocument } from '../../shared/model/spool';
 import type { StoredCheckSummary } from '../db/schema';
@@ -24,7 +24,10 @@ export function summarizeCheck(check: SpoolCheck): StoredCheckSummary {
   return { summary: { ...check.summary }, worst: worst ? { elementId: worst.id, status: worst.status } : null };
 }
 
-/** Check a validated document; the engine reports rule violations as results, so this only throws on a bug. */
-export function runCheck(doc: SpoolDocument): SpoolCheck {
-  return checkSpool(doc);
+/**
+ * Check a validated document (with the team's materials when given); the engine reports rule
+ * violations as results, so this only throws on a bug.
+ */
+export function runCheck(doc: SpoolDocument, findMaterial?: MaterialFinder): SpoolCheck {
+  return checkSpool(doc, findMaterial ? { findMaterial } : {});
 }

@@ -351,6 +351,47 @@ describe('line-list import', () => {
   });
 });
 
+describe('team materials library', () => {
+  // Invented team material; values chosen for the test, not from any table.
+  const csv = [
+    'id,spec,grade,name,category,tensile_ksi,yield_ksi,temp_f,stress_ksi',
+    'KX-CS-70,Team spec KX-1,70,Team carbon steel 70,carbon,70,38,100,23.3',
+    'KX-CS-70,,,,,,,400,23.3',
+    'KX-CS-70,,,,,,,600,20.0',
+  ].join('\n');
+
+  it('lets an admin upload materials with a source note; checks then use them', async () => {
+    const admin = await t.signIn('admin');
+    const doc = sampleDocument('Team material', { conditions: { pressure: 150, temperature: 300, material: 'KX-CS-70' } });
+    const before = await admin.post('/api/check').send(doc);
+    expect(before.body.summary.invalid).toBe(3);
+    const up = await admin.post('/api/materials/import').field('source', 'Owner spec KX-1 rev B, table 4').attach('file', Buffer.from(csv), 'materials.csv');
+    expect(up.status).toBe(201);
+    expect(up.body.items[0]).toMatchObject({ id: 'KX-CS-70', tensilePsi: 70_000, stress: [{ tempF: 100, value: 23_300 }, { tempF: 400 }, { tempF: 600, value: 20_000 }] });
+    const after = await admin.post('/api/check').send(doc);
+    expect(after.body.summary.invalid).toBe(0);
+    const list = await (await t.signIn('fabricator')).get('/api/materials');
+    expect(list.body.items[0]).toMatchObject({ id: 'KX-CS-70', origin: 'team', sourceNote: 'Owner spec KX-1 rev B, table 4' });
+    expect(list.body.items.find((m: { id: string }) => m.id === 'A106-B')).toMatchObject({ origin: 'library' });
+    const saved = await admin.post('/api/spools').send({ document: doc });
+    expect(saved.body.summary.invalid).toBe(0);
+    await admin.delete('/api/materials/KX-CS-70').expect(204);
+    expect((await admin.post('/api/check').send(doc)).body.summary.invalid).toBe(3);
+  });
+
+  it('reports bad material rows by line and needs a source note', async () => {
+    const admin = await t.signIn('admin');
+    const noSource = await admin.post('/api/materials/import').set('content-type', 'text/csv').send(csv);
+    expect(noSource.status).toBe(422);
+    expect(noSource.body.error.details[0].path).toBe('source');
+    const bad = csv.replace('400,23.3', '400,lots');
+    const r = await admin.post('/api/materials/import').query({ source: 'test table' }).set('content-type', 'text/csv').send(bad);
+    expect(r.status).toBe(422);
+    expect(r.body.error.details[0]).toMatchObject({ line: 3 });
+    expect((await admin.get('/api/materials')).body.items[0].origin).toBe('library');
+  });
+});
+
 describe('review comments', () => {
   it('pins comments to elements of a revision and resolves them', async () => {
     const s = await createSpool('Commented');

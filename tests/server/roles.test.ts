@@ -106,6 +106,20 @@ const ROUTES: RouteCase[] = [
   },
   { name: 'POST /api/check', allowed: EVERY_MEMBER, setup: async () => ({ method: 'post', path: '/api/check', body: sampleDocument('Checked only') }) },
   { name: 'GET /api/materials', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/materials' }) },
+  {
+    name: 'POST /api/materials/import (materials library)',
+    allowed: [A],
+    setup: async () => ({ method: 'post', path: '/api/materials/import?source=matrix%20test', csv: 'id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\nMX-1,Matrix,1,60,35,100,20' }),
+  },
+  {
+    name: 'DELETE /api/materials/:id',
+    allowed: [A],
+    setup: async () => {
+      const id = `MX-${randomUUID().slice(0, 6)}`;
+      await admin.post(`/api/materials/import?source=matrix`).set('content-type', 'text/csv').send(`id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\n${id},Matrix,1,60,35,100,20`).expect(201);
+      return { method: 'delete', path: `/api/materials/${id}` };
+    },
+  },
   { name: 'GET /api/dimensions', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/dimensions' }) },
   { name: 'GET /api/spools/:id/shares', allowed: [L, A], setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/shares` }) },
   { name: 'POST /api/spools/:id/shares (create share link)', allowed: [L, A], setup: async () => ({ method: 'post', path: `/api/spools/${fixed.spoolId}/shares`, body: {} }) },
