@@ -3,8 +3,9 @@ import type { CheckStatus } from '@shared/engine/types';
 /**
  * How each check status looks on the sketch. Colours are chosen to stay apart for the common
  * colour-vision deficiencies (they differ in lightness as well as hue: dark blue, light
- * yellow, mid vermilion, light cyan, neutral grey), and every status also has a surface
- * pattern and a glyph, so colour is never the only signal.
+ * yellow, mid vermilion, light cyan, dark neutral grey; every pair stays ≥ 25 ΔE apart in
+ * simulated protanopia and deuteranopia, see the palette test), and every status also has a
+ * surface pattern and a glyph, so colour is never the only signal.
  */
 export type StatusPattern = 'solid' | 'bands' | 'hatch' | 'dots' | 'dashes';
 
@@ -26,7 +27,7 @@ export const STATUS_STYLES: Readonly<Record<CheckStatus, StatusStyle>> = {
   marginal: { status: 'marginal', color: '#efbd32', ink: '#7a5a06', pattern: 'bands', glyph: '≈', label: 'Marginal', description: 'passes with little margin' },
   fail: { status: 'fail', color: '#cf4a26', ink: '#7c2410', pattern: 'hatch', glyph: '✕', label: 'Fail', description: 'wall is not enough' },
   review: { status: 'review', color: '#4cc3d6', ink: '#155d69', pattern: 'dots', glyph: '?', label: 'Review', description: 'the code asks for special consideration' },
-  invalid: { status: 'invalid', color: '#9a9ca1', ink: '#4a4c50', pattern: 'dashes', glyph: '!', label: 'Not checkable', description: 'inputs missing or not resolvable' },
+  invalid: { status: 'invalid', color: '#6f7177', ink: '#3a3c40', pattern: 'dashes', glyph: '!', label: 'Not checkable', description: 'inputs missing or not resolvable' },
 };
 
 /** Statuses in legend order. */
