@@ -1,6 +1,7 @@
 import { lazy, Suspense } from 'react';
 import { createBrowserRouter, Navigate, useRouteError } from 'react-router-dom';
 import { SignInPage } from '@/features/auth/components/sign-in-page';
+import { SignOutPage } from '@/features/auth/components/sign-out-page';
 import { SpoolListPage } from '@/features/spools/components/spool-list-page';
 import { ErrorLine, LoadingLine } from '@/components/ui/spinner';
 import { AppLayout } from './app-layout';
@@ -23,6 +24,7 @@ function RouteErrorView() {
 export function createAppRouter() {
   return createBrowserRouter([
     { path: '/sign-in', element: <SignInPage />, errorElement: <RouteErrorView /> },
+    { path: '/sign-out', element: <SignOutPage />, errorElement: <RouteErrorView /> },
     {
       element: <RequireSignedIn />,
       errorElement: <RouteErrorView />,

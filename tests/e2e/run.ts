@@ -407,6 +407,11 @@ async function moreDesignerJourney(ctx: BrowserContext, base: string, shared: { 
         await page.getByRole('alertdialog', { name: 'Unsaved changes' }).waitFor();
         await page.getByRole('button', { name: 'Stay' }).click();
         expect(page.url().endsWith(`/spools/${shared.spoolId}`), `left to ${page.url()}`);
+        // signing out is a navigation too, so it asks before the session ends
+        await page.getByRole('button', { name: 'Sign out' }).click();
+        await page.getByRole('alertdialog', { name: 'Unsaved changes' }).waitFor();
+        await page.getByRole('button', { name: 'Stay' }).click();
+        expect((await page.getByTestId('role').count()) === 1, 'signed out although the user chose to stay');
         expect((await rowCount(page)) === 9, 'the edit was lost');
       });
       await step(MORE_STEPS[3]!, async () => {
