@@ -24,7 +24,8 @@ export interface ServerConfig {
   readonly mailFrom: string;
 }
 
-const DEV_SECRET = 'spoolwright-development-secret-change-me-0123456789';
+/** Placeholder used when no secret is configured; the server replaces it with one kept in DATA_DIR. */
+export const DEV_SECRET = 'spoolwright-development-secret-change-me-0123456789';
 
 function parsePort(raw: string | undefined, fallback: number): number {
   if (raw === undefined || raw === '') return fallback;
@@ -40,9 +41,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
   const nodeEnv = overrides.nodeEnv ?? (env.NODE_ENV === 'production' ? 'production' : env.NODE_ENV === 'test' ? 'test' : 'development');
   const publicUrl = (overrides.publicUrl ?? (env.PUBLIC_URL || `http://${host}:${port}`)).replace(/\/+$/, '');
   const secret = overrides.authSecret ?? env.AUTH_SECRET ?? env.BETTER_AUTH_SECRET ?? DEV_SECRET;
-  if (nodeEnv === 'production' && secret === DEV_SECRET && env.PUBLIC_URL && !/^http:\/\/(127\.0\.0\.1|localhost)[:/]/.test(publicUrl)) {
-    throw new Error('AUTH_SECRET must be set when serving beyond this machine');
-  }
   const origins = new Set<string>([publicUrl, `http://localhost:${port}`, `http://127.0.0.1:${port}`, 'http://localhost:5173', 'http://127.0.0.1:5173']);
   for (const o of (env.TRUSTED_ORIGINS ?? '').split(',')) if (o.trim()) origins.add(o.trim());
   return {

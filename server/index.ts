@@ -1,7 +1,9 @@
 import fs from 'node:fs';
 import type { AddressInfo } from 'node:net';
 import { fileURLToPath } from 'node:url';
-import { loadConfig, type ServerConfig } from './config';
+import { randomBytes } from 'node:crypto';
+import path from 'node:path';
+import { DEV_SECRET, loadConfig, type ServerConfig } from './config';
 import { openDatabase, type Database } from './db/client';
 import { DataDirLockedError } from './db/lock';
 import { isDatabaseEmpty, seedDemo } from './db/seed';
@@ -19,9 +21,25 @@ export interface RunningServer {
   close(): Promise<void>;
 }
 
+/** Without AUTH_SECRET, sessions are signed with a random secret kept in DATA_DIR (created on first start). */
+function readOrCreateSecret(dataDir: string): string {
+  const file = path.join(dataDir, 'auth-secret');
+  try {
+    const s = fs.readFileSync(file, 'utf8').trim();
+    if (s.length >= 32) return s;
+  } catch {
+    // first start
+  }
+  fs.mkdirSync(dataDir, { recursive: true });
+  const secret = randomBytes(32).toString('base64url');
+  fs.writeFileSync(file, `${secret}\n`, { mode: 0o600 });
+  return secret;
+}
+
 /** Open the database, migrate, seed demo data into an empty one, and listen. */
 export async function startServer(config: ServerConfig, logger: Logger = createLogger()): Promise<RunningServer> {
   const t0 = Date.now();
+  if (config.authSecret === DEV_SECRET) config = { ...config, authSecret: readOrCreateSecret(config.dataDir) };
   const database = await openDatabase(config);
   try {
     await database.migrate();
