@@ -7,6 +7,7 @@
  *   npx tsx bench/canvas.ts [--sizes 50,300,1000] [--seconds 4] [--labels auto|all|none] [--no-build] [--screenshots <dir>]
  */
 import { createServer, type Server } from 'node:http';
+import { loadavg } from 'node:os';
 import { readFile, stat } from 'node:fs/promises';
 import { extname, join, normalize, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
@@ -79,6 +80,8 @@ function serve(): Promise<{ server: Server; port: number }> {
 
 interface Row {
   elements: number;
+  /** Elements selected right by a mouse click at project(id), of those tried. */
+  picked: [number, number];
   antialias: boolean;
   firstFrameMs: number;
   fps: number;
@@ -159,7 +162,22 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
     }
     return times;
   }, 6);
-  return { elements: n, antialias: aa, firstFrameMs, fps, editMs, calls: info.calls, triangles: info.triangles, renderer: info.renderer };
+  // Picking: click up to 60 elements (evenly spread) at their projected points.
+  let picked: [number, number] = [0, 0];
+  if (!aa) {
+    const ids = await page.evaluate(() => window.__spoolwright!.store.getState().doc.elements.map((e) => e.id));
+    const stride = Math.max(1, Math.floor(ids.length / 60));
+    for (let i = 0; i < ids.length; i += stride) {
+      const id = ids[i]!;
+      const p = await page.evaluate((el) => window.__spoolwright!.project(el), id);
+      if (!p) continue;
+      await page.mouse.click(p.x, p.y);
+      const sel = await page.evaluate(() => window.__spoolwright!.store.getState().selectedId);
+      picked = [picked[0] + (sel === id ? 1 : 0), picked[1] + 1];
+    }
+    await page.mouse.move(1, 1);
+  }
+  return { elements: n, picked, antialias: aa, firstFrameMs, fps, editMs, calls: info.calls, triangles: info.triangles, renderer: info.renderer };
 }
 
 const median = (xs: number[]) => {
@@ -185,6 +203,7 @@ async function main() {
     ],
   });
   const rows: Row[] = [];
+  const loadBefore = loadavg()[0]!;
   try {
     const page = await browser.newPage({ viewport: { width: 1280, height: 800 } });
     // tsx keeps function names with a __name helper that page.evaluate bodies then call.
@@ -202,12 +221,13 @@ async function main() {
     server.close();
   }
   console.log(`\nrenderer: ${rows[0]?.renderer ?? '?'}; canvas 1280×720 CSS px, DPR 1; orbit ${seconds} s per row`);
-  console.log('| elements | antialias | first frame (ms) | fps orbiting | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles |');
-  console.log('|---:|:---:|---:|---:|---:|---:|---:|---:|');
+  console.log(`load average (1 min) before/after: ${loadBefore.toFixed(2)} / ${loadavg()[0]!.toFixed(2)} on a machine with 2 cores`);
+  console.log('| elements | antialias | first frame (ms) | fps orbiting | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles | click picks right |');
+  console.log('|---:|:---:|---:|---:|---:|---:|---:|---:|---:|');
   for (const r of rows) {
     const finite = r.editMs.filter(Number.isFinite);
     console.log(
-      `| ${r.elements} | ${r.antialias ? 'on' : 'off'} | ${r.firstFrameMs} | ${r.fps.toFixed(1)} | ${median(r.editMs).toFixed(0)} | ${finite.length ? Math.max(...finite).toFixed(0) : 'n/a'} | ${r.calls} | ${r.triangles} |`,
+      `| ${r.elements} | ${r.antialias ? 'on' : 'off'} | ${r.firstFrameMs} | ${r.fps.toFixed(1)} | ${median(r.editMs).toFixed(0)} | ${finite.length ? Math.max(...finite).toFixed(0) : 'n/a'} | ${r.calls} | ${r.triangles} | ${r.antialias ? '' : `${r.picked[0]}/${r.picked[1]}`} |`,
     );
   }
 }

@@ -1,18 +1,30 @@
 import { useLayoutEffect, useMemo, useRef } from 'react';
-import { CircleGeometry, CylinderGeometry, DoubleSide, MeshLambertMaterial, Object3D, RingGeometry, TorusGeometry, type BufferGeometry, type InstancedMesh, type Material } from 'three';
+import {
+  BufferAttribute,
+  BufferGeometry,
+  CircleGeometry,
+  CylinderGeometry,
+  DoubleSide,
+  LineBasicMaterial,
+  MeshLambertMaterial,
+  Object3D,
+  TorusGeometry,
+  type InstancedMesh,
+  type Material,
+} from 'three';
 import type { PathSegment } from '../geometry/spool-path';
-import { add, scale, type Vec3 } from '../geometry/vec';
+import { add, cross, normalize, scale, sub, dot, type Vec3 } from '../geometry/vec';
 import { quaternionAlong } from './scene-math';
 
 /*
  * Marks at element ends, our own simple symbols:
  * - weld: a dark bead ring where two straights meet;
- * - tangent: a thin light flat ring where a straight meets a bend (the tangent point);
+ * - tangent: a thin light ring line where a straight meets a bend (the tangent point);
  * - open end: a flat dark disc on a plain free end of the run;
  * - bevel: a short light cone on a bevelled free end;
- * - threaded: three thin dark flat rings near the end of a threaded straight;
- * - grooved: one wider dark flat ring a little in from the end of a grooved straight.
- * Each kind is one InstancedMesh, so the marks add a handful of draw calls at any size.
+ * - threaded: three thin dark ring lines near the end of a threaded straight;
+ * - grooved: one wider dark ring line a little in from the end of a grooved straight.
+ * Each kind is one InstancedMesh or one line set, so the marks add a handful of draw calls at any size.
  */
 export type MarkerKind = 'weld' | 'tangent' | 'open' | 'bevel' | 'thread' | 'groove';
 
@@ -67,17 +79,62 @@ interface MarkerLook {
   readonly offset: number;
 }
 
-/** A flat ring around the pipe (cheap: 20 triangles), facing along +y. */
-const flatRing = (inner: number, outer: number) => new RingGeometry(inner, outer, 10, 1).rotateX(-Math.PI / 2);
-
-const LOOKS: Record<MarkerKind, () => MarkerLook> = {
+const LOOKS: Partial<Record<MarkerKind, () => MarkerLook>> = {
   weld: () => ({ geometry: new TorusGeometry(1, 0.14, 3, 10).rotateX(Math.PI / 2), color: '#2b3440', grow: 0.52, offset: 0 }),
-  tangent: () => ({ geometry: flatRing(1, 1.18), color: '#e6eaef', grow: 0.5, offset: 0 }),
   open: () => ({ geometry: new CircleGeometry(1, 10).rotateX(-Math.PI / 2), color: '#364151', grow: 0.5, offset: 0.001 }),
   bevel: () => ({ geometry: new CylinderGeometry(0.7, 1, 0.5, 10, 1, true), color: '#cbd3dc', grow: 0.5, offset: 0.12 }),
-  thread: () => ({ geometry: flatRing(1, 1.15), color: '#2b3440', grow: 0.5, offset: 0 }),
-  groove: () => ({ geometry: flatRing(0.9, 1.2), color: '#1d232c', grow: 0.5, offset: 0 }),
 };
+
+/** Ring marks drawn as line loops just outside the pipe (lines cost far less than triangles in software rendering). */
+const LINE_RINGS: Partial<Record<MarkerKind, { color: string; grow: number }>> = {
+  tangent: { color: '#e6eaef', grow: 0.56 },
+  thread: { color: '#1d232c', grow: 0.56 },
+  groove: { color: '#1d232c', grow: 0.6 },
+};
+const RING_POINTS = 12;
+
+/** Line-segment circles around each marker's axis. */
+export function ringLineGeometry(markers: readonly Marker[], grow: number): BufferGeometry {
+  const pos = new Float32Array(markers.length * RING_POINTS * 2 * 3);
+  let k = 0;
+  for (const m of markers) {
+    const ref: Vec3 = Math.abs(m.dir.y) < 0.9 ? { x: 0, y: 1, z: 0 } : { x: 1, y: 0, z: 0 };
+    const u = normalize(sub(ref, scale(m.dir, dot(ref, m.dir))));
+    const w = cross(m.dir, u);
+    const r = m.od * grow;
+    const at = (i: number) => {
+      const a = (i / RING_POINTS) * Math.PI * 2;
+      return add(m.at, add(scale(u, r * Math.cos(a)), scale(w, r * Math.sin(a))));
+    };
+    for (let i = 0; i < RING_POINTS; i++) {
+      for (const p of [at(i), at(i + 1)]) {
+        pos[k++] = p.x;
+        pos[k++] = p.y;
+        pos[k++] = p.z;
+      }
+    }
+  }
+  const g = new BufferGeometry();
+  g.setAttribute('position', new BufferAttribute(pos, 3));
+  g.computeBoundingSphere();
+  return g;
+}
+
+const lineMaterials = new Map<string, LineBasicMaterial>();
+function lineMaterial(color: string): LineBasicMaterial {
+  let m = lineMaterials.get(color);
+  if (!m) {
+    m = new LineBasicMaterial({ color });
+    lineMaterials.set(color, m);
+  }
+  return m;
+}
+
+function RingLines({ markers, color, grow }: { readonly markers: readonly Marker[]; readonly color: string; readonly grow: number }) {
+  const geometry = useMemo(() => ringLineGeometry(markers, grow), [markers, grow]);
+  useLayoutEffect(() => () => geometry.dispose(), [geometry]);
+  return <lineSegments geometry={geometry} material={lineMaterial(color)} raycast={() => null} />;
+}
 
 const markerMaterials = new Map<string, Material>();
 /** Marker materials are double-sided: flat rings and discs are seen from both sides. */
@@ -94,7 +151,7 @@ const scratch = new Object3D();
 
 function MarkerInstances({ kind, markers }: { readonly kind: MarkerKind; readonly markers: readonly Marker[] }) {
   const ref = useRef<InstancedMesh>(null);
-  const look = useMemo(() => LOOKS[kind](), [kind]);
+  const look = useMemo(() => LOOKS[kind]!(), [kind]);
   useLayoutEffect(() => () => look.geometry.dispose(), [look]);
   useLayoutEffect(() => {
     const mesh = ref.current;
@@ -127,9 +184,10 @@ export function EndMarkers({ segments }: { readonly segments: readonly PathSegme
   }, [segments]);
   return (
     <group>
-      {[...byKind].map(([kind, markers]) => (
-        <MarkerInstances key={kind} kind={kind} markers={markers} />
-      ))}
+      {[...byKind].map(([kind, markers]) => {
+        const ring = LINE_RINGS[kind];
+        return ring ? <RingLines key={kind} markers={markers} color={ring.color} grow={ring.grow} /> : <MarkerInstances key={kind} kind={kind} markers={markers} />;
+      })}
     </group>
   );
 }
