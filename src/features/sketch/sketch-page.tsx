@@ -160,16 +160,17 @@ function SpoolBar({
 
   return (
     <div className="flex flex-wrap items-center gap-3 border-b border-steel-200 bg-steel-50 px-3 py-2">
-      <MetaInput label="Spool name" value={doc.name ?? ''} disabled={!canEdit} className="w-56 font-semibold" onCommit={(name) => api.getState().setMeta({ name })} />
-      <MetaInput label="Line number" placeholder="line number" value={doc.line ?? ''} disabled={!canEdit} className="w-40" onCommit={(line) => api.getState().setMeta({ line })} />
+      <MetaInput label="Spool name" value={doc.name ?? ''} disabled={!canEdit} className="w-48 font-semibold" onCommit={(name) => api.getState().setMeta({ name })} />
+      <MetaInput label="Line number" placeholder="line number" value={doc.line ?? ''} disabled={!canEdit} className="w-32" onCommit={(line) => api.getState().setMeta({ line })} />
       <LifecycleBadge status={spool.status} />
       <span className="text-xs text-steel-500" data-testid="revision">
-        rev. {spool.revision} · saved version {spool.version}
+        rev. {spool.revision} · v{spool.version}
       </span>
       <span className="flex items-center gap-1 text-xs" data-testid="check-summary">
         <CheckBadge status={check.worst} />
         <span className="text-steel-500">
-          {check.summary.pass} pass · {check.summary.marginal} marginal · {check.summary.fail} fail · {check.summary.review} review
+          {check.summary.pass} pass · {check.summary.marginal} marginal · {check.summary.fail} fail
+          {check.summary.review > 0 ? ` · ${check.summary.review} review` : ''}
           {check.summary.invalid > 0 ? ` · ${check.summary.invalid} invalid` : ''}
         </span>
       </span>

@@ -68,7 +68,6 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
   const selectedId = useSpoolStore((s) => s.selectedId);
   const canUndo = useSpoolStore((s) => s.canUndo);
   const canRedo = useSpoolStore((s) => s.canRedo);
-  const elementCount = useSpoolStore((s) => s.doc.elements.length);
   const defaultRadius = useSpoolStore((s) => s.doc.defaultBendRadius);
   const radiusChoice = defaultRadius && typeof defaultRadius === 'object' ? String(defaultRadius.multipleOfD) : defaultRadius === undefined ? '' : 'length';
 
@@ -149,7 +148,7 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
 
   return (
     <div className="border-b border-steel-200 bg-white">
-      <div className="flex flex-wrap items-end gap-3 px-3 py-2" role="toolbar" aria-label="Drawing">
+      <div className="flex flex-wrap items-end gap-2 px-3 py-2" role="toolbar" aria-label="Drawing">
         {canEdit ? (
           <>
             <div className="flex items-end gap-1.5">
@@ -242,7 +241,7 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
                   aria-label={`Draw leg ${DIRECTION_LABELS[d.direction]}`}
                   title={`${DIRECTION_LABELS[d.direction]} (${d.label}; Shift: after selected)`}
                   onClick={(e) => drawLeg(d.direction, e.shiftKey || insertAfter)}
-                  className="w-14 flex-col gap-0 leading-tight"
+                  className="w-12 flex-col gap-0 px-1 leading-tight"
                 >
                   <span>{DIRECTION_LABELS[d.direction]}</span>
                   <span className="text-[10px] text-steel-400">{d.label}</span>
@@ -272,7 +271,6 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
           </p>
         )}
         <div className="relative ml-auto flex items-center gap-1">
-          <span className="text-xs text-steel-400">{elementCount} elements</span>
           {onFit ? (
             <Button onClick={onFit} title="Fit the spool in view (F)">
               Fit
