@@ -164,6 +164,39 @@ describe('editing elements', () => {
     if (!r.ok) expect(r.message).toMatch(/double back/);
   });
 
+  it('turning a bend turns the whole leg after it', () => {
+    const store = drawn();
+    expect(store.getState().updateElement('B1', { direction: 'down' }).ok).toBe(true);
+    expect(shape(store)).toEqual(['S1:east:94', 'B1:90>down', 'S2:down:38', 'B2:90>east', 'S3:east:74']);
+    expect(store.getState().updateElement('B1', { angle: 45 } as never).ok).toBe(true); // unknown keys are ignored
+    expect(store.getState().updateElement('B1', { direction: 'west' }).ok).toBe(false);
+  });
+
+  it('keeps a loaded document with a 45° bend as it is when editing elsewhere', () => {
+    const loaded = createSpoolStore({
+      ...doc(),
+      elements: [
+        { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 50, direction: 'east' },
+        { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: 10, angle: 45, direction: 'north' },
+        { kind: 'straight', id: 'S2', nps: '2', schedule: '40', length: 30 },
+      ],
+    });
+    expect(loaded.getState().updateElement('S2', { length: 40 }).ok).toBe(true);
+    const els = loaded.getState().doc.elements;
+    expect(els[1]).toEqual({ kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: 10, angle: 45, direction: 'north' });
+    expect(els[2]).toMatchObject({ id: 'S2', length: 40 });
+    expect(els[2]!.direction).toBeUndefined();
+  });
+
+  it('works in metric units (3D of NPS 2 = 152.4 mm)', () => {
+    const store = createSpoolStore({ ...doc(), units: 'metric', conditions: { pressure: 2, temperature: 50, material: 'A106-B' } });
+    store.getState().startRun({ nps: '2', schedule: '40' });
+    store.getState().addLeg('east', 1000);
+    expect(store.getState().addLeg('north', 150).ok).toBe(false);
+    store.getState().addLeg('north', 500);
+    expect(shape(store)).toEqual(['S1:east:847.6', 'B1:90>north', 'S2:north:347.6']);
+  });
+
   it('refuses fields an element does not have', () => {
     const store = drawn();
     expect(store.getState().updateElement('B1', { length: 5 }).ok).toBe(false);

@@ -1,4 +1,4 @@
-import { useCallback, useMemo, useRef } from 'react';
+import { useCallback, useEffect, useMemo, useRef } from 'react';
 import { Canvas } from '@react-three/fiber';
 import { OrbitControls } from '@react-three/drei';
 import type { CheckStatus, SpoolCheck } from '@shared/engine/types';
@@ -64,6 +64,12 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
   const specOf = (id: string | null) => (id !== null ? specs[path.byId.get(id)?.index ?? -1] : undefined);
   const selectedSpec = specOf(selectedId);
   const hoveredSpec = hoveredId !== selectedId ? specOf(hoveredId) : undefined;
+  useEffect(
+    () => () => {
+      document.body.style.cursor = '';
+    },
+    [],
+  );
   const registry = useRef(new Map<string, HTMLDivElement>());
   const axes = useMemo(() => axisLabels(path.bbox), [path.bbox]);
   const labels = useMemo(
