@@ -8,6 +8,8 @@ import { notFound, validationError } from '../errors';
 import { parseCsv, receiveCsv } from '../csv';
 import { readMaterialsCsv, type TeamMaterials } from '../materials/team-materials';
 import { MATERIALS } from '../../shared/data/materials';
+import { refreshTeamSummaries } from '../spools/repo';
+import { runCheck, summarizeCheck } from '../spools/check';
 import { NPS_SIZES, PIPE_DIMENSION_SOURCES, SCHEDULES, getPipeSize, listPipeWalls } from '../../shared/data/pipe-dimensions';
 
 /** Pickers' data: built once, it never changes while the process runs. */
@@ -30,6 +32,12 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
   const { db, materials } = deps;
   const r = Router();
   let dimensions: ReturnType<typeof buildDimensions> | undefined;
+
+  const refresh = async (teamId: string) => {
+    materials.invalidate(teamId);
+    const find = await materials.finder(teamId);
+    return refreshTeamSummaries(db, teamId, (doc) => summarizeCheck(runCheck(doc, find)));
+  };
 
   /** Library rows (`origin: 'library'`) and the team's own (`origin: 'team'`, with `sourceNote`), team first. */
   r.get('/materials', requireSignedIn, async (_req, res) => {
@@ -56,8 +64,8 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
           .onConflictDoUpdate({ target: [teamMaterials.teamId, teamMaterials.id], set: { material: m, sourceNote: source.data, updatedAt: sql`now()` } });
       }
     });
-    materials.invalidate(teamId);
-    res.status(201).json({ imported: out.materials.length, items: out.materials });
+    const rechecked = await refresh(teamId);
+    res.status(201).json({ imported: out.materials.length, items: out.materials, rechecked });
   });
 
   r.delete('/materials/:id', requirePermission('materials:manage'), async (req, res) => {
@@ -67,7 +75,7 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
       .where(and(eq(teamMaterials.teamId, teamId), eq(teamMaterials.id, String(req.params.id))))
       .returning({ id: teamMaterials.id });
     if (gone.length === 0) throw notFound('The team has no material with this id');
-    materials.invalidate(teamId);
+    await refresh(teamId);
     res.status(204).end();
   });
   r.get('/dimensions', requireSignedIn, (_req, res) => {

@@ -215,6 +215,23 @@ export async function saveSpool(
   });
 }
 
+/**
+ * Re-check the team's live spools after its materials changed and store the new summaries.
+ * The summary is derived data, so this does not count as a save (version unchanged).
+ */
+export async function refreshTeamSummaries(db: Db, teamId: string, summarize: (doc: SpoolDocument) => StoredCheckSummary): Promise<number> {
+  const rows = await db
+    .select({ id: spools.id, document: spools.document })
+    .from(spools)
+    .where(and(eq(spools.teamId, teamId), isNull(spools.deletedAt)));
+  let n = 0;
+  for (const r of rows) {
+    await db.update(spools).set({ checkSummary: summarize(r.document) }).where(eq(spools.id, r.id));
+    n++;
+  }
+  return n;
+}
+
 export async function softDeleteSpool(db: Db, teamId: string, id: string, userId: string): Promise<boolean> {
   const r = await db
     .update(spools)

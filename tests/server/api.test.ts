@@ -367,6 +367,7 @@ describe('team materials library', () => {
     expect(before.body.summary.invalid).toBe(3);
     const up = await admin.post('/api/materials/import').field('source', 'Owner spec KX-1 rev B, table 4').attach('file', Buffer.from(csv), 'materials.csv');
     expect(up.status).toBe(201);
+    expect(up.body.rechecked).toBeGreaterThan(0);
     expect(up.body.items[0]).toMatchObject({ id: 'KX-CS-70', tensilePsi: 70_000, stress: [{ tempF: 100, value: 23_300 }, { tempF: 400 }, { tempF: 600, value: 20_000 }] });
     const after = await admin.post('/api/check').send(doc);
     expect(after.body.summary.invalid).toBe(0);
@@ -376,6 +377,9 @@ describe('team materials library', () => {
     const saved = await admin.post('/api/spools').send({ document: doc });
     expect(saved.body.summary.invalid).toBe(0);
     await admin.delete('/api/materials/KX-CS-70').expect(204);
+    // Stored summaries follow the library; the save counter does not move.
+    const reread = await admin.get(`/api/spools/${saved.body.id}`);
+    expect(reread.body).toMatchObject({ version: 1, summary: { invalid: 3 } });
     expect((await admin.post('/api/check').send(doc)).body.summary.invalid).toBe(3);
   });
 

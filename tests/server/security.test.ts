@@ -27,6 +27,17 @@ describe('sign-in rate limit', () => {
   });
 });
 
+describe('server faults', () => {
+  it('answers 500 with a generic message and no internals when the database is gone', async () => {
+    const t = await createTestApp();
+    const agent = await t.signIn('lead');
+    await t.database.close();
+    const r = await agent.get('/api/spools/some-id');
+    expect(r.status).toBe(500);
+    expect(r.body).toEqual({ error: { code: 'internal', message: 'Something went wrong on the server' } });
+  });
+});
+
 describe('origin checks', () => {
   let t: TestApp;
   beforeAll(async () => {
