@@ -65,9 +65,9 @@ export function createApp(deps: AppDeps) {
   // better-auth reads the raw body itself, so it is mounted before the JSON parser. Its rate
   // limiter keys on x-forwarded-for: set it from the socket so clients cannot pick their key.
   const authHandler = toNodeHandler(deps.auth);
-  app.all('/api/auth{/*any}', (req, res) => {
+  app.all('/api/auth{/*any}', (req, res, next) => {
     req.headers['x-forwarded-for'] = req.socket.remoteAddress ?? '127.0.0.1';
-    void authHandler(req, res);
+    authHandler(req, res).catch(next);
   });
 
   app.use('/api', (_req, res, next) => {

@@ -28,7 +28,7 @@ function templateKey(): string {
     const p = path.join(MIGRATIONS_DIR, f);
     if (fs.statSync(p).isFile()) h.update(f).update(fs.readFileSync(p));
   }
-  for (const f of ['server/db/seed.ts', 'server/db/demo-spools.ts', 'server/spools/check.ts']) h.update(fs.readFileSync(path.join(ROOT, f)));
+  for (const f of ['server/db/seed.ts', 'server/db/demo-spools.ts', 'server/spools/check.ts', 'server/spools/repo.ts']) h.update(fs.readFileSync(path.join(ROOT, f)));
   // The stored check summaries come from the engine, so its sources are part of the key.
   for (const dir of ['shared/engine', 'shared/data', 'shared/model']) {
     for (const f of fs.readdirSync(path.join(ROOT, dir)).sort()) {
