@@ -1,15 +1,18 @@
 import { createContext, useContext, useMemo, useState, type ReactNode } from 'react';
 import { useStore } from 'zustand';
-import { createSpoolChecker, type SpoolCheck } from '@shared/engine';
+import { createSpoolChecker, type CheckOptions, type SpoolCheck } from '@shared/engine';
 import type { SpoolDocument } from '@shared/model/spool';
 import { createSpoolStore, type SpoolStore, type SpoolStoreState } from './spool-store';
 
 const SpoolStoreContext = createContext<SpoolStore | null>(null);
+const CheckOptionsContext = createContext<CheckOptions | undefined>(undefined);
 
 export interface SpoolStoreProviderProps {
   /** A store made by the caller (e.g. to load server data into it); else one is made from `initial` once. */
   readonly store?: SpoolStore;
   readonly initial?: SpoolDocument;
+  /** Options of the derived check, e.g. `findMaterial` with the team's materials (keep the object stable). */
+  readonly checkOptions?: CheckOptions;
   readonly children: ReactNode;
 }
 
@@ -17,9 +20,13 @@ export interface SpoolStoreProviderProps {
  * Provides one editor store to the sketch page's canvas and panels. Remount (change `key`)
  * to start over with a new spool, or call `store.getState().load(doc)`.
  */
-export function SpoolStoreProvider({ store, initial, children }: SpoolStoreProviderProps) {
+export function SpoolStoreProvider({ store, initial, checkOptions, children }: SpoolStoreProviderProps) {
   const [own] = useState(() => store ?? createSpoolStore(initial));
-  return <SpoolStoreContext.Provider value={store ?? own}>{children}</SpoolStoreContext.Provider>;
+  return (
+    <SpoolStoreContext.Provider value={store ?? own}>
+      <CheckOptionsContext.Provider value={checkOptions}>{children}</CheckOptionsContext.Provider>
+    </SpoolStoreContext.Provider>
+  );
 }
 
 /** The store instance of the nearest provider (for imperative calls: `useSpoolStoreApi().getState().undo()`). */
@@ -39,15 +46,22 @@ export function useSpoolStore<T>(selector: (state: SpoolStoreState) => T): T {
   return useStore(useSpoolStoreApi(), selector);
 }
 
-// One memoising checker per store, shared by every component that reads the check: the
-// store keeps unchanged elements as the same objects, so only edited elements are re-checked.
-const checkers = new WeakMap<SpoolStore, { check: (doc: SpoolDocument) => SpoolCheck; doc?: SpoolDocument; result?: SpoolCheck }>();
+// One memoising checker per store (and check options), shared by every component that reads
+// the check: the store keeps unchanged elements as the same objects, so only edited elements
+// are re-checked.
+interface CheckerEntry {
+  readonly options: CheckOptions | undefined;
+  readonly check: (doc: SpoolDocument) => SpoolCheck;
+  doc?: SpoolDocument;
+  result?: SpoolCheck;
+}
+const checkers = new WeakMap<SpoolStore, CheckerEntry>();
 
 /** Check a document with the store's shared memoising checker. */
-export function checkWithStore(store: SpoolStore, doc: SpoolDocument): SpoolCheck {
+export function checkWithStore(store: SpoolStore, doc: SpoolDocument, options?: CheckOptions): SpoolCheck {
   let entry = checkers.get(store);
-  if (!entry) {
-    entry = { check: createSpoolChecker() };
+  if (!entry || entry.options !== options) {
+    entry = { options, check: createSpoolChecker(options) };
     checkers.set(store, entry);
   }
   if (entry.doc !== doc || !entry.result) {
@@ -57,9 +71,10 @@ export function checkWithStore(store: SpoolStore, doc: SpoolDocument): SpoolChec
   return entry.result;
 }
 
-/** The check of the current document (derived from the document with `checkSpool` semantics; never stored). */
+/** The check of the current document (`checkSpool` of the document, memoised; never stored). */
 export function useSpoolCheck(): SpoolCheck {
   const store = useSpoolStoreApi();
+  const options = useContext(CheckOptionsContext);
   const doc = useSpoolStore((s) => s.doc);
-  return useMemo(() => checkWithStore(store, doc), [store, doc]);
+  return useMemo(() => checkWithStore(store, doc, options), [store, doc, options]);
 }
