@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import type { SpoolDocument, SpoolElement } from '@shared/model/spool';
-import { buildSpoolPath, type BendSegment } from '@/features/sketch/geometry/spool-path';
+import { buildSpoolPath, legLengths, type BendSegment } from '@/features/sketch/geometry/spool-path';
 import { resolveBendRadius, tangentLength } from '@/features/sketch/geometry/pipe-size';
 import { add, norm, scale, sub, type Vec3 } from '@/features/sketch/geometry/vec';
 import { createSpoolStore } from '@/features/sketch/store/spool-store';
@@ -45,6 +45,14 @@ describe('buildSpoolPath', () => {
     expect(path.developedLength).toBeCloseTo(156 + 2 * (6 * Math.PI) / 2, 9);
     const arcs = path.segments.filter((s): s is BendSegment => s.kind === 'bend').map((b) => b.arcLength);
     expect(arcs).toEqual([3 * Math.PI, 3 * Math.PI]);
+  });
+
+  it('leg lengths add the bend tangents back to the cut lengths', () => {
+    expect([...legLengths(buildSpoolPath(drawnRun()))]).toEqual([
+      ['S1', 100],
+      ['S2', 50],
+      ['S3', 30],
+    ]);
   });
 
   it('bounding box grows the centreline by half the largest OD', () => {

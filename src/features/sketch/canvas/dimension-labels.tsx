@@ -22,10 +22,15 @@ export const ALL_LABEL_LIMIT = 400;
 
 const fmt = (v: number) => String(Math.round(v * 100) / 100);
 
-/** Label text of an element: cut length of a straight, angle and radius of a bend. */
-export function dimensionText(seg: PathSegment, units: UnitSystem): string {
+/**
+ * Label text of an element: a straight's cut length (and its leg length when bends take
+ * tangent from it), a bend's angle and radius.
+ */
+export function dimensionText(seg: PathSegment, units: UnitSystem, legLength?: number): string {
   const u = UNIT_LABELS[units].length;
-  return seg.kind === 'straight' ? `${fmt(seg.length)} ${u}` : `${fmt(seg.angleDeg)}° R${fmt(seg.radius)} ${u}`;
+  if (seg.kind === 'bend') return `${fmt(seg.angleDeg)}° R${fmt(seg.radius)} ${u}`;
+  const leg = legLength !== undefined && Math.abs(legLength - seg.length) > 1e-6 ? ` · leg ${fmt(legLength)}` : '';
+  return `${fmt(seg.length)} ${u}${leg}`;
 }
 
 /** Which segments get a label. */
@@ -52,6 +57,7 @@ export function dimensionLabels(
   mode: DimensionMode,
   selectedId: string | null,
   hoveredId: string | null,
+  legs?: ReadonlyMap<string, number>,
 ): ScreenLabel[] {
   return pickLabelled(segments, mode, selectedId, hoveredId).map((seg) => {
     const st = STATUS_STYLES[statuses.get(seg.id) ?? 'invalid'];
@@ -65,7 +71,7 @@ export function dimensionLabels(
           <span style={{ color: st.ink }} aria-label={st.label}>
             {st.glyph}
           </span>{' '}
-          <span className="text-steel-500">{seg.id}</span> {dimensionText(seg, units)}
+          <span className="text-steel-500">{seg.id}</span> {dimensionText(seg, units, legs?.get(seg.id))}
         </span>
       ),
     };

@@ -2,7 +2,7 @@ import { useCallback, useEffect, useMemo, useRef } from 'react';
 import { Canvas } from '@react-three/fiber';
 import { OrbitControls } from '@react-three/drei';
 import type { CheckStatus, SpoolCheck } from '@shared/engine/types';
-import { buildSpoolPath } from '../geometry/spool-path';
+import { buildSpoolPath, legLengths } from '../geometry/spool-path';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
 import { LabelOverlay, LabelProjector, dimensionLabels } from './dimension-labels';
 import { CHUNK_SIZE, ElementChunk, itemKey, type ChunkItem } from './element-chunks';
@@ -73,8 +73,8 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
   const registry = useRef(new Map<string, HTMLDivElement>());
   const axes = useMemo(() => axisLabels(path.bbox), [path.bbox]);
   const labels = useMemo(
-    () => [...axes, ...dimensionLabels(path.segments, statuses, doc.units, view.showDimensions, selectedId, hoveredId)],
-    [axes, path.segments, statuses, doc.units, view.showDimensions, selectedId, hoveredId],
+    () => [...axes, ...dimensionLabels(path.segments, statuses, doc.units, view.showDimensions, selectedId, hoveredId, legLengths(path))],
+    [axes, path, statuses, doc.units, view.showDimensions, selectedId, hoveredId],
   );
   const onHover = useCallback(
     (id: string | null) => {

@@ -273,3 +273,36 @@ export function boxSize(box: BoundingBox): Vec3 {
 
 /** Angle between two directions in degrees (re-exported for the store's turn checks). */
 export { angleBetweenDeg };
+
+/**
+ * Leg length (centreline intersection to intersection, or to the run's free end) of the leg
+ * each straight belongs to: its straights' cut lengths plus the tangent of the bend at each
+ * end of the leg. Keys are straight ids.
+ */
+export function legLengths(path: SpoolPath): Map<string, number> {
+  const out = new Map<string, number>();
+  const segs = path.segments;
+  let i = 0;
+  while (i < segs.length) {
+    const first = segs[i]!;
+    if (first.kind !== 'straight') {
+      i++;
+      continue;
+    }
+    let j = i;
+    let sum = 0;
+    while (j < segs.length) {
+      const s = segs[j]!;
+      if (s.kind !== 'straight' || (j > i && dot(s.dir, first.dir) < 1 - 1e-9)) break;
+      sum += s.length;
+      j++;
+    }
+    const before = segs[i - 1];
+    const after = segs[j];
+    if (before?.kind === 'bend') sum += before.tangent;
+    if (after?.kind === 'bend') sum += after.tangent;
+    for (let k = i; k < j; k++) out.set(segs[k]!.id, sum);
+    i = j;
+  }
+  return out;
+}
