@@ -95,3 +95,21 @@ describe('element inspector', () => {
     await waitFor(() => expect(store.getState().doc.elements.find((e) => e.id === 'S2')?.conditions).toEqual({ pressure: 400 }));
   });
 });
+
+describe('element form pickers', () => {
+  it('moves to a listed schedule when the new NPS does not list the chosen one', async () => {
+    const user = userEvent.setup();
+    const store = drawnStore();
+    store.getState().updateElement('S1', { schedule: '10S' }, { history: 'never' });
+    store.getState().select('S1');
+    renderWithStore(<ElementInspector />, store);
+    const schedule = screen.getByLabelText('Schedule') as HTMLSelectElement;
+    expect(schedule.value).toBe('10S');
+    // NPS 26 has no stainless (S) schedules in ASME B36.19M; the tables list 10, STD, 20, XS for it
+    await user.selectOptions(screen.getByLabelText('NPS'), '26');
+    await waitFor(() => expect(schedule.value).not.toBe('10S'));
+    await user.click(screen.getByRole('button', { name: 'Apply' }));
+    await waitFor(() => expect(store.getState().doc.elements.find((e) => e.id === 'S1')).toMatchObject({ nps: '26' }));
+    expect(store.getState().doc.elements.find((e) => e.id === 'S1')?.schedule).not.toBe('10S');
+  });
+});

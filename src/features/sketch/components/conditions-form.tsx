@@ -27,8 +27,10 @@ const PRODUCT_FORM_LABELS: Record<string, string> = {
   'furnace-butt': 'Furnace butt welded',
 };
 
-export const materialOptions = (emptyLabel: string) => [
+/** Library materials, plus the current value when it is not in the library (so it is never dropped silently). */
+export const materialOptions = (emptyLabel: string, current?: string) => [
   { value: '', label: emptyLabel },
+  ...(current && !MATERIALS.some((m) => m.id === current) ? [{ value: current, label: `${current} (not in the library)` }] : []),
   ...MATERIALS.map((m) => ({ value: m.id, label: `${m.spec} ${m.grade} — ${m.name}` })),
 ];
 
@@ -51,10 +53,12 @@ interface FieldsProps {
   /** Overrides: an empty field inherits; the placeholder shows the spool's value. */
   readonly inherited?: ConditionOverrides;
   readonly only?: readonly string[];
+  /** Material currently stored in this form (kept as an option when not in the library). */
+  readonly currentMaterial?: string;
 }
 
 /** The design-condition inputs, shared by the spool form and the element overrides. */
-export function ConditionInputs({ register, errors, disabled, inherited, only }: FieldsProps) {
+export function ConditionInputs({ register, errors, disabled, inherited, only, currentMaterial }: FieldsProps) {
   const units = useDisplayUnits();
   const shown = (name: string) => !only || only.includes(name);
   const placeholderOf = (name: keyof Conditions, quantity: 'length' | 'pressure' | 'temperature' | null) => {
@@ -86,7 +90,7 @@ export function ConditionInputs({ register, errors, disabled, inherited, only }:
           className="col-span-2"
           label="Material"
           disabled={disabled}
-          options={materialOptions(inherited ? `${inheritLabel}${inherited.material ? ` (${inherited.material})` : ''}` : 'choose a material…')}
+          options={materialOptions(inherited ? `${inheritLabel}${inherited.material ? ` (${inherited.material})` : ''}` : 'choose a material…', currentMaterial)}
           error={fieldMessage('Material', errors.material?.message)}
           {...register('material', { setValueAs: parseTextInput })}
         />
@@ -133,7 +137,7 @@ export function ConditionsForm({ conditions, onApply, readOnly }: ConditionsForm
 
   return (
     <form aria-label="Design conditions" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-3">
-      <ConditionInputs register={form.register} errors={form.formState.errors} disabled={readOnly} />
+      <ConditionInputs register={form.register} errors={form.formState.errors} disabled={readOnly} currentMaterial={conditions.material} />
       {readOnly ? null : (
         <div className="flex gap-2">
           <Button type="submit" variant="primary" size="sm" disabled={!form.formState.isDirty}>

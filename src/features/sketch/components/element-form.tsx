@@ -123,9 +123,19 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
   const scheduleChoices = useMemo(() => {
     const listed = typeof nps === 'string' && nps !== '' ? listPipeWalls(nps).map((w) => w.schedule) : [];
     const list = listed.length > 0 ? listed : [...SCHEDULES];
-    const current = defaults.schedule;
+    // The stored schedule stays on offer for the stored NPS even when the tables do not list it.
+    const current = nps === defaults.nps ? defaults.schedule : undefined;
     return current && !list.includes(current) ? [current, ...list] : list;
-  }, [nps, defaults.schedule]);
+  }, [nps, defaults.nps, defaults.schedule]);
+  // A new NPS may not list the chosen schedule: pick a listed one rather than show one and keep another.
+  const { getValues, setValue } = form;
+  useEffect(() => {
+    const current = getValues('schedule');
+    if (current !== undefined && !scheduleChoices.includes(current)) {
+      const fallback = scheduleChoices.find((s) => s === '40' || s === 'STD') ?? scheduleChoices[0];
+      if (fallback) setValue('schedule', fallback, { shouldDirty: true, shouldValidate: true });
+    }
+  }, [scheduleChoices, getValues, setValue]);
   const npsChoices = useMemo(() => {
     const current = defaults.nps;
     return current && !NPS_SIZES.includes(current) ? [current, ...NPS_SIZES] : [...NPS_SIZES];

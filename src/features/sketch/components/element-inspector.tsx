@@ -47,7 +47,13 @@ export function OverridesForm({
   const count = Object.keys(element.conditions ?? {}).length;
   return (
     <form aria-label="Element overrides" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-2">
-      <ConditionInputs register={form.register} errors={form.formState.errors} disabled={readOnly} inherited={inherited} />
+      <ConditionInputs
+        register={form.register}
+        errors={form.formState.errors}
+        disabled={readOnly}
+        inherited={inherited}
+        currentMaterial={element.conditions?.material}
+      />
       {readOnly ? null : (
         <div className="flex gap-2">
           <Button type="submit" size="sm" variant="primary" disabled={!form.formState.isDirty}>
