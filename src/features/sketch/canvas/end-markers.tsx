@@ -21,7 +21,7 @@ import { quaternionAlong } from './scene-math';
  * - weld: a dark bead ring where two straights meet;
  * - tangent: a thin light ring line where a straight meets a bend (the tangent point);
  * - open end: a flat dark disc on a plain free end of the run;
- * - bevel: a short light cone on a bevelled free end;
+ * - bevel: a short grey cone on a bevelled free end;
  * - threaded: three thin dark ring lines near the end of a threaded straight;
  * - grooved: one wider dark ring line a little in from the end of a grooved straight.
  * Each kind is one InstancedMesh or one line set, so the marks add a handful of draw calls at any size.
@@ -82,7 +82,7 @@ interface MarkerLook {
 const LOOKS: Partial<Record<MarkerKind, () => MarkerLook>> = {
   weld: () => ({ geometry: new TorusGeometry(1, 0.14, 3, 10).rotateX(Math.PI / 2), color: '#2b3440', grow: 0.52, offset: 0 }),
   open: () => ({ geometry: new CircleGeometry(1, 10).rotateX(-Math.PI / 2), color: '#364151', grow: 0.5, offset: 0.001 }),
-  bevel: () => ({ geometry: new CylinderGeometry(0.7, 1, 0.5, 10, 1, true), color: '#cbd3dc', grow: 0.5, offset: 0.12 }),
+  bevel: () => ({ geometry: new CylinderGeometry(0.72, 1.04, 0.6, 10, 1, true), color: '#74859a', grow: 0.5, offset: 0.15 }),
 };
 
 /** Ring marks drawn as line loops just outside the pipe (lines cost far less than triangles in software rendering). */

@@ -225,8 +225,8 @@ const sameElements = (a: readonly SpoolElement[], b: readonly SpoolElement[]) =>
  */
 export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
   const start = initial ?? createEmptyDocument();
-  // Element ids: S1, S2… for straights, B1, B2… for bends; the counters only rise during the
-  // store's life, so a deleted id is never reused (comments pinned to ids stay unambiguous).
+  // Element ids: S1, S2… for straights, B1, B2… for bends; the counters only rise until the
+  // next `load`, so an id deleted in this session is never reused (undo can bring it back).
   let counters: Counters = maxCounters(start);
   // Document at the start of an open gesture.
   let gestureBase: SpoolDocument | null = null;
@@ -317,8 +317,8 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
 
       load(doc, version = null) {
         gestureBase = null;
-        const loaded = maxCounters(doc);
-        counters = { S: Math.max(counters.S, loaded.S), B: Math.max(counters.B, loaded.B) };
+        // History is gone, so numbering restarts from the loaded document's highest ids.
+        counters = maxCounters(doc);
         set({
           doc,
           drawingPipe: pipeFromDoc(doc),
