@@ -58,6 +58,7 @@ export function createAuth(deps: { db: Db; config: ServerConfig; mailer: Mailer;
     advanced: {
       // Explicit, so the check does not depend on NODE_ENV (better-auth skips it under test).
       disableOriginCheck: !config.originCheck,
+      disableCSRFCheck: !config.originCheck,
       // The app sets x-forwarded-for from the socket address before auth sees the request.
       ipAddress: { ipAddressHeaders: ['x-forwarded-for'] },
       useSecureCookies: config.publicUrl.startsWith('https://'),
