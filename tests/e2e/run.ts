@@ -322,6 +322,12 @@ async function designerJourney(ctx: BrowserContext, base: string, shared: { spoo
         await page.locator(`[data-spool-id="${shared.spoolId}"]`).waitFor();
         const rowText = await page.locator(`[data-spool-id="${shared.spoolId}"]`).textContent();
         expect(rowText?.includes(shared.spoolName!), `register row reads "${rowText}"`);
+        // the weakest element links into the sketcher with that element selected
+        const worst = page.locator(`[data-spool-id="${shared.spoolId}"] a[href*="element="]`);
+        const worstId = (await worst.textContent())?.trim();
+        await worst.click();
+        await page.locator(`[data-testid="inspector"][data-element-id="${worstId}"]`).waitFor();
+        expect((await statusOf(page, worstId!)) === 'fail', `weakest element ${worstId} is ${await statusOf(page, worstId!)}`);
       });
     },
     DESIGNER_STEPS,

@@ -1,6 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
-import { useBlocker, useParams } from 'react-router-dom';
-import { useStore } from 'zustand';
+import { useBlocker, useParams, useSearchParams } from 'react-router-dom';
 import { findTransition, TRANSITIONS, type SpoolStatus } from '@shared/model/permissions';
 import { parseSpoolDocument, type Conditions, type FieldIssue, type SpoolDocument, type UnitSystem } from '@shared/model/spool';
 import { Button } from '@/components/ui/button';
@@ -424,7 +423,7 @@ function SketchScreen({ spool }: { spool: Spool }) {
                 </button>
               ))}
             </div>
-            <div className="min-h-0 flex-1 overflow-auto">{tab === 'element' ? <ElementInspector readOnly={!canEdit} /> : <ConditionsPanel readOnly={!canEdit} />}</div>
+            <div role="tabpanel" aria-label={tab === 'element' ? 'Selected element' : 'Design conditions'} className="min-h-0 flex-1 overflow-auto">{tab === 'element' ? <ElementInspector readOnly={!canEdit} /> : <ConditionsPanel readOnly={!canEdit} />}</div>
           </aside>
         </div>
       </div>
@@ -432,16 +431,17 @@ function SketchScreen({ spool }: { spool: Spool }) {
   );
 }
 
-function SketchWorkspace({ initial }: { initial: Spool }) {
+function SketchWorkspace({ initial, selectId }: { initial: Spool; selectId: string | null }) {
   const [store] = useState<SpoolStore>(() => {
     const s = createSpoolStore(initial.document);
     s.getState().load(initial.document, initial.version);
+    // `?element=B1` (e.g. from the register's weakest-element link) opens with it selected.
+    if (selectId && initial.document.elements.some((e) => e.id === selectId)) s.getState().select(selectId);
     return s;
   });
   // Status, revision and version follow the query cache (saves and transitions update it).
   const { data } = useSpool(initial.id);
   const spool = data ?? initial;
-  useStore(store, (s) => s.savedVersion);
   return (
     <SpoolStoreProvider store={store}>
       <SketchScreen spool={spool} />
@@ -452,6 +452,7 @@ function SketchWorkspace({ initial }: { initial: Spool }) {
 /** The sketcher screen: drawing bar, canvas, element list and inspector for one spool. */
 export function SketchPage() {
   const { spoolId = '' } = useParams();
+  const [params] = useSearchParams();
   const query = useSpool(spoolId);
   if (query.isPending) return <LoadingLine label="Opening the spool…" />;
   if (query.isError)
@@ -460,5 +461,5 @@ export function SketchPage() {
         <ErrorLine error={query.error} />
       </div>
     );
-  return <SketchWorkspace key={query.data.id} initial={query.data} />;
+  return <SketchWorkspace key={query.data.id} initial={query.data} selectId={params.get('element')} />;
 }

@@ -38,7 +38,13 @@ const columns: ColumnDef<SpoolSummary>[] = [
       row.original.worst ? (
         <span className="flex items-center gap-2">
           <CheckBadge status={row.original.worst.status} />
-          <code className="text-xs text-steel-500">{row.original.worst.elementId}</code>
+          <Link
+            to={`/spools/${row.original.id}?element=${encodeURIComponent(row.original.worst.elementId)}`}
+            className="font-mono text-xs text-steel-500 hover:text-copper-600 hover:underline"
+            title="Open the spool with this element selected"
+          >
+            {row.original.worst.elementId}
+          </Link>
         </span>
       ) : (
         <span className="text-xs text-steel-400">no elements</span>
