@@ -85,6 +85,8 @@ interface Row {
   antialias: boolean;
   firstFrameMs: number;
   fps: number;
+  /** Mean time in three.js render() per frame. */
+  renderMs: number;
   editMs: number[];
   calls: number;
   triangles: number;
@@ -97,7 +99,7 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
   await page.waitForFunction(() => (window.__spoolwright?.frames ?? 0) > 0, undefined, { timeout: 120_000 });
   const firstFrameMs = Date.now() - t0;
   // Warm up, then orbit for `seconds`, one small step per animation frame.
-  const fps = await page.evaluate(async (secs) => {
+  const { fps, renderMs } = await page.evaluate(async (secs) => {
     const hooks = window.__spoolwright!;
     const orbit = (ms: number) =>
       new Promise<number>((done) => {
@@ -115,7 +117,21 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
         requestAnimationFrame(tick);
       });
     await orbit(800);
-    return orbit(secs * 1000);
+    // Time spent in three.js render calls (JS + queuing GL commands; the software rasteriser
+    // runs in Chromium's GPU process beside it).
+    const renderer = hooks.renderer as unknown as { render: (...a: unknown[]) => void };
+    const original = renderer.render;
+    let renderMs = 0;
+    let renders = 0;
+    renderer.render = function (this: unknown, ...a: unknown[]) {
+      const t = performance.now();
+      original.apply(this, a);
+      renderMs += performance.now() - t;
+      renders++;
+    };
+    const result = await orbit(secs * 1000);
+    renderer.render = original;
+    return { fps: result, renderMs: renders ? renderMs / renders : 0 };
   }, seconds);
   const info = await page.evaluate(() => {
     window.__spoolwright!.fit();
@@ -177,7 +193,7 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
     }
     await page.mouse.move(1, 1);
   }
-  return { elements: n, picked, antialias: aa, firstFrameMs, fps, editMs, calls: info.calls, triangles: info.triangles, renderer: info.renderer };
+  return { elements: n, picked, antialias: aa, firstFrameMs, fps, renderMs, editMs, calls: info.calls, triangles: info.triangles, renderer: info.renderer };
 }
 
 const median = (xs: number[]) => {
@@ -222,12 +238,12 @@ async function main() {
   }
   console.log(`\nrenderer: ${rows[0]?.renderer ?? '?'}; canvas 1280×720 CSS px, DPR 1; orbit ${seconds} s per row`);
   console.log(`load average (1 min) before/after: ${loadBefore.toFixed(2)} / ${loadavg()[0]!.toFixed(2)} on a machine with 2 cores`);
-  console.log('| elements | antialias | first frame (ms) | fps orbiting | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles | click picks right |');
-  console.log('|---:|:---:|---:|---:|---:|---:|---:|---:|---:|');
+  console.log('| elements | antialias | first frame (ms) | fps orbiting | render() JS ms/frame | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles | click picks right |');
+  console.log('|---:|:---:|---:|---:|---:|---:|---:|---:|---:|---:|');
   for (const r of rows) {
     const finite = r.editMs.filter(Number.isFinite);
     console.log(
-      `| ${r.elements} | ${r.antialias ? 'on' : 'off'} | ${r.firstFrameMs} | ${r.fps.toFixed(1)} | ${median(r.editMs).toFixed(0)} | ${finite.length ? Math.max(...finite).toFixed(0) : 'n/a'} | ${r.calls} | ${r.triangles} | ${r.antialias ? '' : `${r.picked[0]}/${r.picked[1]}`} |`,
+      `| ${r.elements} | ${r.antialias ? 'on' : 'off'} | ${r.firstFrameMs} | ${r.fps.toFixed(1)} | ${r.renderMs.toFixed(1)} | ${median(r.editMs).toFixed(0)} | ${finite.length ? Math.max(...finite).toFixed(0) : 'n/a'} | ${r.calls} | ${r.triangles} | ${r.antialias ? '' : `${r.picked[0]}/${r.picked[1]}`} |`,
     );
   }
 }

@@ -37,6 +37,8 @@ export interface SpoolwrightCanvasHooks {
   readPixel(x: number, y: number): [number, number, number, number] | null;
   /** The editor store behind the canvas. */
   readonly store: SpoolStore;
+  /** The three.js renderer (benchmarks wrap its `render` to time it). */
+  readonly renderer: { render(...args: never[]): void };
   /** WebGL renderer string and draw statistics of the last frame. */
   info(): { renderer: string; calls: number; triangles: number };
 }
@@ -171,6 +173,7 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
         return [out[0]!, out[1]!, out[2]!, out[3]!];
       },
       store,
+      renderer: gl as unknown as SpoolwrightCanvasHooks['renderer'],
       info() {
         const ctx = gl.getContext();
         const ext = ctx.getExtension('WEBGL_debug_renderer_info');
