@@ -45,6 +45,11 @@ export function wrapPglite(client: PGlite, onClose?: () => void): Database {
 /** Connect to a PostgreSQL server. */
 export function openPostgres(url: string): Database {
   const pool = new pg.Pool({ connectionString: url, max: 10 });
+  // An idle connection the server ends (restart, admin termination) is reported here; without a
+  // listener it would crash the process. The pool drops that client and reconnects on demand.
+  pool.on('error', (err) => {
+    process.emitWarning(`PostgreSQL idle connection closed: ${err.message}`);
+  });
   const db = drizzlePg({ client: pool, schema }) as unknown as Db;
   return {
     db,
