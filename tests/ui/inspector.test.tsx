@@ -113,3 +113,20 @@ describe('element form pickers', () => {
     expect(store.getState().doc.elements.find((e) => e.id === 'S1')?.schedule).not.toBe('10S');
   });
 });
+
+describe('inputs and their sources', () => {
+  it('flags values recalled from memory', async () => {
+    const user = userEvent.setup();
+    const store = drawnStore();
+    // A106 B at 800 °F: S comes from the rows the materials table marks as from memory
+    store.getState().setConditions({ temperature: 800 }, { history: 'never' });
+    store.getState().select('S1');
+    renderWithStore(<ElementInspector />, store);
+    await user.click(screen.getByText('Inputs and their sources'));
+    const table = screen.getByTestId('inputs-table');
+    const sRow = [...table.querySelectorAll('tr')].find((tr) => tr.querySelector('td')?.textContent === 'S')!;
+    expect(sRow.textContent).toContain('from memory — verify');
+    const dRow = [...table.querySelectorAll('tr')].find((tr) => tr.querySelector('td')?.textContent === 'D')!;
+    expect(dRow.textContent).not.toContain('from memory — verify');
+  });
+});
