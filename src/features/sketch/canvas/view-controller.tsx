@@ -68,6 +68,10 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
   const frames = useRef(0);
   const pathRef = useRef(path);
   pathRef.current = path;
+  // Read at fit time: a resize keeps the user's view (the camera frustum follows the size).
+  const sizeRef = useRef(size);
+  sizeRef.current = size;
+  const hasSize = size.width > 0 && size.height > 0;
 
   useFrame(() => {
     frames.current++;
@@ -96,19 +100,20 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
           w = Math.max(w, Math.abs(p.x - c.x) * 2);
           h = Math.max(h, Math.abs(p.y - c.y) * 2);
         }
-    camera.zoom = Math.max(1e-4, 0.85 * Math.min(size.width / Math.max(w, 1e-6), size.height / Math.max(h, 1e-6)));
+    const { width, height } = sizeRef.current;
+    camera.zoom = Math.max(1e-4, 0.85 * Math.min(width / Math.max(w, 1e-6), height / Math.max(h, 1e-6)));
     camera.updateProjectionMatrix();
     if (controls) {
       controls.target.copy(target);
       controls.update();
     }
     invalidate();
-  }, [camera, controls, scale, size.width, size.height, invalidate]);
+  }, [camera, controls, scale, invalidate]);
 
-  // Fit on mount / resize / controls ready and on each request.
+  // Fit once the canvas has a size and the controls exist, and on each request.
   useLayoutEffect(() => {
-    fit();
-  }, [fit, fitRequest]);
+    if (hasSize) fit();
+  }, [fit, fitRequest, hasSize]);
 
   // Fit when the first element appears (a new spool starts empty).
   const count = path.segments.length;
