@@ -50,3 +50,22 @@ describe('drawing bar', () => {
     expect(screen.getByTestId('view-only')).toBeTruthy();
   });
 });
+
+describe('sketch tools', () => {
+  it('sets dimension labels and edge smoothing in the store, and F asks for a fit', async () => {
+    const { CanvasTools } = await import('@/features/sketch/components/canvas-tools');
+    const user = userEvent.setup();
+    const store = drawnStore();
+    renderWithStore(<CanvasTools />, store);
+    await user.click(screen.getByRole('button', { name: /View/ }));
+    await user.click(screen.getByLabelText('on every element'));
+    expect(store.getState().view.showDimensions).toBe('all');
+    await user.click(screen.getByLabelText(/smooth edges/));
+    expect(store.getState().view.antialias).toBe(true);
+    const before = store.getState().view.fitRequest;
+    await user.keyboard('f');
+    expect(store.getState().view.fitRequest).toBe(before + 1);
+    await user.keyboard('?');
+    expect(screen.getByRole('dialog', { name: 'Sketcher keys' }).textContent).toContain('Ctrl + Z');
+  });
+});

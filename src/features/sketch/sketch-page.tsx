@@ -13,6 +13,7 @@ import { cn } from '@/lib/cn';
 import { createSpoolStore, type SpoolStore } from './store/spool-store';
 import { SpoolStoreProvider, useSpoolCheck, useSpoolStore, useSpoolStoreApi } from './store/spool-store-context';
 import { CanvasSlot } from './components/canvas-slot';
+import { CanvasTools } from './components/canvas-tools';
 import { ConditionsPanel } from './components/conditions-panel';
 import { ConflictPanel } from './components/conflict-panel';
 import { DisplayUnitsProvider, readStoredDisplayUnits, storeDisplayUnits } from './components/display-units';
@@ -116,11 +117,12 @@ function SketchScreen({ spool }: { spool: Spool }) {
             </button>
           </div>
         ) : null}
-        <DrawingBar canEdit={canEdit} onSave={save} onFit={() => api.getState().requestFit()} />
+        <DrawingBar canEdit={canEdit} onSave={save} />
         <div className="flex min-h-0 flex-1">
           <div className="flex min-w-0 flex-1 flex-col">
             <div className="relative min-h-0 flex-1">
               <CanvasSlot />
+              <CanvasTools />
             </div>
             <CautionNote className="shrink-0 rounded-none border-t border-steel-200" />
             <div className="h-56 shrink-0 border-t border-steel-200 bg-white">

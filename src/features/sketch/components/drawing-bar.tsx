@@ -8,7 +8,7 @@ import { cn } from '@/lib/cn';
 import { FALLBACK_BEND_RADIUS } from '../geometry/pipe-size';
 import { useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
 import { useDisplayUnits } from './display-units';
-import { DIRECTION_KEYS, KEY_HELP, useSketchKeys } from './sketch-keys';
+import { DIRECTION_KEYS, useSketchKeys } from './sketch-keys';
 
 const DIRECTION_LABELS: Record<Direction, string> = {
   north: 'North',
@@ -28,40 +28,13 @@ export interface DrawingBarProps {
   /** False for members who may not edit: only view keys (fit, help, Esc) stay. */
   readonly canEdit: boolean;
   readonly onSave?: () => void;
-  readonly onFit?: () => void;
-}
-
-/** Key map popover. */
-function KeyHelp({ open, onClose }: { open: boolean; onClose: () => void }) {
-  if (!open) return null;
-  return (
-    <div role="dialog" aria-label="Sketcher keys" className="absolute top-full right-0 z-20 mt-1 w-96 rounded-lg border border-steel-200 bg-white p-3 shadow-lg">
-      <div className="mb-2 flex items-center justify-between">
-        <h3 className="text-sm font-semibold text-steel-800">Keys</h3>
-        <Button size="sm" variant="ghost" onClick={onClose} aria-label="Close key list">
-          ✕
-        </Button>
-      </div>
-      <table className="w-full text-xs">
-        <tbody>
-          {KEY_HELP.map((k) => (
-            <tr key={k.keys} className="border-t border-steel-100">
-              <td className="py-1 pr-2 font-mono whitespace-nowrap text-steel-800">{k.keys}</td>
-              <td className="py-1 text-steel-600">{k.what}</td>
-            </tr>
-          ))}
-        </tbody>
-      </table>
-      <p className="mt-2 text-[11px] text-steel-500">Keys work while the focus is not in a text field. The leg length comes from the length box.</p>
-    </div>
-  );
 }
 
 /**
  * The drawing bar: pipe size of the run, leg length, the six direction buttons, undo/redo,
- * delete, insert-after and the key list. Refused edits are reported under the bar.
+ * delete and insert-after. Refused edits are reported under the bar.
  */
-export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
+export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
   const api = useSpoolStoreApi();
   const units = useDisplayUnits();
   const drawingPipe = useSpoolStore((s) => s.drawingPipe);
@@ -74,7 +47,6 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
   const [lengthText, setLengthText] = useState(() => (units.display === 'metric' ? '1000' : '36'));
   const [insertAfter, setInsertAfter] = useState(false);
   const [notice, setNotice] = useState<Notice | null>(null);
-  const [helpOpen, setHelpOpen] = useState(false);
   const lastUnits = useRef(units.display);
   // Switching display units converts the length being typed, so the same leg is drawn.
   useEffect(() => {
@@ -137,13 +109,8 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
     onUndo: canEdit ? () => api.getState().undo() : undefined,
     onRedo: canEdit ? () => api.getState().redo() : undefined,
     onDelete: canEdit ? deleteSelected : undefined,
-    onEscape: () => {
-      api.getState().select(null);
-      setHelpOpen(false);
-    },
-    onFit,
+    onEscape: () => api.getState().select(null),
     onSave,
-    onHelp: () => setHelpOpen((o) => !o),
   });
 
   return (
@@ -270,17 +237,6 @@ export function DrawingBar({ canEdit, onSave, onFit }: DrawingBarProps) {
             View only: your role can read this spool and its checks but not change it.
           </p>
         )}
-        <div className="relative ml-auto flex items-center gap-1">
-          {onFit ? (
-            <Button onClick={onFit} title="Fit the spool in view (F)">
-              Fit
-            </Button>
-          ) : null}
-          <Button onClick={() => setHelpOpen((o) => !o)} aria-expanded={helpOpen} title="Keys (?)">
-            Keys ?
-          </Button>
-          <KeyHelp open={helpOpen} onClose={() => setHelpOpen(false)} />
-        </div>
       </div>
       {notice ? (
         <div
