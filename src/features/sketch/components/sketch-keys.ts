@@ -38,7 +38,12 @@ export interface SketchKeyHandlers {
 const isTyping = (target: EventTarget | null) => {
   const el = target as HTMLElement | null;
   if (!el || typeof el.tagName !== 'string') return false;
-  return el.isContentEditable || ['INPUT', 'SELECT', 'TEXTAREA'].includes(el.tagName);
+  if (el.tagName === 'INPUT') {
+    // A focused checkbox or button-like input takes no typing; radios use the arrow keys.
+    const type = (el as HTMLInputElement).type;
+    return !['checkbox', 'button', 'submit', 'reset', 'file', 'color'].includes(type);
+  }
+  return el.isContentEditable || ['SELECT', 'TEXTAREA'].includes(el.tagName);
 };
 
 /** Listen for the sketcher's keys on the window; ignored while the user types in a field. */
