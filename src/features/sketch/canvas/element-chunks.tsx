@@ -3,7 +3,7 @@ import type { ThreeEvent } from '@react-three/fiber';
 import { BufferAttribute, BufferGeometry, Matrix4, Quaternion, Vector3 } from 'three';
 import type { CheckStatus } from '@shared/engine/types';
 import { statusMaterial } from './materials';
-import { createBendGeometry, createStraightGeometry } from './pipe-geometry';
+import { bakeLighting, createBendGeometry, createStraightGeometry } from './pipe-geometry';
 import type { MeshSpec } from './scene-math';
 
 /*
@@ -34,13 +34,14 @@ const pos = new Vector3();
 const quat = new Quaternion();
 const one = new Vector3(1, 1, 1);
 
-/** An element's geometry placed in the scene (document units). */
-export function worldGeometry(spec: MeshSpec): BufferGeometry {
-  const g = spec.kind === 'straight' ? createStraightGeometry(spec.od, spec.size) : createBendGeometry(spec.od, spec.size, spec.arc);
+/** An element's geometry placed in the scene (document units), with baked lighting; `grow` scales the OD. */
+export function worldGeometry(spec: MeshSpec, grow = 1): BufferGeometry {
+  const od = spec.od * grow;
+  const g = spec.kind === 'straight' ? createStraightGeometry(od, spec.size) : createBendGeometry(od, spec.size, spec.arc);
   pos.set(spec.position[0], spec.position[1], spec.position[2]);
   quat.set(spec.quaternion[0], spec.quaternion[1], spec.quaternion[2], spec.quaternion[3]);
   g.applyMatrix4(m4.compose(pos, quat, one));
-  return g;
+  return bakeLighting(g);
 }
 
 export interface Range {
@@ -49,7 +50,7 @@ export interface Range {
   readonly endTriangle: number;
 }
 
-/** Concatenate indexed position/normal/uv geometries; returns the merged geometry and triangle ranges. */
+/** Concatenate indexed position/normal/uv/colour geometries; returns the merged geometry and triangle ranges. */
 export function mergeElementGeometries(parts: readonly { id: string; geometry: BufferGeometry }[]): { geometry: BufferGeometry; ranges: Range[] } {
   let vertices = 0;
   let indices = 0;
@@ -60,6 +61,7 @@ export function mergeElementGeometries(parts: readonly { id: string; geometry: B
   const position = new Float32Array(vertices * 3);
   const normal = new Float32Array(vertices * 3);
   const uv = new Float32Array(vertices * 2);
+  const color = new Float32Array(vertices * 3);
   const index = vertices > 65535 ? new Uint32Array(indices) : new Uint16Array(indices);
   const ranges: Range[] = [];
   let v = 0;
@@ -70,6 +72,7 @@ export function mergeElementGeometries(parts: readonly { id: string; geometry: B
     position.set(g.getAttribute('position').array as Float32Array, v * 3);
     normal.set(g.getAttribute('normal').array as Float32Array, v * 3);
     uv.set(g.getAttribute('uv').array as Float32Array, v * 2);
+    color.set(g.getAttribute('color').array as Float32Array, v * 3);
     const src = g.getIndex()!.array;
     for (let k = 0; k < src.length; k++) index[i + k] = src[k]! + v;
     v += n;
@@ -80,6 +83,7 @@ export function mergeElementGeometries(parts: readonly { id: string; geometry: B
   merged.setAttribute('position', new BufferAttribute(position, 3));
   merged.setAttribute('normal', new BufferAttribute(normal, 3));
   merged.setAttribute('uv', new BufferAttribute(uv, 2));
+  merged.setAttribute('color', new BufferAttribute(color, 3));
   merged.setIndex(new BufferAttribute(index, 1));
   merged.computeBoundingSphere();
   merged.computeBoundingBox();

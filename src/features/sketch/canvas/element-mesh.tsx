@@ -3,6 +3,7 @@ import type { CheckStatus } from '@shared/engine/types';
 import { plainMaterial, statusMaterial, type Highlight } from './materials';
 import { createBendGeometry, createStraightGeometry } from './pipe-geometry';
 import type { MeshSpec } from './scene-math';
+import { worldGeometry } from './element-chunks';
 import { SELECTION_COLOR } from './status-style';
 
 export interface HighlightMeshProps {
@@ -26,16 +27,9 @@ function useSpecGeometry(spec: MeshSpec, grow = 1) {
  * over the merged chunk (it takes no pointer events: the chunk below does the picking).
  */
 export function HighlightMesh({ spec, status, highlight }: HighlightMeshProps) {
-  const geometry = useSpecGeometry(spec, 1.06);
-  return (
-    <mesh
-      geometry={geometry}
-      material={statusMaterial(status, highlight)}
-      position={spec.position as [number, number, number]}
-      quaternion={spec.quaternion as [number, number, number, number]}
-      raycast={() => null}
-    />
-  );
+  const geometry = useMemo(() => worldGeometry(spec, 1.06), [spec]);
+  useEffect(() => () => geometry.dispose(), [geometry]);
+  return <mesh geometry={geometry} material={statusMaterial(status, highlight)} raycast={() => null} />;
 }
 
 /** A dark shell behind the selected element (drawn from the inside, so it reads as an outline). */

@@ -1,6 +1,6 @@
-import { BackSide, Color, DataTexture, FrontSide, MeshLambertMaterial, RGBAFormat, RepeatWrapping, SRGBColorSpace, type Material } from 'three';
+import { BackSide, Color, DataTexture, FrontSide, MeshBasicMaterial, MeshLambertMaterial, RGBAFormat, RepeatWrapping, SRGBColorSpace, type Material } from 'three';
 import type { CheckStatus } from '@shared/engine/types';
-import { HOVER_EMISSIVE, SELECTED_EMISSIVE, STATUS_STYLES, type StatusPattern } from './status-style';
+import { HOVER_LIGHTEN, SELECTED_LIGHTEN, STATUS_STYLES, type StatusPattern } from './status-style';
 
 /*
  * Shared textures and materials: one pattern texture per status pattern and one material per
@@ -59,18 +59,23 @@ export function patternTexture(pattern: StatusPattern): DataTexture {
 }
 
 export type Highlight = 'none' | 'hover' | 'selected';
-const materials = new Map<string, MeshLambertMaterial>();
+const materials = new Map<string, MeshBasicMaterial>();
 
-/** The shared material of a status in a highlight state. */
-export function statusMaterial(status: CheckStatus, highlight: Highlight = 'none'): MeshLambertMaterial {
+/**
+ * The shared material of a status in a highlight state: unlit, shaded by the geometry's baked
+ * vertex colours (see `bakeLighting`), patterned by the status texture; highlights lighten it.
+ */
+export function statusMaterial(status: CheckStatus, highlight: Highlight = 'none'): MeshBasicMaterial {
   const key = `${status}:${highlight}`;
   let m = materials.get(key);
   if (m) return m;
   const style = STATUS_STYLES[status];
-  m = new MeshLambertMaterial({
-    color: new Color(style.color),
+  const color = new Color(style.color);
+  if (highlight !== 'none') color.lerp(new Color('#ffffff'), highlight === 'hover' ? HOVER_LIGHTEN : SELECTED_LIGHTEN);
+  m = new MeshBasicMaterial({
+    color,
+    vertexColors: true,
     map: style.pattern === 'solid' ? null : patternTexture(style.pattern),
-    emissive: new Color(highlight === 'hover' ? HOVER_EMISSIVE : highlight === 'selected' ? SELECTED_EMISSIVE : '#000000'),
   });
   materials.set(key, m);
   return m;

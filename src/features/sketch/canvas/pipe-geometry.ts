@@ -1,4 +1,4 @@
-import { CylinderGeometry, TorusGeometry, type BufferGeometry } from 'three';
+import { BufferAttribute, CylinderGeometry, TorusGeometry, Vector3, type BufferGeometry } from 'three';
 
 /*
  * Low-polygon pipe geometry: software WebGL is vertex-bound, so pipes use few radial segments.
@@ -38,5 +38,31 @@ export function createBendGeometry(od: number, radius: number, arc: number): Buf
     uv.setXY(i, v * AROUND_TILES, u * along);
   }
   uv.needsUpdate = true;
+  return g;
+}
+
+/** Fixed light of the sketch in world axes (from above, south-east of the spool). */
+export const LIGHT_DIRECTION = new Vector3(0.4, 1, 0.7).normalize();
+const AMBIENT = 0.62;
+const DIFFUSE = 0.5;
+
+/**
+ * Bake diffuse lighting of the fixed world light into a vertex colour (grey scale) of a
+ * geometry already placed in world axes. The pipes then draw with an unlit material: the
+ * software rasteriser is fill-bound, and an unlit textured fragment is several times cheaper
+ * than a lit one. The light does not move with the camera, so the baked shading stays right
+ * while orbiting.
+ */
+export function bakeLighting(g: BufferGeometry): BufferGeometry {
+  const normal = g.getAttribute('normal');
+  const colors = new Float32Array(normal.count * 3);
+  for (let i = 0; i < normal.count; i++) {
+    const d = normal.getX(i) * LIGHT_DIRECTION.x + normal.getY(i) * LIGHT_DIRECTION.y + normal.getZ(i) * LIGHT_DIRECTION.z;
+    const k = Math.min(1, AMBIENT + DIFFUSE * Math.max(0, d));
+    colors[i * 3] = k;
+    colors[i * 3 + 1] = k;
+    colors[i * 3 + 2] = k;
+  }
+  g.setAttribute('color', new BufferAttribute(colors, 3));
   return g;
 }

@@ -35,8 +35,9 @@ export const STATUS_ORDER: readonly CheckStatus[] = ['pass', 'marginal', 'fail',
 
 /** Highlight colours (selection outline, hover tint). */
 export const SELECTION_COLOR = '#1d232c';
-export const HOVER_EMISSIVE = '#3a3a3a';
-export const SELECTED_EMISSIVE = '#202020';
+/** How far toward white a hovered / selected element's colour moves (0…1). */
+export const HOVER_LIGHTEN = 0.3;
+export const SELECTED_LIGHTEN = 0.15;
 export const BACKGROUND_COLOR = '#f4f6f8';
 
 /** A CSS background that draws a status's pattern on a swatch (for legends and badges). */
