@@ -96,7 +96,9 @@ interface Row {
 async function measure(page: Page, base: string, n: number, aa: boolean): Promise<Row> {
   const t0 = Date.now();
   await page.goto(`${base}/${entry}?n=${n}&aa=${aa ? 1 : 0}&labels=${labels}`);
-  await page.waitForFunction(() => (window.__spoolwright?.frames ?? 0) > 0, undefined, { timeout: 120_000 });
+  await page.waitForFunction(() => (window.__spoolwright?.frames ?? 0) > 0, undefined, {
+    timeout: 120_000,
+  });
   const firstFrameMs = Date.now() - t0;
   // Warm up, then orbit for `seconds`, one small step per animation frame.
   const { fps, renderMs } = await page.evaluate(async (secs) => {
@@ -155,7 +157,9 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
     // A 5 × 5 patch around the mid-point: thin pipes may be only a few pixels wide.
     const patch = (x: number, y: number) => {
       const out: string[] = [];
-      for (let dx = -2; dx <= 2; dx++) for (let dy = -2; dy <= 2; dy++) out.push((hooks.readPixel(x + dx, y + dy) ?? []).join(','));
+      for (let dx = -2; dx <= 2; dx++)
+        for (let dy = -2; dy <= 2; dy++)
+          out.push((hooks.readPixel(x + dx, y + dy) ?? []).join(','));
       return out.join(';');
     };
     for (let i = 0; i < count; i++) {
@@ -181,7 +185,9 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
   // Picking: click up to 60 elements (evenly spread) at their projected points.
   let picked: [number, number] = [0, 0];
   if (!aa) {
-    const ids = await page.evaluate(() => window.__spoolwright!.store.getState().doc.elements.map((e) => e.id));
+    const ids = await page.evaluate(() =>
+      window.__spoolwright!.store.getState().doc.elements.map((e) => e.id),
+    );
     const stride = Math.max(1, Math.floor(ids.length / 60));
     for (let i = 0; i < ids.length; i += stride) {
       const id = ids[i]!;
@@ -193,7 +199,18 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
     }
     await page.mouse.move(1, 1);
   }
-  return { elements: n, picked, antialias: aa, firstFrameMs, fps, renderMs, editMs, calls: info.calls, triangles: info.triangles, renderer: info.renderer };
+  return {
+    elements: n,
+    picked,
+    antialias: aa,
+    firstFrameMs,
+    fps,
+    renderMs,
+    editMs,
+    calls: info.calls,
+    triangles: info.triangles,
+    renderer: info.renderer,
+  };
 }
 
 const median = (xs: number[]) => {
@@ -236,9 +253,15 @@ async function main() {
     await browser.close();
     server.close();
   }
-  console.log(`\nrenderer: ${rows[0]?.renderer ?? '?'}; canvas 1280×720 CSS px, DPR 1; orbit ${seconds} s per row`);
-  console.log(`load average (1 min) before/after: ${loadBefore.toFixed(2)} / ${loadavg()[0]!.toFixed(2)} on a machine with 2 cores`);
-  console.log('| elements | antialias | first frame (ms) | fps orbiting | render() JS ms/frame | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles | click picks right |');
+  console.log(
+    `\nrenderer: ${rows[0]?.renderer ?? '?'}; canvas 1280×720 CSS px, DPR 1; orbit ${seconds} s per row`,
+  );
+  console.log(
+    `load average (1 min) before/after: ${loadBefore.toFixed(2)} / ${loadavg()[0]!.toFixed(2)} on a machine with 2 cores`,
+  );
+  console.log(
+    '| elements | antialias | first frame (ms) | fps orbiting | render() JS ms/frame | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles | click picks right |',
+  );
   console.log('|---:|:---:|---:|---:|---:|---:|---:|---:|---:|---:|');
   for (const r of rows) {
     const finite = r.editMs.filter(Number.isFinite);

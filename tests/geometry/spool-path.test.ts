@@ -1,6 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import type { SpoolDocument, SpoolElement } from '@shared/model/spool';
-import { buildSpoolPath, legLengths, type BendSegment } from '@/features/sketch/geometry/spool-path';
+import {
+  buildSpoolPath,
+  legLengths,
+  type BendSegment,
+} from '@/features/sketch/geometry/spool-path';
 import { resolveBendRadius, tangentLength } from '@/features/sketch/geometry/pipe-size';
 import { add, norm, scale, sub, type Vec3 } from '@/features/sketch/geometry/vec';
 import { createSpoolStore } from '@/features/sketch/store/spool-store';
@@ -11,7 +15,12 @@ const OD_2IN = 2.375; // ASME B36.10M Table 1: NPS 2 OD 2.375 in
 
 // east 100, north 50, up 30 (leg lengths, intersection to intersection), 2" bends of 3D = 6 in.
 const drawnRun = (): SpoolDocument => {
-  const store = createSpoolStore({ units: 'imperial', conditions, defaultBendRadius: { multipleOfD: 3 }, elements: [] });
+  const store = createSpoolStore({
+    units: 'imperial',
+    conditions,
+    defaultBendRadius: { multipleOfD: 3 },
+    elements: [],
+  });
   const s = store.getState();
   s.startRun({ nps: '2', schedule: '40' });
   s.addLeg('east', 100);
@@ -42,8 +51,10 @@ describe('buildSpoolPath', () => {
   it('developed centreline length = Σ straights + Σ bend arcs R·θ', () => {
     const path = buildSpoolPath(drawnRun());
     // 94 + 38 + 24 straight, two quarter circles of R = 6 in.
-    expect(path.developedLength).toBeCloseTo(156 + 2 * (6 * Math.PI) / 2, 9);
-    const arcs = path.segments.filter((s): s is BendSegment => s.kind === 'bend').map((b) => b.arcLength);
+    expect(path.developedLength).toBeCloseTo(156 + (2 * (6 * Math.PI)) / 2, 9);
+    const arcs = path.segments
+      .filter((s): s is BendSegment => s.kind === 'bend')
+      .map((b) => b.arcLength);
     expect(arcs).toEqual([3 * Math.PI, 3 * Math.PI]);
   });
 
@@ -63,7 +74,12 @@ describe('buildSpoolPath', () => {
   });
 
   it('an empty spool has a unit box at its origin', () => {
-    const path = buildSpoolPath({ units: 'metric', conditions, origin: { x: 10, y: 0, z: 0 }, elements: [] });
+    const path = buildSpoolPath({
+      units: 'metric',
+      conditions,
+      origin: { x: 10, y: 0, z: 0 },
+      elements: [],
+    });
     close(path.bbox.min, { x: 9.5, y: -0.5, z: -0.5 });
     expect(path.developedLength).toBe(0);
   });
@@ -71,7 +87,15 @@ describe('buildSpoolPath', () => {
   it('a 45° bend turns toward its direction by its angle; the torus frame reproduces both ends', () => {
     const elements: SpoolElement[] = [
       { kind: 'straight', id: 'S1', nps: '4', schedule: '40', length: 50, direction: 'east' },
-      { kind: 'bend', id: 'B1', nps: '4', schedule: '40', bendRadius: 20, angle: 45, direction: 'north' },
+      {
+        kind: 'bend',
+        id: 'B1',
+        nps: '4',
+        schedule: '40',
+        bendRadius: 20,
+        angle: 45,
+        direction: 'north',
+      },
       { kind: 'straight', id: 'S2', nps: '4', schedule: '40', length: 10 },
     ];
     const path = buildSpoolPath({ units: 'imperial', conditions, elements });
@@ -80,7 +104,11 @@ describe('buildSpoolPath', () => {
     close(b.dirOut, { x: c, y: 0, z: -c });
     expect(b.direction).toBeUndefined();
     expect(b.angleRad).toBeCloseTo(Math.PI / 4, 12);
-    const at = (phi: number) => add(b.centre, add(scale(b.xAxis, b.radius * Math.cos(phi)), scale(b.yAxis, b.radius * Math.sin(phi))));
+    const at = (phi: number) =>
+      add(
+        b.centre,
+        add(scale(b.xAxis, b.radius * Math.cos(phi)), scale(b.yAxis, b.radius * Math.sin(phi))),
+      );
     close(at(b.startAngle), b.start);
     close(at(b.endAngle), b.end);
     // Tangent of a 45° bend: R·tan(22.5°).
@@ -92,7 +120,14 @@ describe('buildSpoolPath', () => {
   });
 
   it('metric documents: 3D of NPS 2 = 3 × 50.8 mm (nominal size; common practice "nD" = n × NPS)', () => {
-    const bend = { kind: 'bend' as const, id: 'B1', nps: '2', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90 };
+    const bend = {
+      kind: 'bend' as const,
+      id: 'B1',
+      nps: '2',
+      schedule: '40',
+      bendRadius: { multipleOfD: 3 },
+      angle: 90,
+    };
     expect(resolveBendRadius(bend, 'metric')).toBeCloseTo(152.4, 9);
     expect(resolveBendRadius(bend, 'imperial')).toBe(6);
     expect(tangentLength(152.4, 90)).toBeCloseTo(152.4, 9);
@@ -102,7 +137,15 @@ describe('buildSpoolPath', () => {
   it('a 180° return bend reverses the run beside itself', () => {
     const elements: SpoolElement[] = [
       { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 50, direction: 'east' },
-      { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: 5, angle: 180, direction: 'north' },
+      {
+        kind: 'bend',
+        id: 'B1',
+        nps: '2',
+        schedule: '40',
+        bendRadius: 5,
+        angle: 180,
+        direction: 'north',
+      },
       { kind: 'straight', id: 'S2', nps: '2', schedule: '40', length: 50 },
     ];
     const path = buildSpoolPath({ units: 'imperial', conditions, elements });

@@ -20,7 +20,9 @@ describe('SketchCanvasView without WebGL (jsdom)', () => {
       </SpoolStoreProvider>,
     );
     expect(screen.getByTestId('sketch-canvas-loading')).toBeTruthy();
-    expect(await screen.findByTestId('sketch-canvas-error', undefined, { timeout: 20_000 })).toBeTruthy();
+    expect(
+      await screen.findByTestId('sketch-canvas-error', undefined, { timeout: 20_000 }),
+    ).toBeTruthy();
   });
 });
 

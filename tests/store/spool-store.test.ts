@@ -19,7 +19,13 @@ const fresh = () => {
 };
 
 const shape = (store: ReturnType<typeof fresh>) =>
-  store.getState().doc.elements.map((e) => (e.kind === 'straight' ? `${e.id}:${e.direction}:${e.length}` : `${e.id}:${e.angle}>${e.direction}`));
+  store
+    .getState()
+    .doc.elements.map((e) =>
+      e.kind === 'straight'
+        ? `${e.id}:${e.direction}:${e.length}`
+        : `${e.id}:${e.angle}>${e.direction}`,
+    );
 
 describe('drawing legs', () => {
   it('inserts a 90° bend with the default radius at each change of direction', () => {
@@ -73,7 +79,8 @@ describe('drawing legs', () => {
     store.getState().addLeg('east', 100);
     const r = store.getState().addLeg('north', 6);
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.message).toMatch(/this leg \(6 in\) is too short.*longer than 6 in.*R·tan\(θ\/2\)/);
+    if (!r.ok)
+      expect(r.message).toMatch(/this leg \(6 in\) is too short.*longer than 6 in.*R·tan\(θ\/2\)/);
     expect(store.getState().doc.elements).toHaveLength(1);
     expect(store.getState().past).toHaveLength(1);
   });
@@ -104,7 +111,10 @@ describe('drawing legs', () => {
     const store = fresh();
     expect(store.getState().addLeg('east', 0).ok).toBe(false);
     expect(store.getState().addLeg('east', Number.NaN).ok).toBe(false);
-    expect(store.getState().updateElement('S99', { length: 3 })).toEqual({ ok: false, message: 'no element "S99"' });
+    expect(store.getState().updateElement('S99', { length: 3 })).toEqual({
+      ok: false,
+      message: 'no element "S99"',
+    });
   });
 
   it('gives stable, unique ids that are never reused after delete', () => {
@@ -131,7 +141,13 @@ describe('editing elements', () => {
   it('changes a cut length and a leg length', () => {
     const store = drawn();
     expect(store.getState().updateElement('S2', { length: 40 }).ok).toBe(true);
-    expect(shape(store)).toEqual(['S1:east:94', 'B1:90>north', 'S2:north:40', 'B2:90>east', 'S3:east:74']);
+    expect(shape(store)).toEqual([
+      'S1:east:94',
+      'B1:90>north',
+      'S2:north:40',
+      'B2:90>east',
+      'S3:east:74',
+    ]);
     expect(store.getState().updateElement('S2', { legLength: 30 }).ok).toBe(true);
     expect(shape(store)[2]).toBe('S2:north:18');
     const r = store.getState().updateElement('S2', { legLength: 12 });
@@ -142,7 +158,13 @@ describe('editing elements', () => {
   it('keeps leg lengths when a bend radius changes, refusing what no longer fits', () => {
     const store = drawn();
     expect(store.getState().updateElement('B1', { bendRadius: 10 }).ok).toBe(true);
-    expect(shape(store)).toEqual(['S1:east:90', 'B1:90>north', 'S2:north:34', 'B2:90>east', 'S3:east:74']);
+    expect(shape(store)).toEqual([
+      'S1:east:90',
+      'B1:90>north',
+      'S2:north:34',
+      'B2:90>east',
+      'S3:east:74',
+    ]);
     const r = store.getState().updateElement('B1', { bendRadius: 45 });
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.message).toMatch(/leg S2 \(50 in\) is too short for the bends at its ends/);
@@ -152,7 +174,13 @@ describe('editing elements', () => {
   it('turns a leg: bends follow, same-direction legs merge, reversals are refused', () => {
     const store = drawn();
     expect(store.getState().updateElement('S2', { direction: 'up' }).ok).toBe(true);
-    expect(shape(store)).toEqual(['S1:east:94', 'B1:90>up', 'S2:up:38', 'B2:90>east', 'S3:east:74']);
+    expect(shape(store)).toEqual([
+      'S1:east:94',
+      'B1:90>up',
+      'S2:up:38',
+      'B2:90>east',
+      'S3:east:74',
+    ]);
     // Turning the last leg north makes it perpendicular to "up": the bend re-aims.
     expect(store.getState().updateElement('S3', { direction: 'north' }).ok).toBe(true);
     expect(shape(store)[3]).toBe('B2:90>north');
@@ -167,7 +195,13 @@ describe('editing elements', () => {
   it('turning a bend turns the whole leg after it', () => {
     const store = drawn();
     expect(store.getState().updateElement('B1', { direction: 'down' }).ok).toBe(true);
-    expect(shape(store)).toEqual(['S1:east:94', 'B1:90>down', 'S2:down:38', 'B2:90>east', 'S3:east:74']);
+    expect(shape(store)).toEqual([
+      'S1:east:94',
+      'B1:90>down',
+      'S2:down:38',
+      'B2:90>east',
+      'S3:east:74',
+    ]);
     expect(store.getState().updateElement('B1', { angle: 45 } as never).ok).toBe(true); // unknown keys are ignored
     expect(store.getState().updateElement('B1', { direction: 'west' }).ok).toBe(false);
   });
@@ -177,19 +211,39 @@ describe('editing elements', () => {
       ...doc(),
       elements: [
         { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 50, direction: 'east' },
-        { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: 10, angle: 45, direction: 'north' },
+        {
+          kind: 'bend',
+          id: 'B1',
+          nps: '2',
+          schedule: '40',
+          bendRadius: 10,
+          angle: 45,
+          direction: 'north',
+        },
         { kind: 'straight', id: 'S2', nps: '2', schedule: '40', length: 30 },
       ],
     });
     expect(loaded.getState().updateElement('S2', { length: 40 }).ok).toBe(true);
     const els = loaded.getState().doc.elements;
-    expect(els[1]).toEqual({ kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: 10, angle: 45, direction: 'north' });
+    expect(els[1]).toEqual({
+      kind: 'bend',
+      id: 'B1',
+      nps: '2',
+      schedule: '40',
+      bendRadius: 10,
+      angle: 45,
+      direction: 'north',
+    });
     expect(els[2]).toMatchObject({ id: 'S2', length: 40 });
     expect(els[2]!.direction).toBeUndefined();
   });
 
   it('works in metric units (3D of NPS 2 = 152.4 mm)', () => {
-    const store = createSpoolStore({ ...doc(), units: 'metric', conditions: { pressure: 2, temperature: 50, material: 'A106-B' } });
+    const store = createSpoolStore({
+      ...doc(),
+      units: 'metric',
+      conditions: { pressure: 2, temperature: 50, material: 'A106-B' },
+    });
     store.getState().startRun({ nps: '2', schedule: '40' });
     store.getState().addLeg('east', 1000);
     expect(store.getState().addLeg('north', 150).ok).toBe(false);
@@ -205,17 +259,28 @@ describe('editing elements', () => {
 
   it('sets size, end type and merges condition overrides', () => {
     const store = drawn();
-    expect(store.getState().updateElement('S1', { nps: '3', schedule: '80', endType: 'threaded' }).ok).toBe(true);
-    expect(store.getState().updateElement('S1', { conditions: { corrosionAllowance: 0.0625 } }).ok).toBe(true);
+    expect(
+      store.getState().updateElement('S1', { nps: '3', schedule: '80', endType: 'threaded' }).ok,
+    ).toBe(true);
+    expect(
+      store.getState().updateElement('S1', { conditions: { corrosionAllowance: 0.0625 } }).ok,
+    ).toBe(true);
     expect(store.getState().updateElement('S1', { conditions: { pressure: 500 } }).ok).toBe(true);
     let s1 = store.getState().doc.elements[0]!;
-    expect(s1).toMatchObject({ nps: '3', schedule: '80', endType: 'threaded', conditions: { corrosionAllowance: 0.0625, pressure: 500 } });
+    expect(s1).toMatchObject({
+      nps: '3',
+      schedule: '80',
+      endType: 'threaded',
+      conditions: { corrosionAllowance: 0.0625, pressure: 500 },
+    });
     store.getState().updateElement('S1', { conditions: { pressure: undefined } });
     s1 = store.getState().doc.elements[0]!;
     expect(s1.conditions).toEqual({ corrosionAllowance: 0.0625 });
     store.getState().updateElement('S1', { conditions: null });
     expect(store.getState().doc.elements[0]!.conditions).toBeUndefined();
-    expect(store.getState().updateElement('S1', { conditions: { millTolerance: 2 } }).ok).toBe(false);
+    expect(store.getState().updateElement('S1', { conditions: { millTolerance: 2 } }).ok).toBe(
+      false,
+    );
   });
 
   it('a bend size change alters its tangent (3D of a 4" bend = 12 in)', () => {
@@ -228,11 +293,26 @@ describe('editing elements', () => {
     const store = drawn();
     expect(store.getState().insertLegAfter('S1', 'up', 20).ok).toBe(true);
     // east 100 → up 20 → north 50 → east 80
-    expect(shape(store)).toEqual(['S1:east:94', 'B3:90>up', 'S4:up:8', 'B1:90>north', 'S2:north:38', 'B2:90>east', 'S3:east:74']);
+    expect(shape(store)).toEqual([
+      'S1:east:94',
+      'B3:90>up',
+      'S4:up:8',
+      'B1:90>north',
+      'S2:north:38',
+      'B2:90>east',
+      'S3:east:74',
+    ]);
     const store2 = drawn();
     // Inserting along the same direction lengthens the leg as another straight.
     expect(store2.getState().insertLegAfter('B1', 'north', 20).ok).toBe(true);
-    expect(shape(store2)).toEqual(['S1:east:94', 'B1:90>north', 'S4:north:14', 'S2:north:44', 'B2:90>east', 'S3:east:74']);
+    expect(shape(store2)).toEqual([
+      'S1:east:94',
+      'B1:90>north',
+      'S4:north:14',
+      'S2:north:44',
+      'B2:90>east',
+      'S3:east:74',
+    ]);
     expect(store2.getState().insertLegAfter('S1', 'west', 20).ok).toBe(false);
   });
 
@@ -241,7 +321,13 @@ describe('editing elements', () => {
     store.getState().addLeg('east', 100);
     store.getState().addLeg('east', 50);
     expect(store.getState().insertLegAfter('S1', 'down', 30).ok).toBe(true);
-    expect(shape(store)).toEqual(['S1:east:94', 'B1:90>down', 'S3:down:18', 'B2:90>east', 'S2:east:44']);
+    expect(shape(store)).toEqual([
+      'S1:east:94',
+      'B1:90>down',
+      'S3:down:18',
+      'B2:90>east',
+      'S2:east:44',
+    ]);
   });
 });
 
@@ -292,7 +378,15 @@ describe('deleting keeps the run coherent', () => {
       ...doc(),
       elements: [
         { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 50, direction: 'east' },
-        { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90, direction: 'up' },
+        {
+          kind: 'bend',
+          id: 'B1',
+          nps: '2',
+          schedule: '40',
+          bendRadius: { multipleOfD: 3 },
+          angle: 90,
+          direction: 'up',
+        },
       ],
     });
     expect(loaded.getState().deleteElement('B1').ok).toBe(true);
@@ -379,7 +473,8 @@ describe('history', () => {
     store.getState().addLeg('east', 100);
     const before = store.getState().doc;
     const steps = store.getState().past.length;
-    for (const len of [90, 80, 70]) store.getState().updateElement('S1', { length: len }, { history: 'gesture' });
+    for (const len of [90, 80, 70])
+      store.getState().updateElement('S1', { length: len }, { history: 'gesture' });
     store.getState().endGesture();
     expect(store.getState().past.length).toBe(steps + 1);
     store.getState().undo();

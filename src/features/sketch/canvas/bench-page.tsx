@@ -16,7 +16,8 @@ export function CanvasBenchPage() {
     const s = createSpoolStore(generateBenchSpool(n));
     s.getState().setAntialias(params.get('aa') === '1');
     const labels = params.get('labels');
-    if (labels === 'all' || labels === 'none' || labels === 'auto') s.getState().setShowDimensions(labels as DimensionMode);
+    if (labels === 'all' || labels === 'none' || labels === 'auto')
+      s.getState().setShowDimensions(labels as DimensionMode);
     return s;
   });
   return (

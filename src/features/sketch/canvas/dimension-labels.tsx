@@ -29,15 +29,24 @@ const fmt = (v: number) => String(Math.round(v * 100) / 100);
 export function dimensionText(seg: PathSegment, units: UnitSystem, legLength?: number): string {
   const u = UNIT_LABELS[units].length;
   if (seg.kind === 'bend') return `${fmt(seg.angleDeg)}° R${fmt(seg.radius)} ${u}`;
-  const leg = legLength !== undefined && Math.abs(legLength - seg.length) > 1e-6 ? ` · leg ${fmt(legLength)}` : '';
+  const leg =
+    legLength !== undefined && Math.abs(legLength - seg.length) > 1e-6
+      ? ` · leg ${fmt(legLength)}`
+      : '';
   return `${fmt(seg.length)} ${u}${leg}`;
 }
 
 /** Which segments get a label. */
-export function pickLabelled(segments: readonly PathSegment[], mode: DimensionMode, selectedId: string | null, hoveredId: string | null): PathSegment[] {
+export function pickLabelled(
+  segments: readonly PathSegment[],
+  mode: DimensionMode,
+  selectedId: string | null,
+  hoveredId: string | null,
+): PathSegment[] {
   const focused = (s: PathSegment) => s.id === selectedId || s.id === hoveredId;
   if (mode === 'all') return segments.filter((s, i) => i < ALL_LABEL_LIMIT || focused(s));
-  if (mode === 'auto' && segments.length <= AUTO_LABEL_LIMIT) return segments.filter((s) => s.kind === 'straight' || focused(s));
+  if (mode === 'auto' && segments.length <= AUTO_LABEL_LIMIT)
+    return segments.filter((s) => s.kind === 'straight' || focused(s));
   return segments.filter(focused);
 }
 
@@ -71,7 +80,8 @@ export function dimensionLabels(
           <span style={{ color: st.ink }} aria-label={st.label}>
             {st.glyph}
           </span>{' '}
-          <span className="text-steel-500">{seg.id}</span> {dimensionText(seg, units, legs?.get(seg.id))}
+          <span className="text-steel-500">{seg.id}</span>{' '}
+          {dimensionText(seg, units, legs?.get(seg.id))}
         </span>
       ),
     };
@@ -81,9 +91,18 @@ export function dimensionLabels(
 export type LabelRegistry = MutableRefObject<Map<string, HTMLDivElement>>;
 
 /** The DOM side: one absolutely placed node per label, parked off-screen until projected. */
-export function LabelOverlay({ labels, registry }: { readonly labels: readonly ScreenLabel[]; readonly registry: LabelRegistry }) {
+export function LabelOverlay({
+  labels,
+  registry,
+}: {
+  readonly labels: readonly ScreenLabel[];
+  readonly registry: LabelRegistry;
+}) {
   return (
-    <div className="pointer-events-none absolute inset-0 overflow-hidden font-sans" data-testid="sketch-labels">
+    <div
+      className="pointer-events-none absolute inset-0 overflow-hidden font-sans"
+      data-testid="sketch-labels"
+    >
       {labels.map((l) => (
         <div
           key={l.key}
@@ -104,7 +123,15 @@ export function LabelOverlay({ labels, registry }: { readonly labels: readonly S
 const v = new Vector3();
 
 /** The canvas side: moves each label to its anchor's screen point after every rendered frame. */
-export function LabelProjector({ labels, registry, scale }: { readonly labels: readonly ScreenLabel[]; readonly registry: LabelRegistry; readonly scale: number }) {
+export function LabelProjector({
+  labels,
+  registry,
+  scale,
+}: {
+  readonly labels: readonly ScreenLabel[];
+  readonly registry: LabelRegistry;
+  readonly scale: number;
+}) {
   const invalidate = useThree((s) => s.invalidate);
   useEffect(() => invalidate(), [labels, invalidate]);
   useFrame(({ camera, size }) => {

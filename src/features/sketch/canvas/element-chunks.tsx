@@ -37,7 +37,10 @@ const one = new Vector3(1, 1, 1);
 /** An element's geometry placed in the scene (document units), with baked lighting; `grow` scales the OD. */
 export function worldGeometry(spec: MeshSpec, grow = 1): BufferGeometry {
   const od = spec.od * grow;
-  const g = spec.kind === 'straight' ? createStraightGeometry(od, spec.size) : createBendGeometry(od, spec.size, spec.arc);
+  const g =
+    spec.kind === 'straight'
+      ? createStraightGeometry(od, spec.size)
+      : createBendGeometry(od, spec.size, spec.arc);
   pos.set(spec.position[0], spec.position[1], spec.position[2]);
   quat.set(spec.quaternion[0], spec.quaternion[1], spec.quaternion[2], spec.quaternion[3]);
   g.applyMatrix4(m4.compose(pos, quat, one));
@@ -51,7 +54,9 @@ export interface Range {
 }
 
 /** Concatenate indexed position/normal/uv/colour geometries; returns the merged geometry and triangle ranges. */
-export function mergeElementGeometries(parts: readonly { id: string; geometry: BufferGeometry }[]): { geometry: BufferGeometry; ranges: Range[] } {
+export function mergeElementGeometries(
+  parts: readonly { id: string; geometry: BufferGeometry }[],
+): { geometry: BufferGeometry; ranges: Range[] } {
   let vertices = 0;
   let indices = 0;
   for (const p of parts) {
@@ -141,7 +146,8 @@ function ElementChunkImpl({ items, onSelect, onHover }: ElementChunkProps) {
   return (
     <group>
       {groups.map(({ status, geometry, ranges }) => {
-        const idOf = (e: ThreeEvent<PointerEvent | MouseEvent>) => (e.faceIndex == null ? undefined : elementAtTriangle(ranges, e.faceIndex));
+        const idOf = (e: ThreeEvent<PointerEvent | MouseEvent>) =>
+          e.faceIndex == null ? undefined : elementAtTriangle(ranges, e.faceIndex);
         return (
           <mesh
             key={status}
@@ -169,4 +175,7 @@ function ElementChunkImpl({ items, onSelect, onHover }: ElementChunkProps) {
 }
 
 /** A chunk of consecutive elements, merged per status. */
-export const ElementChunk = memo(ElementChunkImpl, (a, b) => a.chunkKey === b.chunkKey && a.onSelect === b.onSelect && a.onHover === b.onHover);
+export const ElementChunk = memo(
+  ElementChunkImpl,
+  (a, b) => a.chunkKey === b.chunkKey && a.onSelect === b.onSelect && a.onHover === b.onHover,
+);

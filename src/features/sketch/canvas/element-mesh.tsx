@@ -15,7 +15,10 @@ export interface HighlightMeshProps {
 function useSpecGeometry(spec: MeshSpec, grow = 1) {
   const { kind, od, size, arc } = spec;
   const geometry = useMemo(
-    () => (kind === 'straight' ? createStraightGeometry(od * grow, size) : createBendGeometry(od * grow, size, arc)),
+    () =>
+      kind === 'straight'
+        ? createStraightGeometry(od * grow, size)
+        : createBendGeometry(od * grow, size, arc),
     [kind, od, size, arc, grow],
   );
   useEffect(() => () => geometry.dispose(), [geometry]);
@@ -29,7 +32,9 @@ function useSpecGeometry(spec: MeshSpec, grow = 1) {
 export function HighlightMesh({ spec, status, highlight }: HighlightMeshProps) {
   const geometry = useMemo(() => worldGeometry(spec, 1.06), [spec]);
   useEffect(() => () => geometry.dispose(), [geometry]);
-  return <mesh geometry={geometry} material={statusMaterial(status, highlight)} raycast={() => null} />;
+  return (
+    <mesh geometry={geometry} material={statusMaterial(status, highlight)} raycast={() => null} />
+  );
 }
 
 /** A dark shell behind the selected element (drawn from the inside, so it reads as an outline). */

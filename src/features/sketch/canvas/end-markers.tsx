@@ -45,7 +45,13 @@ export function computeMarkers(segments: readonly PathSegment[]): Marker[] {
     if (seg.kind === 'straight') {
       const od = seg.outsideDiameter;
       const back = scale(seg.dir, -1);
-      if (prev?.kind === 'straight') out.push({ kind: 'weld', at: seg.start, dir: back, od: Math.max(od, prev.outsideDiameter) });
+      if (prev?.kind === 'straight')
+        out.push({
+          kind: 'weld',
+          at: seg.start,
+          dir: back,
+          od: Math.max(od, prev.outsideDiameter),
+        });
       if (next?.kind === 'bend') out.push({ kind: 'tangent', at: seg.end, dir: seg.dir, od });
       if (prev?.kind === 'bend') out.push({ kind: 'tangent', at: seg.start, dir: back, od });
       const endType = seg.element.endType ?? 'plain';
@@ -57,14 +63,23 @@ export function computeMarkers(segments: readonly PathSegment[]): Marker[] {
         const nextToBend = (dir === back ? prev : next)?.kind === 'bend';
         if (nextToBend) continue;
         if (endType === 'threaded') {
-          for (const k of [0.15, 0.35, 0.55]) out.push({ kind: 'thread', at: add(at, scale(dir, -k * od)), dir, od });
-        } else if (endType === 'grooved') out.push({ kind: 'groove', at: add(at, scale(dir, -0.4 * od)), dir, od });
+          for (const k of [0.15, 0.35, 0.55])
+            out.push({ kind: 'thread', at: add(at, scale(dir, -k * od)), dir, od });
+        } else if (endType === 'grooved')
+          out.push({ kind: 'groove', at: add(at, scale(dir, -0.4 * od)), dir, od });
         else if (free && endType === 'bevel') out.push({ kind: 'bevel', at, dir, od });
         else if (free) out.push({ kind: 'open', at, dir, od });
       }
     } else {
-      if (prev === undefined) out.push({ kind: 'open', at: seg.start, dir: scale(seg.dirIn, -1), od: seg.outsideDiameter });
-      if (next === undefined) out.push({ kind: 'open', at: seg.end, dir: seg.dirOut, od: seg.outsideDiameter });
+      if (prev === undefined)
+        out.push({
+          kind: 'open',
+          at: seg.start,
+          dir: scale(seg.dirIn, -1),
+          od: seg.outsideDiameter,
+        });
+      if (next === undefined)
+        out.push({ kind: 'open', at: seg.end, dir: seg.dirOut, od: seg.outsideDiameter });
     }
   });
   return out;
@@ -80,9 +95,24 @@ interface MarkerLook {
 }
 
 const LOOKS: Partial<Record<MarkerKind, () => MarkerLook>> = {
-  weld: () => ({ geometry: new TorusGeometry(1, 0.14, 3, 10).rotateX(Math.PI / 2), color: '#2b3440', grow: 0.52, offset: 0 }),
-  open: () => ({ geometry: new CircleGeometry(1, 10).rotateX(-Math.PI / 2), color: '#364151', grow: 0.5, offset: 0.001 }),
-  bevel: () => ({ geometry: new CylinderGeometry(0.72, 1.04, 0.6, 10, 1, true), color: '#74859a', grow: 0.5, offset: 0.15 }),
+  weld: () => ({
+    geometry: new TorusGeometry(1, 0.14, 3, 10).rotateX(Math.PI / 2),
+    color: '#2b3440',
+    grow: 0.52,
+    offset: 0,
+  }),
+  open: () => ({
+    geometry: new CircleGeometry(1, 10).rotateX(-Math.PI / 2),
+    color: '#364151',
+    grow: 0.5,
+    offset: 0.001,
+  }),
+  bevel: () => ({
+    geometry: new CylinderGeometry(0.72, 1.04, 0.6, 10, 1, true),
+    color: '#74859a',
+    grow: 0.5,
+    offset: 0.15,
+  }),
 };
 
 /** Ring marks drawn as line loops just outside the pipe (lines cost far less than triangles in software rendering). */
@@ -130,7 +160,15 @@ function lineMaterial(color: string): LineBasicMaterial {
   return m;
 }
 
-function RingLines({ markers, color, grow }: { readonly markers: readonly Marker[]; readonly color: string; readonly grow: number }) {
+function RingLines({
+  markers,
+  color,
+  grow,
+}: {
+  readonly markers: readonly Marker[];
+  readonly color: string;
+  readonly grow: number;
+}) {
   const geometry = useMemo(() => ringLineGeometry(markers, grow), [markers, grow]);
   useLayoutEffect(() => () => geometry.dispose(), [geometry]);
   return <lineSegments geometry={geometry} material={lineMaterial(color)} raycast={() => null} />;
@@ -149,7 +187,13 @@ function markerMaterial(color: string): Material {
 
 const scratch = new Object3D();
 
-function MarkerInstances({ kind, markers }: { readonly kind: MarkerKind; readonly markers: readonly Marker[] }) {
+function MarkerInstances({
+  kind,
+  markers,
+}: {
+  readonly kind: MarkerKind;
+  readonly markers: readonly Marker[];
+}) {
   const ref = useRef<InstancedMesh>(null);
   const look = useMemo(() => LOOKS[kind]!(), [kind]);
   useLayoutEffect(() => () => look.geometry.dispose(), [look]);
@@ -168,7 +212,14 @@ function MarkerInstances({ kind, markers }: { readonly kind: MarkerKind; readonl
     mesh.instanceMatrix.needsUpdate = true;
     mesh.computeBoundingSphere();
   }, [markers, look]);
-  return <instancedMesh key={markers.length} ref={ref} args={[look.geometry, markerMaterial(look.color), markers.length]} raycast={() => null} />;
+  return (
+    <instancedMesh
+      key={markers.length}
+      ref={ref}
+      args={[look.geometry, markerMaterial(look.color), markers.length]}
+      raycast={() => null}
+    />
+  );
 }
 
 /** All end marks of the spool. */
@@ -186,7 +237,11 @@ export function EndMarkers({ segments }: { readonly segments: readonly PathSegme
     <group>
       {[...byKind].map(([kind, markers]) => {
         const ring = LINE_RINGS[kind];
-        return ring ? <RingLines key={kind} markers={markers} color={ring.color} grow={ring.grow} /> : <MarkerInstances key={kind} kind={kind} markers={markers} />;
+        return ring ? (
+          <RingLines key={kind} markers={markers} color={ring.color} grow={ring.grow} />
+        ) : (
+          <MarkerInstances key={kind} kind={kind} markers={markers} />
+        );
       })}
     </group>
   );

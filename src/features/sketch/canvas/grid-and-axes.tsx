@@ -8,16 +8,44 @@ import { niceStep } from './scene-math';
 
 const AXIS_INK = '#364151';
 
-function Arrow({ from, dir, length, thick, strong }: { from: [number, number, number]; dir: 'x' | 'y' | '-z'; length: number; thick: number; strong?: boolean }) {
-  const rot: [number, number, number] = dir === 'x' ? [0, 0, -Math.PI / 2] : dir === '-z' ? [-Math.PI / 2, 0, 0] : [0, 0, 0];
-  const unit: [number, number, number] = dir === 'x' ? [1, 0, 0] : dir === '-z' ? [0, 0, -1] : [0, 1, 0];
-  const at = (k: number): [number, number, number] => [from[0] + unit[0] * k, from[1] + unit[1] * k, from[2] + unit[2] * k];
+function Arrow({
+  from,
+  dir,
+  length,
+  thick,
+  strong,
+}: {
+  from: [number, number, number];
+  dir: 'x' | 'y' | '-z';
+  length: number;
+  thick: number;
+  strong?: boolean;
+}) {
+  const rot: [number, number, number] =
+    dir === 'x' ? [0, 0, -Math.PI / 2] : dir === '-z' ? [-Math.PI / 2, 0, 0] : [0, 0, 0];
+  const unit: [number, number, number] =
+    dir === 'x' ? [1, 0, 0] : dir === '-z' ? [0, 0, -1] : [0, 1, 0];
+  const at = (k: number): [number, number, number] => [
+    from[0] + unit[0] * k,
+    from[1] + unit[1] * k,
+    from[2] + unit[2] * k,
+  ];
   return (
     <group>
-      <mesh position={at(length / 2)} rotation={rot} material={plainMaterial(AXIS_INK)} raycast={() => null}>
+      <mesh
+        position={at(length / 2)}
+        rotation={rot}
+        material={plainMaterial(AXIS_INK)}
+        raycast={() => null}
+      >
         <cylinderGeometry args={[thick, thick, length, 6, 1, true]} />
       </mesh>
-      <mesh position={at(length + thick * 3)} rotation={rot} material={plainMaterial(AXIS_INK)} raycast={() => null}>
+      <mesh
+        position={at(length + thick * 3)}
+        rotation={rot}
+        material={plainMaterial(AXIS_INK)}
+        raycast={() => null}
+      >
         <coneGeometry args={[thick * (strong ? 4 : 3), thick * 6, 8]} />
       </mesh>
     </group>
@@ -69,13 +97,24 @@ export function axisLabels(bbox: BoundingBox): ScreenLabel[] {
   const { corner: c, arrowLength: l, thick: t } = layoutGrid(bbox);
   const d = l + t * 12;
   return [
-    { key: 'axis-east', anchor: { x: c[0] + d, y: c[1], z: c[2] }, content: 'East', className: 'text-[11px] text-steel-700' },
-    { key: 'axis-up', anchor: { x: c[0], y: c[1] + d, z: c[2] }, content: 'Up', className: 'text-[11px] text-steel-700' },
+    {
+      key: 'axis-east',
+      anchor: { x: c[0] + d, y: c[1], z: c[2] },
+      content: 'East',
+      className: 'text-[11px] text-steel-700',
+    },
+    {
+      key: 'axis-up',
+      anchor: { x: c[0], y: c[1] + d, z: c[2] },
+      content: 'Up',
+      className: 'text-[11px] text-steel-700',
+    },
     {
       key: 'axis-north',
       anchor: { x: c[0], y: c[1], z: c[2] - d },
       content: 'N',
-      className: 'rounded-full border border-steel-700 bg-white px-1.5 text-xs font-semibold text-steel-800',
+      className:
+        'rounded-full border border-steel-700 bg-white px-1.5 text-xs font-semibold text-steel-800',
     },
   ];
 }

@@ -1,4 +1,15 @@
-import { BackSide, Color, DataTexture, FrontSide, MeshBasicMaterial, MeshLambertMaterial, RGBAFormat, RepeatWrapping, SRGBColorSpace, type Material } from 'three';
+import {
+  BackSide,
+  Color,
+  DataTexture,
+  FrontSide,
+  MeshBasicMaterial,
+  MeshLambertMaterial,
+  RGBAFormat,
+  RepeatWrapping,
+  SRGBColorSpace,
+  type Material,
+} from 'three';
 import type { CheckStatus } from '@shared/engine/types';
 import { HOVER_LIGHTEN, SELECTED_LIGHTEN, STATUS_STYLES, type StatusPattern } from './status-style';
 
@@ -65,13 +76,17 @@ const materials = new Map<string, MeshBasicMaterial>();
  * The shared material of a status in a highlight state: unlit, shaded by the geometry's baked
  * vertex colours (see `bakeLighting`), patterned by the status texture; highlights lighten it.
  */
-export function statusMaterial(status: CheckStatus, highlight: Highlight = 'none'): MeshBasicMaterial {
+export function statusMaterial(
+  status: CheckStatus,
+  highlight: Highlight = 'none',
+): MeshBasicMaterial {
   const key = `${status}:${highlight}`;
   let m = materials.get(key);
   if (m) return m;
   const style = STATUS_STYLES[status];
   const color = new Color(style.color);
-  if (highlight !== 'none') color.lerp(new Color('#ffffff'), highlight === 'hover' ? HOVER_LIGHTEN : SELECTED_LIGHTEN);
+  if (highlight !== 'none')
+    color.lerp(new Color('#ffffff'), highlight === 'hover' ? HOVER_LIGHTEN : SELECTED_LIGHTEN);
   m = new MeshBasicMaterial({
     color,
     vertexColors: true,
@@ -88,7 +103,10 @@ export function plainMaterial(color: string, opts: { backSide?: boolean } = {}):
   const key = `${color}:${opts.backSide ? 'b' : 'f'}`;
   let m = plain.get(key);
   if (!m) {
-    m = new MeshLambertMaterial({ color: new Color(color), side: opts.backSide ? BackSide : FrontSide });
+    m = new MeshLambertMaterial({
+      color: new Color(color),
+      side: opts.backSide ? BackSide : FrontSide,
+    });
     plain.set(key, m);
   }
   return m;

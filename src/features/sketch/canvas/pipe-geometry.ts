@@ -1,4 +1,10 @@
-import { BufferAttribute, CylinderGeometry, TorusGeometry, Vector3, type BufferGeometry } from 'three';
+import {
+  BufferAttribute,
+  CylinderGeometry,
+  TorusGeometry,
+  Vector3,
+  type BufferGeometry,
+} from 'three';
 
 /*
  * Low-polygon pipe geometry: software WebGL is vertex-bound, so pipes use few radial segments.
@@ -57,7 +63,10 @@ export function bakeLighting(g: BufferGeometry): BufferGeometry {
   const normal = g.getAttribute('normal');
   const colors = new Float32Array(normal.count * 3);
   for (let i = 0; i < normal.count; i++) {
-    const d = normal.getX(i) * LIGHT_DIRECTION.x + normal.getY(i) * LIGHT_DIRECTION.y + normal.getZ(i) * LIGHT_DIRECTION.z;
+    const d =
+      normal.getX(i) * LIGHT_DIRECTION.x +
+      normal.getY(i) * LIGHT_DIRECTION.y +
+      normal.getZ(i) * LIGHT_DIRECTION.z;
     const k = Math.min(1, AMBIENT + DIFFUSE * Math.max(0, d));
     colors[i * 3] = k;
     colors[i * 3 + 1] = k;

@@ -22,8 +22,13 @@ class CanvasErrorBoundary extends Component<{ readonly children: ReactNode }, Bo
   override render() {
     if (this.state.error) {
       return (
-        <div role="alert" data-testid="sketch-canvas-error" className="flex h-full items-center justify-center bg-steel-100 p-4 text-center text-sm text-steel-600">
-          The 3D sketch could not start in this browser ({this.state.error.message}). The element list and inspector still work.
+        <div
+          role="alert"
+          data-testid="sketch-canvas-error"
+          className="flex h-full items-center justify-center bg-steel-100 p-4 text-center text-sm text-steel-600"
+        >
+          The 3D sketch could not start in this browser ({this.state.error.message}). The element
+          list and inspector still work.
         </div>
       );
     }
@@ -40,7 +45,10 @@ export function SketchCanvasView(props: SketchCanvasProps) {
     <CanvasErrorBoundary>
       <Suspense
         fallback={
-          <div data-testid="sketch-canvas-loading" className="flex h-full items-center justify-center bg-steel-50 text-sm text-steel-500">
+          <div
+            data-testid="sketch-canvas-loading"
+            className="flex h-full items-center justify-center bg-steel-50 text-sm text-steel-500"
+          >
             Loading the 3D sketch…
           </div>
         }

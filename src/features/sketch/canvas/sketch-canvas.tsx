@@ -38,7 +38,11 @@ export interface SketchCanvasProps {
  * Lazy-load it through `SketchCanvasLazy` (sketch-canvas-lazy.ts) to keep three.js out of
  * the first download.
  */
-export function SketchCanvas({ className, check: checkProp, showLegend = true }: SketchCanvasProps) {
+export function SketchCanvas({
+  className,
+  check: checkProp,
+  showLegend = true,
+}: SketchCanvasProps) {
   const store = useSpoolStoreApi();
   const derived = useSpoolCheck();
   const check = checkProp ?? derived;
@@ -51,17 +55,27 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
 
   const path = useMemo(() => buildSpoolPath(doc), [doc]);
   const specs = useMemo(() => path.segments.map(meshSpecOf), [path]);
-  const statuses = useMemo(() => new Map<string, CheckStatus>(check.elements.map((e) => [e.id, e.status])), [check]);
+  const statuses = useMemo(
+    () => new Map<string, CheckStatus>(check.elements.map((e) => [e.id, e.status])),
+    [check],
+  );
   const scale = sceneScale(doc.units);
   const chunks = useMemo(() => {
     const out: { items: ChunkItem[]; key: string }[] = [];
     for (let i = 0; i < path.segments.length; i += CHUNK_SIZE) {
-      const items = path.segments.slice(i, i + CHUNK_SIZE).map((seg, k) => ({ id: seg.id, spec: specs[i + k]!, status: statuses.get(seg.id) ?? 'invalid' }));
+      const items = path.segments
+        .slice(i, i + CHUNK_SIZE)
+        .map((seg, k) => ({
+          id: seg.id,
+          spec: specs[i + k]!,
+          status: statuses.get(seg.id) ?? 'invalid',
+        }));
       out.push({ items, key: items.map(itemKey).join(';') });
     }
     return out;
   }, [path, specs, statuses]);
-  const specOf = (id: string | null) => (id !== null ? specs[path.byId.get(id)?.index ?? -1] : undefined);
+  const specOf = (id: string | null) =>
+    id !== null ? specs[path.byId.get(id)?.index ?? -1] : undefined;
   const selectedSpec = specOf(selectedId);
   const hoveredSpec = hoveredId !== selectedId ? specOf(hoveredId) : undefined;
   useEffect(
@@ -73,7 +87,18 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
   const registry = useRef(new Map<string, HTMLDivElement>());
   const axes = useMemo(() => axisLabels(path.bbox), [path.bbox]);
   const labels = useMemo(
-    () => [...axes, ...dimensionLabels(path.segments, statuses, doc.units, view.showDimensions, selectedId, hoveredId, legLengths(path))],
+    () => [
+      ...axes,
+      ...dimensionLabels(
+        path.segments,
+        statuses,
+        doc.units,
+        view.showDimensions,
+        selectedId,
+        hoveredId,
+        legLengths(path),
+      ),
+    ],
     [axes, path, statuses, doc.units, view.showDimensions, selectedId, hoveredId],
   );
   const onHover = useCallback(
@@ -89,7 +114,12 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
       <Canvas
         key={view.antialias ? 'aa' : 'no-aa'}
         orthographic
-        camera={{ position: [ISOMETRIC_VIEW.x * 500, ISOMETRIC_VIEW.y * 500, ISOMETRIC_VIEW.z * 500], zoom: 2, near: 0.1, far: 1e7 }}
+        camera={{
+          position: [ISOMETRIC_VIEW.x * 500, ISOMETRIC_VIEW.y * 500, ISOMETRIC_VIEW.z * 500],
+          zoom: 2,
+          near: 0.1,
+          far: 1e7,
+        }}
         frameloop="demand"
         flat
         dpr={1}
@@ -102,10 +132,28 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
         <directionalLight position={[0.4, 1, 0.7]} intensity={1.2} />
         <group scale={scale}>
           {chunks.map((c, k) => (
-            <ElementChunk key={k} items={c.items} chunkKey={c.key} onSelect={select} onHover={onHover} />
+            <ElementChunk
+              key={k}
+              items={c.items}
+              chunkKey={c.key}
+              onSelect={select}
+              onHover={onHover}
+            />
           ))}
-          {hoveredSpec ? <HighlightMesh spec={hoveredSpec} status={statuses.get(hoveredId!) ?? 'invalid'} highlight="hover" /> : null}
-          {selectedSpec ? <HighlightMesh spec={selectedSpec} status={statuses.get(selectedId!) ?? 'invalid'} highlight="selected" /> : null}
+          {hoveredSpec ? (
+            <HighlightMesh
+              spec={hoveredSpec}
+              status={statuses.get(hoveredId!) ?? 'invalid'}
+              highlight="hover"
+            />
+          ) : null}
+          {selectedSpec ? (
+            <HighlightMesh
+              spec={selectedSpec}
+              status={statuses.get(selectedId!) ?? 'invalid'}
+              highlight="selected"
+            />
+          ) : null}
           {selectedSpec ? <SelectionOutline spec={selectedSpec} /> : null}
           <EndMarkers segments={path.segments} />
           <GridAndAxes bbox={path.bbox} />
@@ -115,7 +163,12 @@ export function SketchCanvas({ className, check: checkProp, showLegend = true }:
         <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
       </Canvas>
       <LabelOverlay labels={labels} registry={registry} />
-      {showLegend ? <StatusLegend summary={check.summary} className="pointer-events-none absolute top-2 left-2 rounded bg-white/85 px-2 py-1" /> : null}
+      {showLegend ? (
+        <StatusLegend
+          summary={check.summary}
+          className="pointer-events-none absolute top-2 left-2 rounded bg-white/85 px-2 py-1"
+        />
+      ) : null}
     </div>
   );
 }

@@ -13,17 +13,32 @@ export interface StatusLegendProps {
 export function StatusLegend({ summary, className, onlyPresent = false }: StatusLegendProps) {
   const shown = STATUS_ORDER.filter((s: CheckStatus) => !onlyPresent || !summary || summary[s] > 0);
   return (
-    <ul aria-label="Check status key" data-testid="status-legend" className={`flex flex-wrap gap-x-3 gap-y-1 text-xs text-steel-700 ${className ?? ''}`}>
+    <ul
+      aria-label="Check status key"
+      data-testid="status-legend"
+      className={`flex flex-wrap gap-x-3 gap-y-1 text-xs text-steel-700 ${className ?? ''}`}
+    >
       {shown.map((status) => {
         const st = STATUS_STYLES[status];
         return (
-          <li key={status} className="inline-flex items-center gap-1" title={st.description} data-status={status}>
-            <span aria-hidden className="inline-block h-3 w-5 rounded-sm border border-steel-400" style={{ background: statusSwatchBackground(status) }} />
+          <li
+            key={status}
+            className="inline-flex items-center gap-1"
+            title={st.description}
+            data-status={status}
+          >
+            <span
+              aria-hidden
+              className="inline-block h-3 w-5 rounded-sm border border-steel-400"
+              style={{ background: statusSwatchBackground(status) }}
+            />
             <span aria-hidden className="font-semibold" style={{ color: st.ink }}>
               {st.glyph}
             </span>
             <span>{st.label}</span>
-            {summary ? <span className="tabular-nums text-steel-500">{summary[status]}</span> : null}
+            {summary ? (
+              <span className="tabular-nums text-steel-500">{summary[status]}</span>
+            ) : null}
           </li>
         );
       })}

@@ -23,15 +23,61 @@ export interface StatusStyle {
 }
 
 export const STATUS_STYLES: Readonly<Record<CheckStatus, StatusStyle>> = {
-  pass: { status: 'pass', color: '#2f6db3', ink: '#1c4577', pattern: 'solid', glyph: '✓', label: 'Pass', description: 'wall is enough with margin' },
-  marginal: { status: 'marginal', color: '#efbd32', ink: '#7a5a06', pattern: 'bands', glyph: '≈', label: 'Marginal', description: 'passes with little margin' },
-  fail: { status: 'fail', color: '#cf4a26', ink: '#7c2410', pattern: 'hatch', glyph: '✕', label: 'Fail', description: 'wall is not enough' },
-  review: { status: 'review', color: '#4cc3d6', ink: '#155d69', pattern: 'dots', glyph: '?', label: 'Review', description: 'the code asks for special consideration' },
-  invalid: { status: 'invalid', color: '#6f7177', ink: '#3a3c40', pattern: 'dashes', glyph: '!', label: 'Not checkable', description: 'inputs missing or not resolvable' },
+  pass: {
+    status: 'pass',
+    color: '#2f6db3',
+    ink: '#1c4577',
+    pattern: 'solid',
+    glyph: '✓',
+    label: 'Pass',
+    description: 'wall is enough with margin',
+  },
+  marginal: {
+    status: 'marginal',
+    color: '#efbd32',
+    ink: '#7a5a06',
+    pattern: 'bands',
+    glyph: '≈',
+    label: 'Marginal',
+    description: 'passes with little margin',
+  },
+  fail: {
+    status: 'fail',
+    color: '#cf4a26',
+    ink: '#7c2410',
+    pattern: 'hatch',
+    glyph: '✕',
+    label: 'Fail',
+    description: 'wall is not enough',
+  },
+  review: {
+    status: 'review',
+    color: '#4cc3d6',
+    ink: '#155d69',
+    pattern: 'dots',
+    glyph: '?',
+    label: 'Review',
+    description: 'the code asks for special consideration',
+  },
+  invalid: {
+    status: 'invalid',
+    color: '#6f7177',
+    ink: '#3a3c40',
+    pattern: 'dashes',
+    glyph: '!',
+    label: 'Not checkable',
+    description: 'inputs missing or not resolvable',
+  },
 };
 
 /** Statuses in legend order. */
-export const STATUS_ORDER: readonly CheckStatus[] = ['pass', 'marginal', 'fail', 'review', 'invalid'];
+export const STATUS_ORDER: readonly CheckStatus[] = [
+  'pass',
+  'marginal',
+  'fail',
+  'review',
+  'invalid',
+];
 
 /** Highlight colours (selection outline, hover tint). */
 export const SELECTION_COLOR = '#1d232c';

@@ -101,7 +101,10 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
           h = Math.max(h, Math.abs(p.y - c.y) * 2);
         }
     const { width, height } = sizeRef.current;
-    camera.zoom = Math.max(1e-4, 0.85 * Math.min(width / Math.max(w, 1e-6), height / Math.max(h, 1e-6)));
+    camera.zoom = Math.max(
+      1e-4,
+      0.85 * Math.min(width / Math.max(w, 1e-6), height / Math.max(h, 1e-6)),
+    );
     camera.updateProjectionMatrix();
     if (controls) {
       controls.target.copy(target);
@@ -132,11 +135,21 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
         const along = (t: number): Vec3 => {
           if (seg.kind === 'straight') return add(seg.start, scaleVec(sub(seg.end, seg.start), t));
           const phi = seg.angleRad * t;
-          return add(seg.centre, add(scaleVec(seg.xAxis, seg.radius * Math.cos(phi)), scaleVec(seg.yAxis, seg.radius * Math.sin(phi))));
+          return add(
+            seg.centre,
+            add(
+              scaleVec(seg.xAxis, seg.radius * Math.cos(phi)),
+              scaleVec(seg.yAxis, seg.radius * Math.sin(phi)),
+            ),
+          );
         };
         const toScreen = (q: Vec3) => {
           const p = new Vector3(q.x, q.y, q.z).multiplyScalar(scale).project(camera);
-          return { ndc: new Vector2(p.x, p.y), x: rect.left + ((p.x + 1) / 2) * rect.width, y: rect.top + ((1 - p.y) / 2) * rect.height };
+          return {
+            ndc: new Vector2(p.x, p.y),
+            x: rect.left + ((p.x + 1) / 2) * rect.width,
+            y: rect.top + ((1 - p.y) / 2) * rect.height,
+          };
         };
         const pickable: Object3D[] = [];
         scene.traverse((o) => {
@@ -148,7 +161,13 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
           ray.setFromCamera(s.ndc, camera);
           const hit = ray.intersectObjects(pickable, false)[0];
           const ranges = hit?.object.userData.elementRanges as Range[] | undefined;
-          if (hit && ranges && hit.faceIndex != null && elementAtTriangle(ranges, hit.faceIndex) === id) return { x: s.x, y: s.y };
+          if (
+            hit &&
+            ranges &&
+            hit.faceIndex != null &&
+            elementAtTriangle(ranges, hit.faceIndex) === id
+          )
+            return { x: s.x, y: s.y };
         }
         const mid = toScreen(along(0.5));
         return { x: mid.x, y: mid.y };
@@ -172,9 +191,18 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
         const rect = gl.domElement.getBoundingClientRect();
         const px = Math.round(((x - rect.left) / rect.width) * ctx.drawingBufferWidth);
         const py = Math.round(((y - rect.top) / rect.height) * ctx.drawingBufferHeight);
-        if (px < 0 || py < 0 || px >= ctx.drawingBufferWidth || py >= ctx.drawingBufferHeight) return null;
+        if (px < 0 || py < 0 || px >= ctx.drawingBufferWidth || py >= ctx.drawingBufferHeight)
+          return null;
         const out = new Uint8Array(4);
-        ctx.readPixels(px, ctx.drawingBufferHeight - 1 - py, 1, 1, ctx.RGBA, ctx.UNSIGNED_BYTE, out);
+        ctx.readPixels(
+          px,
+          ctx.drawingBufferHeight - 1 - py,
+          1,
+          1,
+          ctx.RGBA,
+          ctx.UNSIGNED_BYTE,
+          out,
+        );
         return [out[0]!, out[1]!, out[2]!, out[3]!];
       },
       store,
@@ -182,7 +210,9 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
       info() {
         const ctx = gl.getContext();
         const ext = ctx.getExtension('WEBGL_debug_renderer_info');
-        const renderer = ext ? String(ctx.getParameter(ext.UNMASKED_RENDERER_WEBGL)) : String(ctx.getParameter(ctx.RENDERER));
+        const renderer = ext
+          ? String(ctx.getParameter(ext.UNMASKED_RENDERER_WEBGL))
+          : String(ctx.getParameter(ctx.RENDERER));
         return { renderer, calls: gl.info.render.calls, triangles: gl.info.render.triangles };
       },
     };

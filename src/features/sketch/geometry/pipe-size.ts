@@ -25,7 +25,8 @@ export function resolveOutsideDiameter(el: SpoolElement, units: UnitSystem): num
       if (size) return units === 'imperial' ? size.odIn : size.odMm;
     }
   }
-  if (el.insideDiameter !== undefined && el.nominalWall !== undefined) return el.insideDiameter + 2 * el.nominalWall;
+  if (el.insideDiameter !== undefined && el.nominalWall !== undefined)
+    return el.insideDiameter + 2 * el.nominalWall;
   return undefined;
 }
 

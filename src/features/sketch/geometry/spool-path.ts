@@ -142,14 +142,19 @@ export interface ElementDirections {
 
 /** Bend turn target projected into the plane perpendicular to u; a fallback when unusable. */
 function bendTarget(u: Vec3, bend: Bend, next: SpoolElement | undefined, notes: string[]): Vec3 {
-  const candidates: (Direction | undefined)[] = [bend.direction, next?.kind === 'straight' ? next.direction : undefined];
+  const candidates: (Direction | undefined)[] = [
+    bend.direction,
+    next?.kind === 'straight' ? next.direction : undefined,
+  ];
   for (const c of candidates) {
     if (!c) continue;
     const t = DIRECTION_VECTORS[c];
     const perp = sub(t, scale(u, dot(t, u)));
     if (norm(perp) > 1e-6) return normalize(perp);
   }
-  notes.push(`bend ${bend.id}: no direction that turns the run; drawn turning ${bend.direction === 'up' ? 'sideways' : 'upward'}`);
+  notes.push(
+    `bend ${bend.id}: no direction that turns the run; drawn turning ${bend.direction === 'up' ? 'sideways' : 'upward'}`,
+  );
   return perpendicularTo(u);
 }
 
@@ -214,7 +219,8 @@ export function buildSpoolPath(doc: SpoolDocument): SpoolPath {
     const xAxis = scale(t, -1);
     const yAxis = u;
     const normal = cross(xAxis, yAxis);
-    const at = (phi: number) => add(centre, add(scale(xAxis, radius * Math.cos(phi)), scale(yAxis, radius * Math.sin(phi))));
+    const at = (phi: number) =>
+      add(centre, add(scale(xAxis, radius * Math.cos(phi)), scale(yAxis, radius * Math.sin(phi))));
     const end = at(theta);
     const dirOut = normalize(add(scale(u, Math.cos(theta)), scale(t, Math.sin(theta))));
     const tangent = bendTangent(el, units);
@@ -259,8 +265,20 @@ export function buildSpoolPath(doc: SpoolDocument): SpoolPath {
   const box: BoundingBox =
     segments.length === 0
       ? { min: sub(origin, vec(0.5, 0.5, 0.5)), max: add(origin, vec(0.5, 0.5, 0.5)) }
-      : { min: vec(min.x - half, min.y - half, min.z - half), max: vec(max.x + half, max.y + half, max.z + half) };
-  return { segments, byId, start: origin, end: p, endDir: cur, developedLength: developed, bbox: box, notes };
+      : {
+          min: vec(min.x - half, min.y - half, min.z - half),
+          max: vec(max.x + half, max.y + half, max.z + half),
+        };
+  return {
+    segments,
+    byId,
+    start: origin,
+    end: p,
+    endDir: cur,
+    developedLength: developed,
+    bbox: box,
+    notes,
+  };
 }
 
 /** Centre and size of a box. */

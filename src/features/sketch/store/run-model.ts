@@ -1,4 +1,11 @@
-import { createBend, type Bend, type BendRadius, type SpoolDocument, type SpoolElement, type Straight } from '@shared/model/spool';
+import {
+  createBend,
+  type Bend,
+  type BendRadius,
+  type SpoolDocument,
+  type SpoolElement,
+  type Straight,
+} from '@shared/model/spool';
 import { UNIT_LABELS } from '@shared/units/units';
 import { FALLBACK_BEND_RADIUS, bendTangent } from '../geometry/pipe-size';
 import { buildSpoolPath } from '../geometry/spool-path';
@@ -53,7 +60,8 @@ export function formatLength(value: number, doc: SpoolDocument): string {
 
 const roundLength = (v: number) => Math.round(v * 1e6) / 1e6;
 
-const tangentOf = (bend: Bend | null | undefined, doc: SpoolDocument) => (bend ? bendTangent(bend, doc.units) : 0);
+const tangentOf = (bend: Bend | null | undefined, doc: SpoolDocument) =>
+  bend ? bendTangent(bend, doc.units) : 0;
 
 /** Split a document's elements into legs and corners. */
 export function parseRun(doc: SpoolDocument): Run {
@@ -83,13 +91,18 @@ export function parseRun(doc: SpoolDocument): Run {
   legs.forEach((leg, i) => {
     const before = tangentOf(corners[i - 1], doc);
     const after = tangentOf(corners[i], doc);
-    leg.work = leg.pieces.map((p, j) => p.length + (j === 0 ? before : 0) + (j === leg.pieces.length - 1 ? after : 0));
+    leg.work = leg.pieces.map(
+      (p, j) => p.length + (j === 0 ? before : 0) + (j === leg.pieces.length - 1 ? after : 0),
+    );
   });
   return { legs, corners };
 }
 
 /** Find where an element sits in a run. */
-export function locate(run: Run, id: string): { kind: 'piece'; leg: number; piece: number } | { kind: 'corner'; corner: number } | undefined {
+export function locate(
+  run: Run,
+  id: string,
+): { kind: 'piece'; leg: number; piece: number } | { kind: 'corner'; corner: number } | undefined {
   for (let i = 0; i < run.legs.length; i++) {
     const j = run.legs[i]!.pieces.findIndex((p) => p.id === id);
     if (j >= 0) return { kind: 'piece', leg: i, piece: j };
@@ -103,12 +116,19 @@ export function defaultBendRadius(doc: SpoolDocument): BendRadius {
   return doc.defaultBendRadius ?? FALLBACK_BEND_RADIUS;
 }
 
-function newBend(ctx: RunContext, template: SpoolElement | undefined, angle: number, dir: Vec3): Bend {
+function newBend(
+  ctx: RunContext,
+  template: SpoolElement | undefined,
+  angle: number,
+  dir: Vec3,
+): Bend {
   return createBend({
     id: ctx.nextId('B'),
     ...(template?.nps !== undefined ? { nps: template.nps } : {}),
     ...(template?.schedule !== undefined ? { schedule: template.schedule } : {}),
-    ...(template?.outsideDiameter !== undefined ? { outsideDiameter: template.outsideDiameter } : {}),
+    ...(template?.outsideDiameter !== undefined
+      ? { outsideDiameter: template.outsideDiameter }
+      : {}),
     ...(template?.nominalWall !== undefined ? { nominalWall: template.nominalWall } : {}),
     bendRadius: defaultBendRadius(ctx.doc),
     angle,
@@ -124,7 +144,10 @@ const isAxis = (v: Vec3) => directionOf(v) !== undefined;
  * angle, refuse reversals, and recompute cut lengths from work lengths (refusing any that
  * would be zero or less).
  */
-export function serializeRun(run: Run, ctx: RunContext): { ok: true; elements: SpoolElement[] } | { ok: false; message: string } {
+export function serializeRun(
+  run: Run,
+  ctx: RunContext,
+): { ok: true; elements: SpoolElement[] } | { ok: false; message: string } {
   const legs = run.legs.map((l) => ({ ...l, pieces: [...l.pieces], work: [...l.work] }));
   const corners = [...run.corners];
   const doc = ctx.doc;
@@ -161,11 +184,16 @@ export function serializeRun(run: Run, ctx: RunContext): { ok: true; elements: S
     }
     const angle = angleBetweenDeg(a.dir, b.dir);
     if (angle < EPS) {
-      legs.splice(i, 2, { dir: a.dir, pieces: [...a.pieces, ...b.pieces], work: [...a.work, ...b.work] });
+      legs.splice(i, 2, {
+        dir: a.dir,
+        pieces: [...a.pieces, ...b.pieces],
+        work: [...a.work, ...b.work],
+      });
       corners.splice(i, 1);
       continue;
     }
-    if (angle > 180 - EPS) return { ok: false, message: ctx.doubleBackMessage ?? DOUBLE_BACK_MESSAGE };
+    if (angle > 180 - EPS)
+      return { ok: false, message: ctx.doubleBackMessage ?? DOUBLE_BACK_MESSAGE };
     const rounded = Math.round(angle * 1e6) / 1e6;
     const direction = directionOf(b.dir);
     const bend = corners[i];
@@ -192,9 +220,15 @@ export function serializeRun(run: Run, ctx: RunContext): { ok: true; elements: S
       const work = leg.work[j]!;
       const cut = roundLength(work - need);
       if (!(cut > EPS)) {
-        const bends = [j === 0 ? before : null, j === leg.pieces.length - 1 ? after : null].filter((b): b is Bend => b !== null);
-        const detail = bends.map((b) => `${b.id} ${formatLength(tangentOf(b, doc), doc)}`).join(' + ');
-        const what = ctx.newIds.has(piece.id) ? `this leg (${formatLength(work, doc)})` : `leg ${piece.id} (${formatLength(work, doc)})`;
+        const bends = [j === 0 ? before : null, j === leg.pieces.length - 1 ? after : null].filter(
+          (b): b is Bend => b !== null,
+        );
+        const detail = bends
+          .map((b) => `${b.id} ${formatLength(tangentOf(b, doc), doc)}`)
+          .join(' + ');
+        const what = ctx.newIds.has(piece.id)
+          ? `this leg (${formatLength(work, doc)})`
+          : `leg ${piece.id} (${formatLength(work, doc)})`;
         return {
           ok: false,
           message:
@@ -202,7 +236,10 @@ export function serializeRun(run: Run, ctx: RunContext): { ok: true; elements: S
             `it must be longer than ${formatLength(need, doc)}, the tangent R·tan(θ/2) ${bends.length > 1 ? 'of both bends' : 'of the bend'} (${detail})`,
         };
       }
-      const next = piece.length === cut && (direction === undefined || piece.direction === direction) ? piece : { ...piece, length: cut, ...(direction ? { direction } : {}) };
+      const next =
+        piece.length === cut && (direction === undefined || piece.direction === direction)
+          ? piece
+          : { ...piece, length: cut, ...(direction ? { direction } : {}) };
       elements.push(next);
     }
     if (after) elements.push(after);

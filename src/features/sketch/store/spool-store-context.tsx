@@ -20,7 +20,12 @@ export interface SpoolStoreProviderProps {
  * Provides one editor store to the sketch page's canvas and panels. Remount (change `key`)
  * to start over with a new spool, or call `store.getState().load(doc)`.
  */
-export function SpoolStoreProvider({ store, initial, checkOptions, children }: SpoolStoreProviderProps) {
+export function SpoolStoreProvider({
+  store,
+  initial,
+  checkOptions,
+  children,
+}: SpoolStoreProviderProps) {
   const [own] = useState(() => store ?? createSpoolStore(initial));
   return (
     <SpoolStoreContext.Provider value={store ?? own}>
@@ -58,7 +63,11 @@ interface CheckerEntry {
 const checkers = new WeakMap<SpoolStore, CheckerEntry>();
 
 /** Check a document with the store's shared memoising checker. */
-export function checkWithStore(store: SpoolStore, doc: SpoolDocument, options?: CheckOptions): SpoolCheck {
+export function checkWithStore(
+  store: SpoolStore,
+  doc: SpoolDocument,
+  options?: CheckOptions,
+): SpoolCheck {
   let entry = checkers.get(store);
   if (!entry || entry.options !== options) {
     entry = { options, check: createSpoolChecker(options) };

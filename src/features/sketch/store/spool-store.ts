@@ -18,7 +18,15 @@ import {
   type SpoolElement,
 } from '@shared/model/spool';
 import { DIRECTION_VECTORS, angleBetweenDeg } from '../geometry/vec';
-import { formatLength, locate, parseRun, serializeRun, type EditResult, type Leg, type Run } from './run-model';
+import {
+  formatLength,
+  locate,
+  parseRun,
+  serializeRun,
+  type EditResult,
+  type Leg,
+  type Run,
+} from './run-model';
 
 /*
  * The sketch editor store: one zustand store per open spool, built from three slices.
@@ -126,7 +134,10 @@ export interface SpoolStoreState {
    * Start a new run: REMOVES all elements (undoable), sets the origin (default: keep) and the
    * pipe size for new legs. Use `setDrawingPipe` to change size mid-run instead.
    */
-  startRun(run: { nps: NpsInput; schedule: string; origin?: { x: number; y: number; z: number } }, opts?: ChangeOptions): EditResult;
+  startRun(
+    run: { nps: NpsInput; schedule: string; origin?: { x: number; y: number; z: number } },
+    opts?: ChangeOptions,
+  ): EditResult;
   /**
    * Draw a leg of `length` (leg length, see conventions) in `direction` at the run's free end.
    * Same direction: a straight is added to the last leg. A turn inserts a bend with the
@@ -140,7 +151,12 @@ export interface SpoolStoreState {
    * leg if it is not the leg's last straight; after a bend: at the start of the following
    * leg). Bends are added or merged so the run stays coherent; the rest of the run moves.
    */
-  insertLegAfter(id: string, direction: Direction, length: number, opts?: ChangeOptions): EditResult;
+  insertLegAfter(
+    id: string,
+    direction: Direction,
+    length: number,
+    opts?: ChangeOptions,
+  ): EditResult;
   /** Change one element; refusals (bad value, too-short leg, reversal) return a message. */
   updateElement(id: string, patch: ElementPatch, opts?: ChangeOptions): EditResult;
   /**
@@ -186,7 +202,8 @@ const DEFAULT_PIPE: DrawingPipe = { nps: '2', schedule: '40' };
 function pipeFromDoc(doc: SpoolDocument): DrawingPipe {
   for (let i = doc.elements.length - 1; i >= 0; i--) {
     const el = doc.elements[i]!;
-    if (el.nps !== undefined && el.schedule !== undefined) return { nps: el.nps, schedule: String(el.schedule) };
+    if (el.nps !== undefined && el.schedule !== undefined)
+      return { nps: el.nps, schedule: String(el.schedule) };
   }
   return DEFAULT_PIPE;
 }
@@ -211,13 +228,171 @@ function compact<T extends object>(o: T): T {
   return Object.fromEntries(Object.entries(o).filter(([, v]) => v !== undefined)) as T;
 }
 
-function firstIssue(r: { success: boolean; error?: { issues: { message: string; path: PropertyKey[] }[] } }, field: string): string {
+function firstIssue(
+  r: { success: boolean; error?: { issues: { message: string; path: PropertyKey[] }[] } },
+  field: string,
+): string {
   const iss = r.error?.issues[0];
   const path = iss && iss.path.length > 0 ? `${field}.${iss.path.map(String).join('.')}` : field;
   return `${path}: ${iss?.message ?? 'invalid value'}`;
 }
 
-const sameElements = (a: readonly SpoolElement[], b: readonly SpoolElement[]) => a.length === b.length && a.every((el, i) => el === b[i]);
+const sameElements = (a: readonly SpoolElement[], b: readonly SpoolElement[]) =>
+  a.length === b.length && a.every((el, i) => el === b[i]);
+
+type SetState = StoreApi<SpoolStoreState>['setState'];
+type GetState = StoreApi<SpoolStoreState>['getState'];
+
+/** Selected / hovered ids that still exist in `doc` (others are cleared). */
+function keepSelection(
+  get: GetState,
+  doc: SpoolDocument,
+): Pick<SpoolStoreState, 'selectedId' | 'hoveredId'> {
+  const { selectedId, hoveredId } = get();
+  const has = (id: string | null) => id !== null && doc.elements.some((e) => e.id === id);
+  return {
+    selectedId: has(selectedId) ? selectedId : null,
+    hoveredId: has(hoveredId) ? hoveredId : null,
+  };
+}
+
+/** Selection slice: which element is selected / under the pointer. Never enters history. */
+function createSelectionSlice(
+  set: SetState,
+  get: GetState,
+): Pick<SpoolStoreState, 'selectedId' | 'hoveredId' | 'select' | 'hover'> {
+  return {
+    selectedId: null,
+    hoveredId: null,
+    select(id) {
+      if (get().selectedId !== id) set({ selectedId: id });
+    },
+    hover(id) {
+      if (get().hoveredId !== id) set({ hoveredId: id });
+    },
+  };
+}
+
+/** View slice: canvas display settings. Never enters history. */
+function createViewSlice(
+  set: SetState,
+  get: GetState,
+): Pick<SpoolStoreState, 'view' | 'setShowDimensions' | 'setAntialias' | 'requestFit'> {
+  return {
+    view: { showDimensions: 'auto', antialias: false, fitRequest: 0 },
+    setShowDimensions(mode) {
+      set({ view: { ...get().view, showDimensions: mode } });
+    },
+    setAntialias(on) {
+      set({ view: { ...get().view, antialias: on } });
+    },
+    requestFit() {
+      set({ view: { ...get().view, fitRequest: get().view.fitRequest + 1 } });
+    },
+  };
+}
+
+type HistoryState = Pick<
+  SpoolStoreState,
+  | 'past'
+  | 'future'
+  | 'canUndo'
+  | 'canRedo'
+  | 'savedDoc'
+  | 'savedVersion'
+  | 'isDirty'
+  | 'beginGesture'
+  | 'endGesture'
+  | 'undo'
+  | 'redo'
+  | 'markSaved'
+>;
+
+interface HistorySlice {
+  readonly state: HistoryState;
+  /** Put a new document in place, entering history as `mode` says. */
+  commit(next: SpoolDocument, mode?: HistoryMode): void;
+  /** History and saved state after a `load`. */
+  reset(doc: SpoolDocument, version: number | null): Partial<SpoolStoreState>;
+}
+
+const historyFlags = (past: readonly SpoolDocument[], future: readonly SpoolDocument[]) => ({
+  past,
+  future,
+  canUndo: past.length > 0,
+  canRedo: future.length > 0,
+});
+
+/** History slice: past/future snapshots of the immutable document, gestures, saved state. */
+function createHistorySlice(set: SetState, get: GetState, start: SpoolDocument): HistorySlice {
+  // Document at the start of an open gesture.
+  let gestureBase: SpoolDocument | null = null;
+  return {
+    commit(next, mode = 'immediate') {
+      const s = get();
+      if (next === s.doc) return;
+      const base = { doc: next, isDirty: next !== s.savedDoc, ...keepSelection(get, next) };
+      if (mode === 'never') {
+        set(base);
+        return;
+      }
+      if (mode === 'gesture' || gestureBase !== null) {
+        if (gestureBase === null) gestureBase = s.doc;
+        set(base);
+        return;
+      }
+      set({ ...base, ...historyFlags([...s.past, s.doc].slice(-HISTORY_LIMIT), []) });
+    },
+    reset(doc, version) {
+      gestureBase = null;
+      return { savedDoc: doc, savedVersion: version, isDirty: false, ...historyFlags([], []) };
+    },
+    state: {
+      ...historyFlags([], []),
+      savedDoc: start,
+      savedVersion: null,
+      isDirty: false,
+      beginGesture() {
+        if (gestureBase === null) gestureBase = get().doc;
+      },
+      endGesture() {
+        const base = gestureBase;
+        gestureBase = null;
+        const s = get();
+        if (base === null || base === s.doc) return;
+        set(historyFlags([...s.past, base].slice(-HISTORY_LIMIT), []));
+      },
+      undo() {
+        get().endGesture();
+        const s = get();
+        const prev = s.past[s.past.length - 1];
+        if (!prev) return;
+        set({
+          doc: prev,
+          isDirty: prev !== s.savedDoc,
+          ...historyFlags(s.past.slice(0, -1), [...s.future, s.doc]),
+          ...keepSelection(get, prev),
+        });
+      },
+      redo() {
+        get().endGesture();
+        const s = get();
+        const next = s.future[s.future.length - 1];
+        if (!next) return;
+        set({
+          doc: next,
+          isDirty: next !== s.savedDoc,
+          ...historyFlags([...s.past, s.doc], s.future.slice(0, -1)),
+          ...keepSelection(get, next),
+        });
+      },
+      markSaved(version, savedDoc) {
+        const saved = savedDoc ?? get().doc;
+        set({ savedDoc: saved, savedVersion: version, isDirty: get().doc !== saved });
+      },
+    },
+  };
+}
 
 /**
  * Make a fresh editor store (one per open spool; each test makes its own).
@@ -228,38 +403,10 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
   // Element ids: S1, S2… for straights, B1, B2… for bends; the counters only rise until the
   // next `load`, so an id deleted in this session is never reused (undo can bring it back).
   let counters: Counters = maxCounters(start);
-  // Document at the start of an open gesture.
-  let gestureBase: SpoolDocument | null = null;
 
   return createStore<SpoolStoreState>()((set, get) => {
-    const historyFlags = (past: readonly SpoolDocument[], future: readonly SpoolDocument[]) => ({
-      past,
-      future,
-      canUndo: past.length > 0,
-      canRedo: future.length > 0,
-    });
-    const sanitizeSelection = (doc: SpoolDocument) => {
-      const { selectedId, hoveredId } = get();
-      const has = (id: string | null) => id !== null && doc.elements.some((e) => e.id === id);
-      return { selectedId: has(selectedId) ? selectedId : null, hoveredId: has(hoveredId) ? hoveredId : null };
-    };
-
-    /** Put a new document in place, entering history as `mode` says. */
-    const commit = (next: SpoolDocument, mode: HistoryMode = 'immediate') => {
-      const s = get();
-      if (next === s.doc) return;
-      if (mode === 'never') {
-        set({ doc: next, isDirty: next !== s.savedDoc, ...sanitizeSelection(next) });
-        return;
-      }
-      if (mode === 'gesture' || gestureBase !== null) {
-        if (gestureBase === null) gestureBase = s.doc;
-        set({ doc: next, isDirty: next !== s.savedDoc, ...sanitizeSelection(next) });
-        return;
-      }
-      const past = [...s.past, s.doc].slice(-HISTORY_LIMIT);
-      set({ doc: next, isDirty: next !== s.savedDoc, ...historyFlags(past, []), ...sanitizeSelection(next) });
-    };
+    const history = createHistorySlice(set, get, start);
+    const commit = history.commit;
 
     /** Run a structural edit on the legs of the current document. */
     const editRun = (
@@ -290,7 +437,8 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
         counters = saved;
         return refuse(r.message);
       }
-      if (!sameElements(r.elements, doc.elements)) commit({ ...doc, elements: r.elements }, opts?.history);
+      if (!sameElements(r.elements, doc.elements))
+        commit({ ...doc, elements: r.elements }, opts?.history);
       return ok;
     };
 
@@ -302,31 +450,27 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
     };
 
     const checkLength = (length: number, what: string): EditResult | undefined =>
-      Number.isFinite(length) && length > 0 ? undefined : refuse(`${what} must be greater than zero`);
+      Number.isFinite(length) && length > 0
+        ? undefined
+        : refuse(`${what} must be greater than zero`);
 
     return {
+      ...createSelectionSlice(set, get),
+      ...createViewSlice(set, get),
+      ...history.state,
+
+      // document slice
       doc: start,
       drawingPipe: pipeFromDoc(start),
-      selectedId: null,
-      hoveredId: null,
-      ...historyFlags([], []),
-      savedDoc: start,
-      savedVersion: null,
-      isDirty: false,
-      view: { showDimensions: 'auto', antialias: false, fitRequest: 0 },
 
       load(doc, version = null) {
-        gestureBase = null;
         // History is gone, so numbering restarts from the loaded document's highest ids.
         counters = maxCounters(doc);
         set({
           doc,
           drawingPipe: pipeFromDoc(doc),
-          savedDoc: doc,
-          savedVersion: version,
-          isDirty: false,
-          ...historyFlags([], []),
-          ...sanitizeSelection(doc),
+          ...history.reset(doc, version),
+          ...keepSelection(get, doc),
         });
       },
 
@@ -364,8 +508,10 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
 
       startRun({ nps, schedule, origin }, opts) {
         if (!npsSchema.safeParse(nps).success) return refuse('nps: must not be empty');
-        if (!scheduleSchema.safeParse(schedule).success) return refuse('schedule: must not be empty');
-        if (origin && ![origin.x, origin.y, origin.z].every(Number.isFinite)) return refuse('origin: must be finite numbers');
+        if (!scheduleSchema.safeParse(schedule).success)
+          return refuse('schedule: must not be empty');
+        if (origin && ![origin.x, origin.y, origin.z].every(Number.isFinite))
+          return refuse('origin: must be finite numbers');
         set({ drawingPipe: { nps, schedule } });
         const doc = get().doc;
         const next: SpoolDocument = { ...doc, elements: [], ...(origin ? { origin } : {}) };
@@ -374,7 +520,8 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
       },
 
       addLeg(direction, length, opts) {
-        if (!directionSchema.safeParse(direction).success) return refuse(`unknown direction "${String(direction)}"`);
+        if (!directionSchema.safeParse(direction).success)
+          return refuse(`unknown direction "${String(direction)}"`);
         const bad = checkLength(length, 'a leg length');
         if (bad) return bad;
         return editRun((run, newIds) => {
@@ -387,13 +534,18 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
       },
 
       insertLegAfter(id, direction, length, opts) {
-        if (!directionSchema.safeParse(direction).success) return refuse(`unknown direction "${String(direction)}"`);
+        if (!directionSchema.safeParse(direction).success)
+          return refuse(`unknown direction "${String(direction)}"`);
         const bad = checkLength(length, 'a leg length');
         if (bad) return bad;
         return editRun((run, newIds) => {
           const at = locate(run, id);
           if (!at) return refuse(`no element "${id}"`);
-          const newLeg: Leg = { dir: DIRECTION_VECTORS[direction], pieces: [newStraight(direction, newIds)], work: [length] };
+          const newLeg: Leg = {
+            dir: DIRECTION_VECTORS[direction],
+            pieces: [newStraight(direction, newIds)],
+            work: [length],
+          };
           if (at.kind === 'corner') {
             // At the start of the leg after the bend.
             run.legs.splice(at.corner + 1, 0, newLeg);
@@ -401,8 +553,16 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
             return;
           }
           const leg = run.legs[at.leg]!;
-          const left: Leg = { dir: leg.dir, pieces: leg.pieces.slice(0, at.piece + 1), work: leg.work.slice(0, at.piece + 1) };
-          const right: Leg = { dir: leg.dir, pieces: leg.pieces.slice(at.piece + 1), work: leg.work.slice(at.piece + 1) };
+          const left: Leg = {
+            dir: leg.dir,
+            pieces: leg.pieces.slice(0, at.piece + 1),
+            work: leg.work.slice(0, at.piece + 1),
+          };
+          const right: Leg = {
+            dir: leg.dir,
+            pieces: leg.pieces.slice(at.piece + 1),
+            work: leg.work.slice(at.piece + 1),
+          };
           const replacement = right.pieces.length > 0 ? [left, newLeg, right] : [left, newLeg];
           run.legs.splice(at.leg, 1, ...replacement);
           run.corners.splice(at.leg, 0, ...replacement.slice(1).map(() => null));
@@ -429,26 +589,51 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
             if (!r.success) return refuse(firstIssue(r as Parameters<typeof firstIssue>[0], key));
           }
         }
-        for (const key of ['length', 'legLength', 'outsideDiameter', 'insideDiameter', 'nominalWall'] as const) {
+        for (const key of [
+          'length',
+          'legLength',
+          'outsideDiameter',
+          'insideDiameter',
+          'nominalWall',
+        ] as const) {
           if (has(key) && patch[key] !== undefined) {
             const v = patch[key];
-            if (!(typeof v === 'number' && Number.isFinite(v) && v > 0)) return refuse(`${key}: must be greater than zero`);
+            if (!(typeof v === 'number' && Number.isFinite(v) && v > 0))
+              return refuse(`${key}: must be greater than zero`);
           }
         }
         if (el.kind === 'bend') {
-          for (const key of ['length', 'legLength', 'endType'] as const) if (has(key)) return refuse(`${key}: a bend has no ${key === 'endType' ? 'end type' : 'length of its own'}; edit the legs it joins`);
-          if (has('bendRadius') && patch.bendRadius === undefined) return refuse('bendRadius: a bend needs a radius');
+          for (const key of ['length', 'legLength', 'endType'] as const)
+            if (has(key))
+              return refuse(
+                `${key}: a bend has no ${key === 'endType' ? 'end type' : 'length of its own'}; edit the legs it joins`,
+              );
+          if (has('bendRadius') && patch.bendRadius === undefined)
+            return refuse('bendRadius: a bend needs a radius');
         } else if (has('bendRadius')) return refuse('bendRadius: a straight has no bend radius');
-        if (has('length') && patch.length === undefined) return refuse('length: a straight needs a length');
+        if (has('length') && patch.length === undefined)
+          return refuse('length: a straight needs a length');
 
         // Non-structural fields.
         const fields: Record<string, unknown> = {};
-        for (const key of ['nps', 'schedule', 'outsideDiameter', 'insideDiameter', 'nominalWall', 'endType', 'tag', 'bendRadius'] as const) {
+        for (const key of [
+          'nps',
+          'schedule',
+          'outsideDiameter',
+          'insideDiameter',
+          'nominalWall',
+          'endType',
+          'tag',
+          'bendRadius',
+        ] as const) {
           if (has(key)) fields[key] = patch[key];
         }
         let conditions: ConditionOverrides | undefined = el.conditions;
         if (has('conditions')) {
-          const merged = patch.conditions === null || patch.conditions === undefined ? {} : compact({ ...el.conditions, ...patch.conditions });
+          const merged =
+            patch.conditions === null || patch.conditions === undefined
+              ? {}
+              : compact({ ...el.conditions, ...patch.conditions });
           const r = conditionOverridesSchema.safeParse(merged);
           if (!r.success) return refuse(firstIssue(r, 'conditions'));
           conditions = Object.keys(merged).length > 0 ? merged : undefined;
@@ -456,127 +641,87 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
         }
         const updated = compact({ ...el, ...fields }) as SpoolElement;
 
-        return editRun((run) => {
-          const at = locate(run, id);
-          if (!at) return refuse(`no element "${id}"`);
-          if (at.kind === 'corner') {
-            run.corners[at.corner] = updated as typeof run.corners[number];
-            if (has('direction') && patch.direction !== undefined) {
-              const next = run.legs[at.corner + 1];
-              if (next) next.dir = DIRECTION_VECTORS[patch.direction];
+        return editRun(
+          (run) => {
+            const at = locate(run, id);
+            if (!at) return refuse(`no element "${id}"`);
+            if (at.kind === 'corner') {
+              run.corners[at.corner] = updated as (typeof run.corners)[number];
+              if (has('direction') && patch.direction !== undefined) {
+                const next = run.legs[at.corner + 1];
+                if (next) next.dir = DIRECTION_VECTORS[patch.direction];
+              }
+              return;
             }
-            return;
-          }
-          const leg = run.legs[at.leg]!;
-          const j = at.piece;
-          const piece = updated as (typeof leg.pieces)[number];
-          const cut = leg.pieces[j]!.length;
-          leg.pieces[j] = piece;
-          if (has('length') && patch.length !== undefined) leg.work[j] = leg.work[j]! + (patch.length - cut);
-          if (has('legLength') && patch.legLength !== undefined) {
-            const total = leg.work.reduce((a, b) => a + b, 0);
-            leg.work[j] = leg.work[j]! + (patch.legLength - total);
-          }
-          if (has('direction') && patch.direction !== undefined && angleBetweenDeg(DIRECTION_VECTORS[patch.direction], leg.dir) > 1e-6) {
-            const dir = DIRECTION_VECTORS[patch.direction];
-            if (leg.pieces.length === 1) leg.dir = dir;
-            else {
-              const parts: Leg[] = [
-                { dir: leg.dir, pieces: leg.pieces.slice(0, j), work: leg.work.slice(0, j) },
-                { dir, pieces: [piece], work: [leg.work[j]!] },
-                { dir: leg.dir, pieces: leg.pieces.slice(j + 1), work: leg.work.slice(j + 1) },
-              ].filter((p) => p.pieces.length > 0);
-              run.legs.splice(at.leg, 1, ...parts);
-              run.corners.splice(at.leg, 0, ...parts.slice(1).map(() => null));
+            const leg = run.legs[at.leg]!;
+            const j = at.piece;
+            const piece = updated as (typeof leg.pieces)[number];
+            const cut = leg.pieces[j]!.length;
+            leg.pieces[j] = piece;
+            if (has('length') && patch.length !== undefined)
+              leg.work[j] = leg.work[j]! + (patch.length - cut);
+            if (has('legLength') && patch.legLength !== undefined) {
+              const total = leg.work.reduce((a, b) => a + b, 0);
+              leg.work[j] = leg.work[j]! + (patch.legLength - total);
             }
-          }
-        }, opts, `turning ${id} ${patch.direction ?? ''} would make the run double back on itself`.replace(/\s+/g, ' '));
+            if (
+              has('direction') &&
+              patch.direction !== undefined &&
+              angleBetweenDeg(DIRECTION_VECTORS[patch.direction], leg.dir) > 1e-6
+            ) {
+              const dir = DIRECTION_VECTORS[patch.direction];
+              if (leg.pieces.length === 1) leg.dir = dir;
+              else {
+                const parts: Leg[] = [
+                  { dir: leg.dir, pieces: leg.pieces.slice(0, j), work: leg.work.slice(0, j) },
+                  { dir, pieces: [piece], work: [leg.work[j]!] },
+                  { dir: leg.dir, pieces: leg.pieces.slice(j + 1), work: leg.work.slice(j + 1) },
+                ].filter((p) => p.pieces.length > 0);
+                run.legs.splice(at.leg, 1, ...parts);
+                run.corners.splice(at.leg, 0, ...parts.slice(1).map(() => null));
+              }
+            }
+          },
+          opts,
+          `turning ${id} ${patch.direction ?? ''} would make the run double back on itself`.replace(
+            /\s+/g,
+            ' ',
+          ),
+        );
       },
 
       deleteElement(id, opts) {
-        return editRun((run) => {
-          const at = locate(run, id);
-          if (!at) return refuse(`no element "${id}"`);
-          if (at.kind === 'piece') {
-            const leg = run.legs[at.leg]!;
-            leg.pieces.splice(at.piece, 1);
-            leg.work.splice(at.piece, 1);
-            if (leg.pieces.length === 0) leg.collapse = true;
-            return;
-          }
-          const c = at.corner;
-          const before = run.legs[c]!;
-          const after = run.legs[c + 1]!;
-          if (after.pieces.length === 0 && c + 1 === run.legs.length - 1) {
-            run.legs.splice(c + 1, 1);
-            run.corners.splice(c, 1);
-            return;
-          }
-          if (before.pieces.length === 0 && c === 0) {
-            run.legs.splice(0, 1);
-            run.corners.splice(0, 1);
-            return;
-          }
-          return refuse(`${id} joins two legs in different directions; delete or turn a leg instead`);
-        }, opts, `deleting ${id} would make the run double back on itself`);
-      },
-
-      select(id) {
-        if (get().selectedId !== id) set({ selectedId: id });
-      },
-      hover(id) {
-        if (get().hoveredId !== id) set({ hoveredId: id });
-      },
-
-      beginGesture() {
-        if (gestureBase === null) gestureBase = get().doc;
-      },
-      endGesture() {
-        const base = gestureBase;
-        gestureBase = null;
-        const s = get();
-        if (base === null || base === s.doc) return;
-        set(historyFlags([...s.past, base].slice(-HISTORY_LIMIT), []));
-      },
-
-      undo() {
-        get().endGesture();
-        const s = get();
-        const prev = s.past[s.past.length - 1];
-        if (!prev) return;
-        set({
-          doc: prev,
-          isDirty: prev !== s.savedDoc,
-          ...historyFlags(s.past.slice(0, -1), [...s.future, s.doc]),
-          ...sanitizeSelection(prev),
-        });
-      },
-      redo() {
-        get().endGesture();
-        const s = get();
-        const next = s.future[s.future.length - 1];
-        if (!next) return;
-        set({
-          doc: next,
-          isDirty: next !== s.savedDoc,
-          ...historyFlags([...s.past, s.doc], s.future.slice(0, -1)),
-          ...sanitizeSelection(next),
-        });
-      },
-
-      markSaved(version, savedDoc) {
-        const saved = savedDoc ?? get().doc;
-        set({ savedDoc: saved, savedVersion: version, isDirty: get().doc !== saved });
-      },
-
-      setShowDimensions(mode) {
-        set({ view: { ...get().view, showDimensions: mode } });
-      },
-      setAntialias(on) {
-        set({ view: { ...get().view, antialias: on } });
-      },
-      requestFit() {
-        set({ view: { ...get().view, fitRequest: get().view.fitRequest + 1 } });
+        return editRun(
+          (run) => {
+            const at = locate(run, id);
+            if (!at) return refuse(`no element "${id}"`);
+            if (at.kind === 'piece') {
+              const leg = run.legs[at.leg]!;
+              leg.pieces.splice(at.piece, 1);
+              leg.work.splice(at.piece, 1);
+              if (leg.pieces.length === 0) leg.collapse = true;
+              return;
+            }
+            const c = at.corner;
+            const before = run.legs[c]!;
+            const after = run.legs[c + 1]!;
+            if (after.pieces.length === 0 && c + 1 === run.legs.length - 1) {
+              run.legs.splice(c + 1, 1);
+              run.corners.splice(c, 1);
+              return;
+            }
+            if (before.pieces.length === 0 && c === 0) {
+              run.legs.splice(0, 1);
+              run.corners.splice(0, 1);
+              return;
+            }
+            return refuse(
+              `${id} joins two legs in different directions; delete or turn a leg instead`,
+            );
+          },
+          opts,
+          `deleting ${id} would make the run double back on itself`,
+        );
       },
     };
   });
