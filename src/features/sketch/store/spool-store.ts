@@ -29,14 +29,15 @@ import {
 } from './run-model';
 
 /*
- * The sketch editor store: one zustand store per open spool, built from three slices.
+ * The sketch editor store: one zustand store per open spool, built from four slices.
  *
  * - document: the immutable `SpoolDocument` and the actions that make new ones;
  * - selection: selected / hovered element ids (never enters history);
  * - history: `past` / `future` snapshots of the document. Every document change declares how
  *   it enters history (`HistoryMode`): `'immediate'` (default: one undo step per action),
  *   `'gesture'` (all changes until `endGesture()` make one step — for drags and sliders), or
- *   `'never'` (loading, server refresh).
+ *   `'never'` (loading, server refresh). It also tracks the saved document (`isDirty`);
+ * - view: canvas display settings and the "fit to spool" request (never enters history).
  *
  * Lengths are in the document's units (in | mm). Conventions shared with the geometry:
  * - a straight's `length` is its CUT length: the straight pipe between the tangent points of
