@@ -24,6 +24,11 @@ interface Row {
   readonly status: string;
 }
 
+/** Lists longer than this render only the rows in view (a spool may have 20,000 elements). */
+const WINDOW_FROM = 300;
+const ROW_HEIGHT = 24;
+const OVERSCAN = 10;
+
 const STATUS_ORDER: Record<string, number> = { pass: 0, marginal: 1, review: 2, fail: 3, invalid: 4 };
 
 export interface ElementTableProps {
@@ -79,7 +84,6 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
   );
   const columnFilters = useMemo(() => (statusFilter ? [{ id: 'status', value: statusFilter }] : []), [statusFilter]);
   // The table instance is used only in this component's own render.
-  // eslint-disable-next-line react-hooks/incompatible-library
   const table = useReactTable({
     data,
     columns,
@@ -95,18 +99,42 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
   });
 
   const bodyRef = useRef<HTMLTableSectionElement>(null);
+  const scrollRef = useRef<HTMLDivElement>(null);
+  const [viewport, setViewport] = useState({ top: 0, height: 400 });
+  const rows = table.getRowModel().rows;
+  const windowed = rows.length > WINDOW_FROM;
+  const onScroll = () => {
+    const el = scrollRef.current;
+    if (el) setViewport({ top: el.scrollTop, height: el.clientHeight });
+  };
   useEffect(() => {
     if (!selectedId) return;
-    const tr = bodyRef.current?.querySelector<HTMLElement>(`[data-element-id="${CSS.escape(selectedId)}"]`);
-    tr?.scrollIntoView?.({ block: 'nearest' });
+    if (!windowed) {
+      const trs = bodyRef.current?.querySelectorAll<HTMLElement>('tr[data-element-id]') ?? [];
+      const tr = Array.from(trs).find((r) => r.dataset.elementId === selectedId);
+      tr?.scrollIntoView?.({ block: 'nearest' });
+      return;
+    }
+    // Long lists render only the rows in view: scroll by arithmetic (rows have a fixed height).
+    const el = scrollRef.current;
+    const index = rows.findIndex((r) => r.original.el.id === selectedId);
+    if (!el || index < 0) return;
+    const top = index * ROW_HEIGHT;
+    if (top < el.scrollTop) el.scrollTop = top;
+    else if (top + 2 * ROW_HEIGHT > el.scrollTop + el.clientHeight) el.scrollTop = top - el.clientHeight + 2 * ROW_HEIGHT;
+    onScroll();
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- follow the selection only, not every re-sort
   }, [selectedId]);
+  const first = windowed ? Math.max(0, Math.floor(viewport.top / ROW_HEIGHT) - OVERSCAN) : 0;
+  const last = windowed ? Math.min(rows.length, first + Math.ceil(viewport.height / ROW_HEIGHT) + 2 * OVERSCAN) : rows.length;
+  const visibleRows = windowed ? rows.slice(first, last) : rows;
 
-  const shown = table.getRowModel().rows.length;
+  const shown = rows.length;
   return (
     <section aria-label="Element list" className="flex h-full min-h-0 flex-col">
       <div className="flex items-center gap-2 border-b border-steel-200 px-2 py-1">
         <h3 className="text-xs font-semibold uppercase tracking-wide text-steel-600">Element list</h3>
-        <span className="text-xs text-steel-400">
+        <span className="text-xs text-steel-400" data-testid="element-count">
           {shown} of {elements.length}
         </span>
         <select aria-label="Filter elements by check" className={cn(inputClass, 'ml-auto h-7 w-36 text-xs')} value={statusFilter} onChange={(e) => setStatusFilter(e.target.value)}>
@@ -118,7 +146,7 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
           ))}
         </select>
       </div>
-      <div className="min-h-0 flex-1 overflow-auto">
+      <div ref={scrollRef} onScroll={windowed ? onScroll : undefined} className="min-h-0 flex-1 overflow-auto">
         <table className="w-full text-xs" data-testid="element-table">
           <thead className="sticky top-0 bg-steel-100 text-left text-steel-600">
             {table.getHeaderGroups().map((hg) => (
@@ -138,7 +166,8 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
             ))}
           </thead>
           <tbody ref={bodyRef}>
-            {table.getRowModel().rows.map((row) => {
+            {first > 0 ? <tr aria-hidden style={{ height: first * ROW_HEIGHT }} /> : null}
+            {visibleRows.map((row) => {
               const selected = row.original.el.id === selectedId;
               return (
                 <tr
@@ -146,16 +175,17 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
                   data-element-id={row.original.el.id}
                   aria-selected={selected}
                   onClick={() => onSelect(row.original.el.id)}
-                  className={cn('cursor-pointer border-t border-steel-100 hover:bg-steel-50', selected && 'bg-copper-400/20 hover:bg-copper-400/25')}
+                  className={cn('h-6 cursor-pointer border-t border-steel-100 hover:bg-steel-50', selected && 'bg-copper-400/20 hover:bg-copper-400/25')}
                 >
                   {row.getVisibleCells().map((cell) => (
-                    <td key={cell.id} className="px-2 py-0.5 tabular-nums">
+                    <td key={cell.id} className="px-2 py-0 whitespace-nowrap tabular-nums">
                       {flexRender(cell.column.columnDef.cell, cell.getContext())}
                     </td>
                   ))}
                 </tr>
               );
             })}
+            {last < rows.length ? <tr aria-hidden style={{ height: (rows.length - last) * ROW_HEIGHT }} /> : null}
           </tbody>
         </table>
         {elements.length === 0 ? <p className="p-3 text-center text-xs text-steel-500">No elements yet: start a run and draw legs.</p> : null}
