@@ -7,7 +7,7 @@ import { SketchCanvas } from './sketch-canvas';
 
 /**
  * Benchmark page: a generated spool in a fixed 1280 × 720 canvas. Query: `n` elements
- * (default 300), `aa=1` antialiasing, `labels=auto|all|none`.
+ * (default 300), `aa=1` antialiasing, `labels=auto|all|none`, `legend=0` hides the status key.
  */
 export function CanvasBenchPage() {
   const [store] = useState(() => {
@@ -20,10 +20,13 @@ export function CanvasBenchPage() {
       s.getState().setShowDimensions(labels as DimensionMode);
     return s;
   });
+  const [legend] = useState(
+    () => new URLSearchParams(window.location.search).get('legend') !== '0',
+  );
   return (
     <SpoolStoreProvider store={store}>
       <div style={{ width: 1280, height: 720 }} data-testid="canvas-bench">
-        <SketchCanvas />
+        <SketchCanvas showLegend={legend} />
       </div>
     </SpoolStoreProvider>
   );

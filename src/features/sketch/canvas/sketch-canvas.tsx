@@ -18,7 +18,7 @@ export interface SketchCanvasProps {
   readonly className?: string;
   /** The check to colour by; default: `useSpoolCheck()` of the store. */
   readonly check?: SpoolCheck;
-  /** Show the status key in the top-left corner (default true). */
+  /** Show the status key in a strip above the drawing (default true). */
   readonly showLegend?: boolean;
 }
 
@@ -63,13 +63,11 @@ export function SketchCanvas({
   const chunks = useMemo(() => {
     const out: { items: ChunkItem[]; key: string }[] = [];
     for (let i = 0; i < path.segments.length; i += CHUNK_SIZE) {
-      const items = path.segments
-        .slice(i, i + CHUNK_SIZE)
-        .map((seg, k) => ({
-          id: seg.id,
-          spec: specs[i + k]!,
-          status: statuses.get(seg.id) ?? 'invalid',
-        }));
+      const items = path.segments.slice(i, i + CHUNK_SIZE).map((seg, k) => ({
+        id: seg.id,
+        spec: specs[i + k]!,
+        status: statuses.get(seg.id) ?? 'invalid',
+      }));
       out.push({ items, key: items.map(itemKey).join(';') });
     }
     return out;
@@ -110,65 +108,69 @@ export function SketchCanvas({
   );
 
   return (
-    <div data-testid="sketch-canvas" className={`relative h-full w-full ${className ?? ''}`}>
-      <Canvas
-        key={view.antialias ? 'aa' : 'no-aa'}
-        orthographic
-        camera={{
-          position: [ISOMETRIC_VIEW.x * 500, ISOMETRIC_VIEW.y * 500, ISOMETRIC_VIEW.z * 500],
-          zoom: 2,
-          near: 0.1,
-          far: 1e7,
-        }}
-        frameloop="demand"
-        flat
-        dpr={1}
-        gl={{ antialias: view.antialias, preserveDrawingBuffer: true }}
-        onPointerMissed={() => select(null)}
-        aria-label="Isometric sketch of the spool"
-      >
-        <color attach="background" args={[BACKGROUND_COLOR]} />
-        <ambientLight intensity={1.6} />
-        <directionalLight position={[0.4, 1, 0.7]} intensity={1.2} />
-        <group scale={scale}>
-          {chunks.map((c, k) => (
-            <ElementChunk
-              key={k}
-              items={c.items}
-              chunkKey={c.key}
-              onSelect={select}
-              onHover={onHover}
-            />
-          ))}
-          {hoveredSpec ? (
-            <HighlightMesh
-              spec={hoveredSpec}
-              status={statuses.get(hoveredId!) ?? 'invalid'}
-              highlight="hover"
-            />
-          ) : null}
-          {selectedSpec ? (
-            <HighlightMesh
-              spec={selectedSpec}
-              status={statuses.get(selectedId!) ?? 'invalid'}
-              highlight="selected"
-            />
-          ) : null}
-          {selectedSpec ? <SelectionOutline spec={selectedSpec} /> : null}
-          <EndMarkers segments={path.segments} />
-          <GridAndAxes bbox={path.bbox} />
-        </group>
-        <LabelProjector labels={labels} registry={registry} scale={scale} />
-        <OrbitControls makeDefault enableDamping={false} />
-        <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
-      </Canvas>
-      <LabelOverlay labels={labels} registry={registry} />
+    <div data-testid="sketch-canvas" className={`flex h-full w-full flex-col ${className ?? ''}`}>
+      {/* The key sits in a strip above the drawing, not over it: in software rendering every
+          DOM layer over the WebGL canvas is composited again on each frame. */}
       {showLegend ? (
         <StatusLegend
           summary={check.summary}
-          className="pointer-events-none absolute top-2 left-2 rounded bg-white/85 px-2 py-1"
+          className="shrink-0 border-b border-steel-200 bg-white px-2 py-1"
         />
       ) : null}
+      <div className="relative min-h-0 flex-1">
+        <Canvas
+          key={view.antialias ? 'aa' : 'no-aa'}
+          orthographic
+          camera={{
+            position: [ISOMETRIC_VIEW.x * 500, ISOMETRIC_VIEW.y * 500, ISOMETRIC_VIEW.z * 500],
+            zoom: 2,
+            near: 0.1,
+            far: 1e7,
+          }}
+          frameloop="demand"
+          flat
+          dpr={1}
+          gl={{ antialias: view.antialias, preserveDrawingBuffer: true }}
+          onPointerMissed={() => select(null)}
+          aria-label="Isometric sketch of the spool"
+        >
+          <color attach="background" args={[BACKGROUND_COLOR]} />
+          <ambientLight intensity={1.6} />
+          <directionalLight position={[0.4, 1, 0.7]} intensity={1.2} />
+          <group scale={scale}>
+            {chunks.map((c, k) => (
+              <ElementChunk
+                key={k}
+                items={c.items}
+                chunkKey={c.key}
+                onSelect={select}
+                onHover={onHover}
+              />
+            ))}
+            {hoveredSpec ? (
+              <HighlightMesh
+                spec={hoveredSpec}
+                status={statuses.get(hoveredId!) ?? 'invalid'}
+                highlight="hover"
+              />
+            ) : null}
+            {selectedSpec ? (
+              <HighlightMesh
+                spec={selectedSpec}
+                status={statuses.get(selectedId!) ?? 'invalid'}
+                highlight="selected"
+              />
+            ) : null}
+            {selectedSpec ? <SelectionOutline spec={selectedSpec} /> : null}
+            <EndMarkers segments={path.segments} />
+            <GridAndAxes bbox={path.bbox} />
+          </group>
+          <LabelProjector labels={labels} registry={registry} scale={scale} />
+          <OrbitControls makeDefault enableDamping={false} />
+          <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
+        </Canvas>
+        <LabelOverlay labels={labels} registry={registry} />
+      </div>
     </div>
   );
 }
