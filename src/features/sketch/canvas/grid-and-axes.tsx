@@ -71,7 +71,8 @@ interface GridLayout {
 function layoutGrid(bbox: BoundingBox): GridLayout {
   const size = boxSize(bbox);
   const centre = boxCentre(bbox);
-  const span = Math.max(size.x, size.z, 1) * 1.4;
+  // A tall riser still gets a grid wide enough to read as the ground.
+  const span = Math.max(size.x, size.z, size.y * 0.6, 1) * 1.4;
   const step = niceStep(span / 12);
   const cells = Math.max(4, Math.ceil(span / step));
   const extent = cells * step;
