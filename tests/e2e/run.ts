@@ -228,6 +228,7 @@ const MORE_STEPS = [
   'submits the spool for check',
   'export downloads the document; import brings one back and reports bad files by field',
 ];
+const MATERIAL_STEPS = ['a team material imported by the admin is offered and checked in the sketcher'];
 const REVIEW_STEPS = ['checker marks the spool checked (and cannot edit it)', 'lead cannot release it while bends fail'];
 
 async function designerJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string; spoolName?: string }) {
@@ -475,6 +476,53 @@ async function moreDesignerJourney(ctx: BrowserContext, base: string, shared: { 
   await page.close();
 }
 
+const TEAM_MATERIAL_CSV = [
+  'id,spec,grade,name,tensile_ksi,yield_ksi,temp_f,stress_ksi',
+  // invented test values, not a real specification
+  'E2E-CS1,E2E test spec,1,Test carbon steel,60,35,100,20',
+  'E2E-CS1,E2E test spec,1,Test carbon steel,60,35,400,20',
+].join('\n');
+
+async function teamMaterialJourney(ctx: BrowserContext, base: string) {
+  const page = await openPage(ctx);
+  await journey(
+    'team materials',
+    async () => {
+      await step(MATERIAL_STEPS[0]!, async () => {
+        const signin = await ctx.request.post(`${base}/api/auth/sign-in/email`, {
+          data: { email: 'admin@spoolwright.test', password: PASSWORD },
+          headers: { Origin: base },
+        });
+        expect(signin.ok(), `admin sign-in answered ${signin.status()}`);
+        const up = await ctx.request.post(`${base}/api/materials/import?source=${encodeURIComponent('e2e invented values')}`, {
+          data: TEAM_MATERIAL_CSV,
+          headers: { Origin: base, 'Content-Type': 'text/csv' },
+        });
+        expect(up.ok(), `materials import answered ${up.status()} ${await up.text()}`);
+        await page.goto(`${base}/spools`);
+        await page.getByRole('button', { name: '+ New spool' }).click();
+        await page.getByTestId('sketcher').waitFor();
+        await page.getByRole('button', { name: 'Draw leg East' }).click();
+        await waitRows(page, 1);
+        await page.getByRole('tab', { name: 'Design conditions' }).click();
+        const picker = page.getByLabel('Material');
+        await page.waitForFunction(() => [...document.querySelectorAll('option')].some((o) => o.value === 'E2E-CS1'), null, { timeout: STEP_TIMEOUT });
+        await picker.selectOption('E2E-CS1');
+        await page.getByRole('button', { name: 'Apply conditions' }).click();
+        await page.waitForFunction(() => document.querySelector('[data-testid="element-table"] tr[data-element-id="S1"] [data-check-status]')?.getAttribute('data-check-status') === 'pass', null, {
+          timeout: STEP_TIMEOUT,
+        });
+        await page.locator('[data-testid="element-table"] tr[data-element-id="S1"]').click();
+        await page.getByText('Inputs and their sources').click();
+        const inputs = (await page.getByTestId('inputs-table').textContent()) ?? '';
+        expect(inputs.includes('E2E') || inputs.includes('e2e invented values'), `the check's inputs do not name the team material: ${inputs.slice(0, 300)}`);
+      });
+    },
+    MATERIAL_STEPS,
+  );
+  await page.close();
+}
+
 async function reviewJourney(ctx: BrowserContext, base: string, shared: { spoolId?: string }) {
   const page = await openPage(ctx);
   await journey(
@@ -536,6 +584,9 @@ async function main(): Promise<number> {
     const again = await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
     await moreDesignerJourney(again, server.url, shared);
     await again.close();
+    const materials = await browser.newContext({ viewport: { width: 1440, height: 900 } });
+    await teamMaterialJourney(materials, server.url);
+    await materials.close();
     const review = await browser.newContext({ viewport: { width: 1440, height: 900 } });
     await reviewJourney(review, server.url, shared);
     await review.close();
@@ -548,7 +599,7 @@ async function main(): Promise<number> {
     if (server) await stopServer(server.child);
     fs.rmSync(dataDir, { recursive: true, force: true });
   }
-  const notRun = DESIGNER_STEPS.length + FABRICATOR_STEPS.length + MORE_STEPS.length + REVIEW_STEPS.length - outcomes.filter((o) => o.name !== 'setup').length;
+  const notRun = DESIGNER_STEPS.length + FABRICATOR_STEPS.length + MORE_STEPS.length + REVIEW_STEPS.length + MATERIAL_STEPS.length - outcomes.filter((o) => o.name !== 'setup').length;
   if (pageErrors.length > 0) console.log(`uncaught page errors (${pageErrors.length}):\n  ${pageErrors.join('\n  ')}`);
   const passed = outcomes.filter((o) => o.ok).length;
   const failed = outcomes.filter((o) => !o.ok).length + Math.max(0, notRun);

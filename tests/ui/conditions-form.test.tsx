@@ -66,3 +66,19 @@ describe('design conditions form', () => {
     expect(applied.corrosionAllowance).toBe(0.0625);
   });
 });
+
+describe('material picker', () => {
+  it('lists team materials first and keeps an unknown stored material as an option', async () => {
+    const { MaterialChoicesProvider } = await import('@/features/sketch/components/material-choices');
+    render(
+      <DisplayUnitsProvider doc="imperial" display="imperial">
+        <MaterialChoicesProvider choices={[{ id: 'TEAM-1', label: 'Team spec 1 — test (team)', team: true }, { id: 'A106-B', label: 'ASTM A106 B', team: false }]}>
+          <ConditionsForm conditions={{ ...conditions, material: 'OLD-9' }} onApply={() => undefined} />
+        </MaterialChoicesProvider>
+      </DisplayUnitsProvider>,
+    );
+    const picker = screen.getByLabelText('Material') as HTMLSelectElement;
+    expect([...picker.options].map((o) => o.value)).toEqual(['', 'OLD-9', 'TEAM-1', 'A106-B']);
+    expect(picker.value).toBe('OLD-9');
+  });
+});

@@ -1,6 +1,7 @@
-import { useEffect, useState } from 'react';
+import { useEffect, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
+import { createMaterialLookup } from '@shared/data/materials';
 import { can } from '@shared/model/permissions';
 import type { FieldIssue, SpoolDocument, UnitSystem } from '@shared/model/spool';
 import { CautionNote } from '@/components/ui/caution-note';
@@ -10,6 +11,7 @@ import { useSpool } from '@/features/spools/api/get-spool';
 import { spoolKeys, type Spool } from '@/features/spools/api/spool-schemas';
 import { readConflict, useUpdateSpool } from '@/features/spools/api/update-spool';
 import { cn } from '@/lib/cn';
+import { useMaterials } from './api/get-materials';
 import { createSpoolStore, type SpoolStore } from './store/spool-store';
 import { SpoolStoreProvider, useSpoolCheck, useSpoolStore, useSpoolStoreApi } from './store/spool-store-context';
 import { CanvasSlot } from './components/canvas-slot';
@@ -21,6 +23,7 @@ import { DrawingBar } from './components/drawing-bar';
 import { ElementInspector } from './components/element-inspector';
 import { ElementTable } from './components/element-table';
 import { LeaveGuard, useDocumentTitle } from './components/leave-guard';
+import { MaterialChoicesProvider, toMaterialChoices } from './components/material-choices';
 import { SpoolBar } from './components/spool-bar';
 
 function SketchScreen({ spool }: { spool: Spool }) {
@@ -168,9 +171,18 @@ function SketchWorkspace({ initial, selectId }: { initial: Spool; selectId: stri
   // Status, revision and version follow the query cache (saves and transitions update it).
   const { data } = useSpool(initial.id);
   const spool = data ?? initial;
+  // The team's own materials join the picker and the check (the server checks with them too).
+  const materials = useMaterials();
+  const choices = useMemo(() => (materials.data ? toMaterialChoices(materials.data) : undefined), [materials.data]);
+  const checkOptions = useMemo(() => {
+    const team = materials.data?.filter((m) => m.origin === 'team') ?? [];
+    return team.length > 0 ? { findMaterial: createMaterialLookup(team) } : undefined;
+  }, [materials.data]);
   return (
-    <SpoolStoreProvider store={store}>
-      <SketchScreen spool={spool} />
+    <SpoolStoreProvider store={store} checkOptions={checkOptions}>
+      <MaterialChoicesProvider choices={choices}>
+        <SketchScreen spool={spool} />
+      </MaterialChoicesProvider>
     </SpoolStoreProvider>
   );
 }

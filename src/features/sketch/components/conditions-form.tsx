@@ -2,7 +2,6 @@ import { useEffect } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, type FieldErrors, type UseFormRegister } from 'react-hook-form';
 import type { z } from 'zod';
-import { MATERIALS } from '@shared/data/materials';
 import { conditionsSchema, PRODUCT_FORMS, type Conditions, type ConditionOverrides } from '@shared/model/spool';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
@@ -16,6 +15,7 @@ import {
   type ConditionFormValues,
 } from './condition-fields';
 import { useDisplayUnits } from './display-units';
+import { useMaterialChoices, type MaterialChoice } from './material-choices';
 
 const PRODUCT_FORM_LABELS: Record<string, string> = {
   seamless: 'Seamless',
@@ -27,11 +27,11 @@ const PRODUCT_FORM_LABELS: Record<string, string> = {
   'furnace-butt': 'Furnace butt welded',
 };
 
-/** Library materials, plus the current value when it is not in the library (so it is never dropped silently). */
-export const materialOptions = (emptyLabel: string, current?: string) => [
+/** Picker rows, plus the current value when it is not among them (so it is never dropped silently). */
+export const materialOptions = (choices: readonly MaterialChoice[], emptyLabel: string, current?: string) => [
   { value: '', label: emptyLabel },
-  ...(current && !MATERIALS.some((m) => m.id === current) ? [{ value: current, label: `${current} (not in the library)` }] : []),
-  ...MATERIALS.map((m) => ({ value: m.id, label: `${m.spec} ${m.grade} — ${m.name}` })),
+  ...(current && !choices.some((m) => m.id === current) ? [{ value: current, label: `${current} (not in the library)` }] : []),
+  ...choices.map((m) => ({ value: m.id, label: m.label })),
 ];
 
 export const productFormOptions = (emptyLabel: string) => [
@@ -60,6 +60,7 @@ interface FieldsProps {
 /** The design-condition inputs, shared by the spool form and the element overrides. */
 export function ConditionInputs({ register, errors, disabled, inherited, only, currentMaterial }: FieldsProps) {
   const units = useDisplayUnits();
+  const choices = useMaterialChoices();
   const shown = (name: string) => !only || only.includes(name);
   const placeholderOf = (name: keyof Conditions, quantity: 'length' | 'pressure' | 'temperature' | null) => {
     if (!inherited) return undefined;
@@ -90,7 +91,7 @@ export function ConditionInputs({ register, errors, disabled, inherited, only, c
           className="col-span-2"
           label="Material"
           disabled={disabled}
-          options={materialOptions(inherited ? `${inheritLabel}${inherited.material ? ` (${inherited.material})` : ''}` : 'choose a material…', currentMaterial)}
+          options={materialOptions(choices, inherited ? `${inheritLabel}${inherited.material ? ` (${inherited.material})` : ''}` : 'choose a material…', currentMaterial)}
           error={fieldMessage('Material', errors.material?.message)}
           {...register('material', { setValueAs: parseTextInput })}
         />
