@@ -4,7 +4,7 @@
  * elements with antialiasing off and on. Prints frames per second while orbiting and the
  * time from an edit to its new colour on screen (read back from the drawing buffer).
  *
- *   npx tsx bench/canvas.ts [--sizes 50,300,1000] [--seconds 4] [--labels auto|all|none] [--no-build] [--screenshots <dir>]
+ *   npx tsx bench/canvas.ts [--sizes 50,300,1000] [--seconds 4] [--rounds 2] [--labels auto|all|none] [--no-build] [--screenshots <dir>]
  */
 import { createServer, type Server } from 'node:http';
 import { loadavg } from 'node:os';
@@ -25,6 +25,8 @@ const argValue = (name: string) => {
 const sizes = (argValue('--sizes') ?? '50,300,1000').split(',').map(Number);
 const seconds = Number(argValue('--seconds') ?? 4);
 const skipBuild = args.includes('--no-build');
+/** Rounds over all configurations (interleaved, so machine load spreads over all rows). */
+const rounds = Math.max(1, Number(argValue('--rounds') ?? 2));
 const labels = argValue('--labels') ?? 'auto';
 /** Save a screenshot of each configuration into this folder. */
 const shotDir = argValue('--screenshots');
@@ -85,6 +87,8 @@ interface Row {
   antialias: boolean;
   firstFrameMs: number;
   fps: number;
+  /** fps of every round. */
+  fpsRuns?: number[];
   /** Mean time in three.js render() per frame. */
   renderMs: number;
   editMs: number[];
@@ -93,7 +97,13 @@ interface Row {
   renderer: string;
 }
 
-async function measure(page: Page, base: string, n: number, aa: boolean): Promise<Row> {
+async function measure(
+  page: Page,
+  base: string,
+  n: number,
+  aa: boolean,
+  pick: boolean,
+): Promise<Row> {
   const t0 = Date.now();
   await page.goto(`${base}/${entry}?n=${n}&aa=${aa ? 1 : 0}&labels=${labels}`);
   await page.waitForFunction(() => (window.__spoolwright?.frames ?? 0) > 0, undefined, {
@@ -184,7 +194,7 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
   }, 6);
   // Picking: click up to 60 elements (evenly spread) at their projected points.
   let picked: [number, number] = [0, 0];
-  if (!aa) {
+  if (!aa && pick) {
     const ids = await page.evaluate(() =>
       window.__spoolwright!.store.getState().doc.elements.map((e) => e.id),
     );
@@ -212,6 +222,14 @@ async function measure(page: Page, base: string, n: number, aa: boolean): Promis
     renderer: info.renderer,
   };
 }
+
+const fpsCell = (runs: number[]) => {
+  const sorted = [...runs].sort((a, b) => a - b);
+  const mid = sorted[Math.floor(sorted.length / 2)]!;
+  return sorted.length > 1
+    ? `${mid.toFixed(1)} (${sorted[0]!.toFixed(1)}–${sorted[sorted.length - 1]!.toFixed(1)})`
+    : mid.toFixed(1);
+};
 
 const median = (xs: number[]) => {
   const s = xs.filter(Number.isFinite).sort((a, b) => a - b);
@@ -242,11 +260,23 @@ async function main() {
     // tsx keeps function names with a __name helper that page.evaluate bodies then call.
     await page.addInitScript({ content: 'window.__name = (f) => f;' });
     page.on('pageerror', (e) => console.error('page error:', e.message));
-    for (const n of sizes) {
-      for (const aa of [false, true]) {
-        const row = await measure(page, `http://127.0.0.1:${port}`, n, aa);
-        rows.push(row);
-        console.log(`measured ${n} elements, antialias ${aa ? 'on' : 'off'}`);
+    for (let round = 0; round < rounds; round++) {
+      let k = 0;
+      for (const n of sizes) {
+        for (const aa of [false, true]) {
+          const row = await measure(page, `http://127.0.0.1:${port}`, n, aa, round === 0);
+          const prev = rows[k];
+          if (!prev) rows.push({ ...row, fpsRuns: [row.fps] });
+          else {
+            prev.fpsRuns!.push(row.fps);
+            prev.editMs.push(...row.editMs);
+            prev.renderMs = Math.max(prev.renderMs, row.renderMs);
+          }
+          k++;
+          console.log(
+            `round ${round + 1}: ${n} elements, antialias ${aa ? 'on' : 'off'}: ${row.fps.toFixed(1)} fps`,
+          );
+        }
       }
     }
   } finally {
@@ -254,19 +284,19 @@ async function main() {
     server.close();
   }
   console.log(
-    `\nrenderer: ${rows[0]?.renderer ?? '?'}; canvas 1280×720 CSS px, DPR 1; orbit ${seconds} s per row`,
+    `\nrenderer: ${rows[0]?.renderer ?? '?'}; bench page 1280×720 CSS px (canvas under a status strip), DPR 1; orbit ${seconds} s per row and round, ${rounds} round(s)`,
   );
   console.log(
     `load average (1 min) before/after: ${loadBefore.toFixed(2)} / ${loadavg()[0]!.toFixed(2)} on a machine with 2 cores`,
   );
   console.log(
-    '| elements | antialias | first frame (ms) | fps orbiting | render() JS ms/frame | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles | click picks right |',
+    '| elements | antialias | first frame (ms) | fps orbiting, median (range) | render() JS ms/frame | edit → colour median (ms) | edit → colour max (ms) | draw calls | triangles | click picks right |',
   );
   console.log('|---:|:---:|---:|---:|---:|---:|---:|---:|---:|---:|');
   for (const r of rows) {
     const finite = r.editMs.filter(Number.isFinite);
     console.log(
-      `| ${r.elements} | ${r.antialias ? 'on' : 'off'} | ${r.firstFrameMs} | ${r.fps.toFixed(1)} | ${r.renderMs.toFixed(1)} | ${median(r.editMs).toFixed(0)} | ${finite.length ? Math.max(...finite).toFixed(0) : 'n/a'} | ${r.calls} | ${r.triangles} | ${r.antialias ? '' : `${r.picked[0]}/${r.picked[1]}`} |`,
+      `| ${r.elements} | ${r.antialias ? 'on' : 'off'} | ${r.firstFrameMs} | ${fpsCell(r.fpsRuns ?? [r.fps])} | ${r.renderMs.toFixed(1)} | ${median(r.editMs).toFixed(0)} | ${finite.length ? Math.max(...finite).toFixed(0) : 'n/a'} | ${r.calls} | ${r.triangles} | ${r.antialias ? '' : `${r.picked[0]}/${r.picked[1]}`} |`,
     );
   }
 }
