@@ -77,6 +77,8 @@ async function startServer(dataDir: string): Promise<{ url: string; child: Child
     cwd: ROOT,
     env,
     stdio: ['ignore', 'pipe', 'pipe'],
+    // Own process group, so stopping it also stops the node process tsx starts.
+    detached: true,
   });
   child.stdout?.on('data', (d: Buffer) => (out += d.toString()));
   child.stderr?.on('data', (d: Buffer) => (out += d.toString()));
@@ -91,15 +93,24 @@ async function startServer(dataDir: string): Promise<{ url: string; child: Child
     }
     await new Promise((r) => setTimeout(r, 250));
   }
-  child.kill('SIGTERM');
+  killGroup(child, 'SIGKILL');
   throw new Error(`the server did not answer /api/health within 60 s:\n${out}`);
+}
+
+function killGroup(child: ChildProcess, signal: NodeJS.Signals): void {
+  if (child.pid === undefined) return;
+  try {
+    process.kill(-child.pid, signal);
+  } catch {
+    child.kill(signal);
+  }
 }
 
 async function stopServer(child: ChildProcess): Promise<void> {
   if (child.exitCode !== null) return;
   const exited = new Promise<void>((r) => child.once('exit', () => r()));
-  child.kill('SIGTERM');
-  const timer = setTimeout(() => child.kill('SIGKILL'), 5000);
+  killGroup(child, 'SIGTERM');
+  const timer = setTimeout(() => killGroup(child, 'SIGKILL'), 5000);
   await exited;
   clearTimeout(timer);
 }
@@ -570,6 +581,20 @@ async function main(): Promise<number> {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-e2e-'));
   let server: Awaited<ReturnType<typeof startServer>> | undefined;
   let browser: Browser | undefined;
+  const onSignal = () => {
+    // Interrupted: stop the server we started before leaving.
+    if (server) killGroup(server.child, 'SIGTERM');
+    fs.rmSync(dataDir, { recursive: true, force: true });
+    console.log('interrupted');
+    console.log(`${outcomes.filter((o) => o.ok).length} passed, ${Math.max(1, outcomes.filter((o) => !o.ok).length)} failed`);
+    process.exit(130);
+  };
+  process.once('SIGINT', onSignal);
+  process.once('SIGTERM', onSignal);
+  stopEverything = () => {
+    if (server) killGroup(server.child, 'SIGKILL');
+    fs.rmSync(dataDir, { recursive: true, force: true });
+  };
   try {
     server = await startServer(dataDir);
     console.log(`server at ${server.url}`);
@@ -607,7 +632,11 @@ async function main(): Promise<number> {
   return failed === 0 ? 0 : 1;
 }
 
+/** Set by main: stops the server and removes the data directory (for the watchdog). */
+let stopEverything: (() => void) | undefined;
+
 const watchdog = setTimeout(() => {
+  stopEverything?.();
   console.log('e2e run exceeded its time budget');
   console.log(`${outcomes.filter((o) => o.ok).length} passed, ${Math.max(1, outcomes.filter((o) => !o.ok).length)} failed`);
   process.exit(1);

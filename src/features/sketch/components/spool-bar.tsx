@@ -41,6 +41,7 @@ function MetaInput({
   disabled,
   className,
   placeholder,
+  maxLength,
 }: {
   label: string;
   value: string;
@@ -48,6 +49,7 @@ function MetaInput({
   disabled: boolean;
   className: string;
   placeholder?: string;
+  maxLength?: number;
 }) {
   const [text, setText] = useState(value);
   const [focused, setFocused] = useState(false);
@@ -58,6 +60,7 @@ function MetaInput({
     <input
       aria-label={label}
       placeholder={placeholder}
+      maxLength={maxLength}
       className={cn(inputClass, className)}
       value={text}
       disabled={disabled}
@@ -144,8 +147,8 @@ export function SpoolBar({
 
   return (
     <div className="flex flex-wrap items-center gap-3 border-b border-steel-200 bg-steel-50 px-3 py-2">
-      <MetaInput label="Spool name" value={doc.name ?? ''} disabled={!canEdit} className="w-48 font-semibold" onCommit={(name) => api.getState().setMeta({ name })} />
-      <MetaInput label="Line number" placeholder="line number" value={doc.line ?? ''} disabled={!canEdit} className="w-32" onCommit={(line) => api.getState().setMeta({ line })} />
+      <MetaInput label="Spool name" maxLength={200} value={doc.name ?? ''} disabled={!canEdit} className="w-48 font-semibold" onCommit={(name) => api.getState().setMeta({ name })} />
+      <MetaInput label="Line number" maxLength={120} placeholder="line number" value={doc.line ?? ''} disabled={!canEdit} className="w-32" onCommit={(line) => api.getState().setMeta({ line })} />
       <LifecycleBadge status={spool.status} />
       <span className="text-xs text-steel-500" data-testid="revision">
         rev. {spool.revision} · v{spool.version}
