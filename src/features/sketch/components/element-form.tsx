@@ -152,11 +152,11 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
   return (
     <form aria-label="Element properties" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-3">
       <div className="grid grid-cols-2 gap-x-3 gap-y-2">
-        <SelectField label="NPS" disabled={readOnly} options={opt(npsChoices)} error={msg('nps')} {...register('nps', { setValueAs: parseTextInput })} />
+        <SelectField label="NPS" disabled={readOnly} options={opt(npsChoices, defaults.nps === undefined ? '(not set: explicit diameter)' : undefined)} error={msg('nps')} {...register('nps', { setValueAs: parseTextInput })} />
         <SelectField
           label="Schedule"
           disabled={readOnly}
-          options={opt(scheduleChoices)}
+          options={opt(scheduleChoices, defaults.schedule === undefined ? '(not set: explicit wall)' : undefined)}
           error={msg('schedule')}
           {...register('schedule', { setValueAs: parseTextInput })}
         />
