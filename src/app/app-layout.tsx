@@ -36,7 +36,7 @@ export function AppLayout() {
               <span className="text-steel-100">{me.user.name || me.user.email}</span>
               {me.team ? <span className="text-steel-300">{me.team.name}</span> : null}
               <span data-testid="role" className="rounded bg-steel-700 px-1.5 py-px text-xs uppercase tracking-wide text-copper-400">
-                {roleLabel[me.role] ?? me.role}
+                {me.role ? (roleLabel[me.role] ?? me.role) : 'no team'}
               </span>
             </>
           ) : null}

@@ -5,7 +5,7 @@ import { apiRequest, isApiError } from '@/lib/api';
 export const meSchema = z.object({
   user: z.object({ id: z.string(), email: z.string(), name: z.string().nullish() }),
   team: z.object({ id: z.string(), name: z.string() }).nullish(),
-  role: z.string(),
+  role: z.string().nullable(),
   permissions: z.array(z.string()).default([]),
 });
 export type Me = z.infer<typeof meSchema>;
