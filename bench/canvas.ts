@@ -158,6 +158,8 @@ async function measure(
   const editMs = await page.evaluate(async (count) => {
     const hooks = window.__spoolwright!;
     const frame = () => new Promise((r) => requestAnimationFrame(r));
+    // Let the view come back to full resolution after orbiting.
+    await new Promise((r) => setTimeout(r, 600));
     await frame();
     await frame();
     const els = hooks.store.getState().doc.elements;

@@ -1,6 +1,6 @@
 import { useCallback, useEffect, useMemo, useRef } from 'react';
 import { Canvas } from '@react-three/fiber';
-import { OrbitControls } from '@react-three/drei';
+import { AdaptiveDpr, OrbitControls } from '@react-three/drei';
 import type { CheckStatus, SpoolCheck } from '@shared/engine/types';
 import { buildSpoolPath, legLengths } from '../geometry/spool-path';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
@@ -13,6 +13,12 @@ import { meshSpecOf, sceneScale } from './scene-math';
 import { StatusLegend } from './status-legend';
 import { BACKGROUND_COLOR } from './status-style';
 import { ISOMETRIC_VIEW, ViewController } from './view-controller';
+
+/**
+ * Pixel ratio while the view moves (orbit, pan, zoom): software WebGL is fill-bound, so the
+ * canvas draws at half resolution during a move and sharp again 250 ms after it stops.
+ */
+export const MOVING_RESOLUTION = 0.5;
 
 export interface SketchCanvasProps {
   readonly className?: string;
@@ -31,7 +37,8 @@ export interface SketchCanvasProps {
  *   coloured and patterned by check status (see `STATUS_STYLES`, `StatusLegend`).
  * - Hover highlights; click selects (`store.select`); a click on empty space clears it.
  * - Labels follow `view.showDimensions`; antialiasing follows `view.antialias`.
- * - Renders on demand only (`frameloop="demand"`), device pixel ratio 1.
+ * - Renders on demand only (`frameloop="demand"`), device pixel ratio 1 (0.5 while the view
+ *   moves, see `MOVING_RESOLUTION`).
  * - `window.__spoolwright` carries test hooks (`SpoolwrightCanvasHooks`), e.g. `project(id)`.
  * - No canvas-level keyboard shortcuts: keys belong to the page's drawing bar.
  *
@@ -130,6 +137,7 @@ export function SketchCanvas({
           frameloop="demand"
           flat
           dpr={1}
+          performance={{ min: MOVING_RESOLUTION, debounce: 250 }}
           gl={{ antialias: view.antialias, preserveDrawingBuffer: true }}
           onPointerMissed={() => select(null)}
           aria-label="Isometric sketch of the spool"
@@ -166,7 +174,8 @@ export function SketchCanvas({
             <GridAndAxes bbox={path.bbox} />
           </group>
           <LabelProjector labels={labels} registry={registry} scale={scale} />
-          <OrbitControls makeDefault enableDamping={false} />
+          <AdaptiveDpr pixelated />
+          <OrbitControls makeDefault enableDamping={false} regress />
           <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
         </Canvas>
         <LabelOverlay labels={labels} registry={registry} />

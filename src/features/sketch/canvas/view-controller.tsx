@@ -27,7 +27,7 @@ export interface SpoolwrightCanvasHooks {
   project(elementId: string): { x: number; y: number } | null;
   /** Frames rendered since the canvas mounted. */
   readonly frames: number;
-  /** Rotate the view about the vertical through the orbit target (radians) and render. */
+  /** Rotate the view about the vertical through the orbit target (radians) and render, as a drag would (moving resolution included). */
   orbitBy(radians: number): void;
   /** Frame the whole spool. */
   fit(): void;
@@ -65,6 +65,7 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
   const gl = useThree((s) => s.gl);
   const invalidate = useThree((s) => s.invalidate);
   const scene = useThree((s) => s.scene);
+  const perf = useThree((s) => s.performance);
   const frames = useRef(0);
   const pathRef = useRef(path);
   pathRef.current = path;
@@ -182,6 +183,8 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
         camera.position.copy(target).add(offset);
         camera.lookAt(target);
         controls?.update();
+        // As a drag on the controls does: draw at the moving resolution until the view rests.
+        perf.regress();
         invalidate();
       },
       fit,
@@ -220,7 +223,7 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
     return () => {
       if (window.__spoolwright === hooks) delete window.__spoolwright;
     };
-  }, [camera, controls, gl, invalidate, fit, scale, store, scene]);
+  }, [camera, controls, gl, invalidate, fit, scale, store, scene, perf]);
 
   return null;
 }
