@@ -518,3 +518,31 @@ describe('history', () => {
     expect(store.getState().doc.conditions.corrosionAllowance).toBe(0.05);
   });
 });
+
+describe('replacing the document (import)', () => {
+  it('is one undo step that keeps the saved reference, so the import is an unsaved change', () => {
+    const store = createSpoolStore();
+    const s = store.getState();
+    s.startRun({ nps: '4', schedule: '40' });
+    s.addLeg('east', 100);
+    store.getState().markSaved(3);
+    const before = store.getState().doc;
+    const imported: SpoolDocument = {
+      units: 'metric',
+      conditions: { pressure: 1, temperature: 20, material: 'A312-TP316L' },
+      elements: [{ id: 'S7', kind: 'straight', nps: '2', schedule: '10S', length: 500, direction: 'north' }],
+    };
+    store.getState().replaceDocument(imported);
+    expect(store.getState().doc).toBe(imported);
+    expect(store.getState().isDirty).toBe(true);
+    expect(store.getState().savedVersion).toBe(3);
+    store.getState().undo();
+    expect(store.getState().doc).toBe(before);
+    expect(store.getState().isDirty).toBe(false);
+    store.getState().redo();
+    expect(store.getState().doc).toBe(imported);
+    // New ids continue past the imported ones.
+    store.getState().addLeg('east', 1000);
+    expect(new Set(store.getState().doc.elements.map((e) => e.id)).size).toBe(store.getState().doc.elements.length);
+  });
+});

@@ -137,12 +137,8 @@ export function SpoolBar({
       return;
     }
     onImportIssues(null);
-    // Replace the sketch but keep the saved reference, so the import counts as an unsaved change.
-    const s = api.getState();
-    const savedDoc = s.savedDoc;
-    const version = s.savedVersion ?? spool.version;
-    s.load(r.doc, version);
-    s.markSaved(version, savedDoc);
+    // One undoable edit: the saved reference stays, so the import counts as an unsaved change.
+    api.getState().replaceDocument(r.doc);
   };
 
   return (

@@ -123,6 +123,8 @@ export interface SpoolStoreState {
 
   /** Replace the document without history and clear history (opening a spool, server refresh). `version` marks it saved. */
   load(doc: SpoolDocument, version?: number | null): void;
+  /** Replace the whole document as one undoable edit (importing a file); history and saved state are kept. */
+  replaceDocument(doc: SpoolDocument, opts?: ChangeOptions): void;
   /** Merge design conditions; a key set to undefined is removed (required keys are kept). */
   setConditions(patch: Partial<Conditions>, opts?: ChangeOptions): EditResult;
   /** Set name and/or line number; an empty string removes the field. */
@@ -473,6 +475,14 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
           ...history.reset(doc, version),
           ...keepSelection(get, doc),
         });
+      },
+
+      replaceDocument(doc, opts) {
+        // Keep ids rising past both documents so undo never meets a reused id.
+        const c = maxCounters(doc);
+        counters = { S: Math.max(counters.S, c.S), B: Math.max(counters.B, c.B) };
+        set({ drawingPipe: pipeFromDoc(doc) });
+        commit(doc, opts?.history);
       },
 
       setConditions(patch, opts) {
