@@ -12,6 +12,7 @@ import { readFile, stat } from 'node:fs/promises';
 import { extname, join, normalize, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Page } from 'playwright-core';
+import { CHROMIUM_ARGS, CHROMIUM_PATH } from '../scripts/lib/tooling';
 
 const root = resolve(fileURLToPath(new URL('..', import.meta.url)));
 const outDir = join(root, 'node_modules', '.cache', 'canvas-bench');
@@ -241,20 +242,8 @@ const median = (xs: number[]) => {
 async function main() {
   if (!skipBuild) await buildBench();
   const { server, port } = await serve();
-  const browser = await chromium.launch({
-    executablePath: '/usr/bin/chromium',
-    headless: true,
-    args: [
-      '--no-sandbox',
-      '--disable-background-networking',
-      '--disable-component-update',
-      '--disable-sync',
-      '--no-first-run',
-      '--disable-quic',
-      '--use-angle=swiftshader',
-      '--enable-unsafe-swiftshader',
-    ],
-  });
+  const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args: [...CHROMIUM_ARGS] });
+
   const rows: Row[] = [];
   const loadBefore = loadavg()[0]!;
   try {

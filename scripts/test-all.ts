@@ -8,9 +8,9 @@
  */
 import { spawn, spawnSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync, chownSync } from 'node:fs';
-import { createServer } from 'node:net';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
+import { freePort } from './lib/tooling';
 
 const ROOT = join(import.meta.dirname, '..');
 let passed = 0;
@@ -54,16 +54,6 @@ function postgresBin(): string | null {
   const versions = (spawnSync('ls', [base], { encoding: 'utf8' }).stdout ?? '').split('\n').filter(Boolean).sort();
   const v = versions.at(-1);
   return v && existsSync(join(base, v, 'bin', 'initdb')) ? join(base, v, 'bin') : null;
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = createServer();
-    srv.listen(0, '127.0.0.1', () => {
-      const addr = srv.address();
-      srv.close(() => (typeof addr === 'object' && addr ? resolve(addr.port) : reject(new Error('no port'))));
-    });
-  });
 }
 
 /** Start a throwaway PostgreSQL server on loopback; returns its URL and a stop function. */

@@ -6,65 +6,27 @@
  * The server runs in production mode on a fresh temporary data directory and a random port;
  * the demo seed provides the users. Prints `N passed, N failed` last; exits 1 on any failure.
  */
-import { spawn, spawnSync, type ChildProcess } from 'node:child_process';
+import { spawn, type ChildProcess } from 'node:child_process';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
+import { buildClient, CHROMIUM_ARGS, CHROMIUM_PATH, clientBuildIsStale, freePort, ROOT } from '../../scripts/lib/tooling';
 
-const ROOT = fileURLToPath(new URL('../..', import.meta.url));
-const CHROMIUM = process.env.CHROMIUM_PATH || '/usr/bin/chromium';
+const CHROMIUM = CHROMIUM_PATH;
 const RESULTS = path.join(ROOT, 'test-results');
 const PASSWORD = 'spoolwright-demo';
 const STEP_TIMEOUT = 20_000;
 const TOTAL_TIMEOUT = 5 * 60_000;
-const CHROMIUM_ARGS = [
-  '--no-sandbox',
-  '--disable-background-networking',
-  '--disable-component-update',
-  '--disable-sync',
-  '--no-first-run',
-  '--disable-quic',
-  '--use-angle=swiftshader',
-  '--enable-unsafe-swiftshader',
-];
 
 // ---------------------------------------------------------------------------------------------
 // Build, server
 
-function newestMtime(p: string): number {
-  let st: fs.Stats;
-  try {
-    st = fs.statSync(p);
-  } catch {
-    return 0;
-  }
-  if (!st.isDirectory()) return st.mtimeMs;
-  let newest = 0;
-  for (const e of fs.readdirSync(p)) if (e !== 'node_modules' && !e.startsWith('.')) newest = Math.max(newest, newestMtime(path.join(p, e)));
-  return newest;
-}
-
 function buildIfNeeded(): void {
-  const index = path.join(ROOT, 'dist', 'index.html');
-  const inputs = ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts'].map((p) => newestMtime(path.join(ROOT, p)));
-  if (fs.existsSync(index) && fs.statSync(index).mtimeMs >= Math.max(...inputs) && process.env.E2E_REBUILD !== '1') return;
+  if (!clientBuildIsStale(ROOT) && process.env.E2E_REBUILD !== '1') return;
   console.log('building the client (vite build)…');
-  const r = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: ROOT, stdio: 'inherit', timeout: 180_000 });
-  if (r.status !== 0) throw new Error(`vite build failed (status ${r.status})`);
-}
-
-function freePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const port = (srv.address() as net.AddressInfo).port;
-      srv.close(() => resolve(port));
-    });
-  });
+  const status = buildClient(ROOT, 180_000);
+  if (status !== 0) throw new Error(`vite build failed (status ${status})`);
 }
 
 async function startServer(dataDir: string): Promise<{ url: string; child: ChildProcess; log: () => string }> {
@@ -598,7 +560,7 @@ async function main(): Promise<number> {
   try {
     server = await startServer(dataDir);
     console.log(`server at ${server.url}`);
-    browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: CHROMIUM_ARGS, timeout: 30_000 });
+    browser = await chromium.launch({ executablePath: CHROMIUM, headless: true, args: [...CHROMIUM_ARGS], timeout: 30_000 });
     const shared: { spoolId?: string; spoolName?: string } = {};
     const designer = await browser.newContext({ viewport: { width: 1440, height: 900 } });
     await designerJourney(designer, server.url, shared);

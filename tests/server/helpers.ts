@@ -1,6 +1,6 @@
 import { createHash, randomBytes } from 'node:crypto';
+import { freePort } from '../../scripts/lib/tooling';
 import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
@@ -149,16 +149,7 @@ export async function createTestApp(overrides: Partial<ServerConfig> = {}): Prom
 }
 
 /** A free loopback port for a child server. */
-export function getFreePort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const srv = net.createServer();
-    srv.once('error', reject);
-    srv.listen(0, '127.0.0.1', () => {
-      const port = (srv.address() as net.AddressInfo).port;
-      srv.close(() => resolve(port));
-    });
-  });
-}
+export const getFreePort = freePort;
 
 /** A valid small spool document for tests. */
 export function sampleDocument(name = 'Test spool', overrides: Record<string, unknown> = {}) {
