@@ -42,7 +42,7 @@ function summarise(doc: SpoolDocument, elements: readonly ElementCheck[]): Spool
  * Results are identical to `checkSpool` (same pure function per element).
  */
 export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocument) => SpoolCheck {
-  let cache = new WeakMap<SpoolElement, { doc: SpoolDocument; index: number; result: ElementCheck }>();
+  let cache = new WeakMap<SpoolElement, { index: number; result: ElementCheck }>();
   let lastConditions: SpoolDocument['conditions'] | null = null;
   let lastUnits: SpoolDocument['units'] | null = null;
   return (doc) => {
@@ -55,7 +55,7 @@ export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocum
       const hit = cache.get(el);
       if (hit && hit.index === i) return hit.result;
       const result = checkElement(doc, el, i, options.findMaterial);
-      cache.set(el, { doc, index: i, result });
+      cache.set(el, { index: i, result });
       return result;
     });
     return summarise(doc, elements);
