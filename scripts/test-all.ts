@@ -37,6 +37,7 @@ function ensureDebianPackages(): void {
   if (!existsSync('/usr/bin/chromium')) missing.push('chromium');
   if (spawnSync('/usr/bin/python3', ['-c', 'import fluids'], { stdio: 'ignore' }).status !== 0) missing.push('python3-fluids');
   if (!postgresBin()) missing.push('postgresql');
+  if (!existsSync('/usr/bin/pdftotext')) missing.push('poppler-utils');
   if (missing.length === 0) return;
   const isRoot = process.getuid?.() === 0;
   if (isRoot && have('apt-get')) {
