@@ -17,7 +17,7 @@ describe('drawing bar', () => {
     const length = screen.getByLabelText('Leg length');
     await user.clear(length);
     await user.type(length, '508');
-    await user.click(screen.getByRole('button', { name: 'Draw leg South' }));
+    await user.click(screen.getByRole('button', { name: /^Draw leg South/ }));
     const last = store.getState().doc.elements.at(-1)!;
     // 508 mm = 20 in leg; the new bend's tangent (1.5 × 2 in × tan 45° = 3 in) comes off the cut length
     expect(last).toMatchObject({ kind: 'straight', direction: 'south', length: 17 });
@@ -40,7 +40,7 @@ describe('drawing bar', () => {
     expect(ids(store)).not.toBe(before);
     expect(store.getState().doc.elements[1]).toMatchObject({ kind: 'bend', direction: 'down' });
     // the run ends going east: drawing west would double back
-    await user.click(screen.getByRole('button', { name: 'Draw leg West' }));
+    await user.click(screen.getByRole('button', { name: /^Draw leg West/ }));
     expect(screen.getByRole('alert').textContent).toContain('double back');
   });
 

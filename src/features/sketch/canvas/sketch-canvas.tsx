@@ -140,6 +140,7 @@ export function SketchCanvas({
           performance={{ min: MOVING_RESOLUTION, debounce: 250 }}
           gl={{ antialias: view.antialias, preserveDrawingBuffer: true }}
           onPointerMissed={() => select(null)}
+          role="img"
           aria-label="Isometric sketch of the spool"
         >
           <color attach="background" args={[BACKGROUND_COLOR]} />

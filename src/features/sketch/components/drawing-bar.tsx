@@ -205,7 +205,7 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                 <Button
                   key={d.direction}
                   data-direction={d.direction}
-                  aria-label={`Draw leg ${DIRECTION_LABELS[d.direction]}`}
+                  aria-label={`Draw leg ${DIRECTION_LABELS[d.direction]} ${d.label}`}
                   title={`${DIRECTION_LABELS[d.direction]} (${d.label}; Shift: after selected)`}
                   onClick={(e) => drawLeg(d.direction, e.shiftKey || insertAfter)}
                   className="w-12 flex-col gap-0 px-1 leading-tight"
