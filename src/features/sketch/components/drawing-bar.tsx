@@ -210,7 +210,7 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                   onClick={(e) => drawLeg(d.direction, e.shiftKey || insertAfter)}
                   className="w-12 flex-col gap-0 px-1 leading-tight"
                 >
-                  <span>{DIRECTION_LABELS[d.direction]}</span>
+                  <span>{DIRECTION_LABELS[d.direction]}</span>{' '}
                   <span className="text-[10px] text-steel-400">{d.label}</span>
                 </Button>
               ))}
