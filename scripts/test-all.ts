@@ -121,6 +121,7 @@ async function main(): Promise<void> {
   await step('typecheck', 'npm', ['run', '--silent', 'typecheck']);
   await step('lint', 'npm', ['run', '--silent', 'lint']);
   await vitest('unit, engine, CLI, server, store and component suites', []);
+  await step('bundle budget (shell gzip, builds the client)', 'npx', ['tsx', 'scripts/bundle-budget.ts']);
 
   const pg = process.env.TEST_DATABASE_URL ? { url: process.env.TEST_DATABASE_URL, stop: () => undefined } : await startPostgres();
   if (pg) {

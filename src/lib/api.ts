@@ -1,5 +1,10 @@
 import type { z } from 'zod';
 
+/** A response schema: full zod or zod/mini (the shell uses the smaller build). */
+export interface ResponseSchema<T> {
+  safeParse(data: unknown): { success: true; data: T } | { success: false; error: { issues: z.core.$ZodIssue[] } };
+}
+
 /** Shape of every error body the server sends: `{ error: { code, message, details } }`. */
 export interface ApiErrorBody {
   readonly code: string;
@@ -32,7 +37,7 @@ export interface RequestOptions<T> {
   readonly body?: unknown;
   readonly query?: Record<string, string | number | undefined | null>;
   /** When given, the answer is validated; a mismatch is reported as an ApiError with code `bad-response`. */
-  readonly schema?: z.ZodType<T>;
+  readonly schema?: ResponseSchema<T>;
   readonly signal?: AbortSignal;
 }
 
