@@ -30,6 +30,7 @@ export default tseslint.config(
             { target: './shared', from: './src', message: 'shared/ must not import from src/' },
             { target: './shared', from: './server', message: 'shared/ must not import from server/' },
             { target: './src', from: './server', message: 'the client must not import server code' },
+            { target: './src', from: './shared/report/calc-sheet-pdf.ts', message: 'the PDF renderer is Node only (pdfkit, font files): use the server route' },
             { target: './server', from: './src', message: 'the server must not import client code' },
           ],
         },

@@ -9,6 +9,7 @@ import { RequireSignedIn } from './require-signed-in';
 
 // The sketcher carries the 3D canvas: keep it out of the first download.
 const SketchPage = lazy(() => import('@/features/sketch/sketch-page').then((m) => ({ default: m.SketchPage })));
+const CalcSheetPage = lazy(() => import('@/features/calc-sheet/components/calc-sheet-page').then((m) => ({ default: m.CalcSheetPage })));
 
 function RouteErrorView() {
   const error = useRouteError();
@@ -39,6 +40,14 @@ export function createAppRouter() {
               element: (
                 <Suspense fallback={<LoadingLine label="Opening the sketcher…" />}>
                   <SketchPage />
+                </Suspense>
+              ),
+            },
+            {
+              path: '/spools/:spoolId/calc-sheet',
+              element: (
+                <Suspense fallback={<LoadingLine label="Opening the calc sheet…" />}>
+                  <CalcSheetPage />
                 </Suspense>
               ),
             },

@@ -6,10 +6,11 @@ import { CAUTION } from '../../shared/model/caution';
 import { DEMO_TEAM, DEMO_USERS } from '../../server/db/seed';
 
 /** Read a binary body (supertest only buffers text and JSON by itself). */
-function binary(res: NodeJS.ReadableStream, cb: (err: Error | null, body: Buffer) => void) {
+function binary(res: request.Response, cb: (err: Error | null, body: Buffer) => void) {
+  const stream = res as unknown as NodeJS.ReadableStream;
   const chunks: Buffer[] = [];
-  res.on('data', (c: Buffer) => chunks.push(c));
-  res.on('end', () => cb(null, Buffer.concat(chunks)));
+  stream.on('data', (c: Buffer) => chunks.push(c));
+  stream.on('end', () => cb(null, Buffer.concat(chunks)));
 }
 
 const getPdf = (agent: request.Agent, path: string) => agent.get(path).buffer(true).parse(binary);
