@@ -2,7 +2,7 @@ import { Router, type Response } from 'express';
 import { z } from 'zod';
 import type { Db } from '../db/client';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
-import { notFound } from '../errors';
+import { HttpError, notFound } from '../errors';
 import { parseBody } from '../validation';
 import { getRevision, getSpool, listEvents } from '../spools/repo';
 import { runCheck } from '../spools/check';
@@ -25,7 +25,22 @@ export function calcSheetFileName(name: string, revision: number): string {
   return `${base}-rev${revision}-calc-sheet.pdf`;
 }
 
+/**
+ * Largest spool drawn as a PDF on a request: the renderer runs on the server's event loop
+ * (a 100-element sheet takes a few seconds), so a 20,000-element document is refused with a
+ * clear message instead of stalling every other request. The headless checker has no limit.
+ */
+export const CALC_SHEET_MAX_ELEMENTS = 500;
+
 async function sendPdf(res: Response, sheet: CalcSheet, fileName: string) {
+  if (sheet.elements.length > CALC_SHEET_MAX_ELEMENTS) {
+    throw new HttpError(
+      413,
+      'payload_too_large',
+      `A calc sheet PDF is made for spools of up to ${CALC_SHEET_MAX_ELEMENTS} elements; this one has ${sheet.elements.length}. Use "npm run check -- --pdf" for larger spools.`,
+      { elements: sheet.elements.length, limit: CALC_SHEET_MAX_ELEMENTS },
+    );
+  }
   const pdf = await renderCalcSheetPdf(sheet);
   res.setHeader('Content-Type', 'application/pdf');
   res.setHeader('Content-Disposition', `attachment; filename="${fileName}"`);

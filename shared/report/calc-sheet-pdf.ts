@@ -3,9 +3,11 @@
  * the installed @fontsource/barlow package at run time, so it is used by the server and the
  * headless checker and never by the client bundle (ESLint keeps src/ from importing it).
  */
+import { readFileSync } from 'node:fs';
 import { createRequire } from 'node:module';
 import PDFDocument from 'pdfkit';
 import { pageLabel, type CalcSheet, type SheetElement, type SheetRow } from './calc-sheet';
+import { woffToSfnt } from './woff';
 
 const require = createRequire(import.meta.url);
 
@@ -14,6 +16,17 @@ const FONT_FILES = {
   regular: '@fontsource/barlow/files/barlow-latin-400-normal.woff',
   semibold: '@fontsource/barlow/files/barlow-latin-600-normal.woff',
 } as const;
+
+let fontCache: { regular: Buffer; semibold: Buffer } | undefined;
+
+/** The two Barlow weights as TrueType, decoded once per process. */
+function loadFonts(): { regular: Buffer; semibold: Buffer } {
+  fontCache ??= {
+    regular: woffToSfnt(readFileSync(require.resolve(FONT_FILES.regular))),
+    semibold: woffToSfnt(readFileSync(require.resolve(FONT_FILES.semibold))),
+  };
+  return fontCache;
+}
 
 const REGULAR = 'Barlow';
 const SEMIBOLD = 'Barlow-SemiBold';
@@ -371,8 +384,9 @@ export function renderCalcSheetPdf(sheet: CalcSheet): Promise<Buffer> {
       Producer: 'Spoolwright (pdfkit)',
     },
   });
-  doc.registerFont(REGULAR, require.resolve(FONT_FILES.regular));
-  doc.registerFont(SEMIBOLD, require.resolve(FONT_FILES.semibold));
+  const fonts = loadFonts();
+  doc.registerFont(REGULAR, fonts.regular);
+  doc.registerFont(SEMIBOLD, fonts.semibold);
   const chunks: Buffer[] = [];
   const done = new Promise<Buffer>((resolve, reject) => {
     doc.on('data', (c: Buffer) => chunks.push(c));

@@ -3,7 +3,10 @@ import { checkSpool } from '@shared/engine/index';
 import { CAUTION } from '@shared/model/caution';
 import { parseSpoolDocument, type SpoolDocument } from '@shared/model/spool';
 import { buildCalcSheet, formatUtc, pageLabel } from '@shared/report/calc-sheet';
+import { readFileSync } from 'node:fs';
+import { createRequire } from 'node:module';
 import { toPdfText } from '@shared/report/calc-sheet-pdf';
+import { woffToSfnt } from '@shared/report/woff';
 
 function docOf(raw: unknown): SpoolDocument {
   const r = parseSpoolDocument(raw);
@@ -117,5 +120,20 @@ describe('PDF text', () => {
     expect(toPdfText('≤100 °F → 700 °F ≈')).toBe('<=100 °F -> 700 °F ~');
     // Latin-1 letters stay; letters outside the subset lose their accent or become "?".
     expect(toPdfText('Ø Å Łódź')).toBe('Ø Å ?ódz');
+  });
+});
+
+describe('WOFF to TrueType', () => {
+  it('unwraps the Barlow WOFF into an SFNT with every table at its original length (W3C WOFF 1.0)', () => {
+    const woff = readFileSync(createRequire(import.meta.url).resolve('@fontsource/barlow/files/barlow-latin-400-normal.woff'));
+    const ttf = woffToSfnt(woff);
+    const numTables = woff.readUInt16BE(12);
+    expect(ttf.readUInt32BE(0)).toBe(woff.readUInt32BE(4));
+    expect(ttf.readUInt16BE(4)).toBe(numTables);
+    // totalSfntSize in the WOFF header is the size of the decoded font.
+    expect(ttf.length).toBe(woff.readUInt32BE(16));
+    const tags = Array.from({ length: numTables }, (_, i) => ttf.toString('latin1', 12 + i * 16, 16 + i * 16));
+    expect(tags).toEqual(expect.arrayContaining(['cmap', 'glyf', 'head', 'hmtx', 'loca', 'name']));
+    expect(() => woffToSfnt(Buffer.from('not a font at all, clearly not one'.repeat(2)))).toThrow('not a WOFF 1.0 font');
   });
 });

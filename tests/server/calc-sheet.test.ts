@@ -4,6 +4,8 @@ import type request from 'supertest';
 import { createTestApp, type TestApp } from './helpers';
 import { CAUTION } from '../../shared/model/caution';
 import { DEMO_TEAM, DEMO_USERS } from '../../server/db/seed';
+import { buildLongSpool } from '../../server/db/demo-spools';
+import { CALC_SHEET_MAX_ELEMENTS } from '../../server/routes/calc-sheet';
 
 /** Read a binary body (supertest only buffers text and JSON by itself). */
 function binary(res: request.Response, cb: (err: Error | null, body: Buffer) => void) {
@@ -95,6 +97,16 @@ describe('GET /api/spools/:id/calc-sheet.pdf', () => {
     await checker.get('/api/spools/no-such-spool/calc-sheet.pdf').expect(404);
     const anon = await t.anon().get(`/api/spools/${cw.id}/calc-sheet.pdf`).expect(401);
     expect(anon.body.error.code).toBe('unauthenticated');
+  });
+});
+
+describe('calc sheet limits', () => {
+  it('refuses a PDF of a spool beyond the element limit with 413 naming the limit', async () => {
+    const designer = await t.signIn('designer');
+    const doc = buildLongSpool(CALC_SHEET_MAX_ELEMENTS + 1, 'Too long for a sheet');
+    const created = await designer.post('/api/spools').send({ document: doc }).expect(201);
+    const r = await designer.get(`/api/spools/${created.body.id}/calc-sheet.pdf`).expect(413);
+    expect(r.body.error).toMatchObject({ code: 'payload_too_large', details: { elements: CALC_SHEET_MAX_ELEMENTS + 1, limit: CALC_SHEET_MAX_ELEMENTS } });
   });
 });
 
