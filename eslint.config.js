@@ -30,7 +30,6 @@ export default tseslint.config(
             { target: './shared', from: './src', message: 'shared/ must not import from src/' },
             { target: './shared', from: './server', message: 'shared/ must not import from server/' },
             { target: './src', from: './server', message: 'the client must not import server code' },
-            { target: './src', from: './shared/report/calc-sheet-pdf.ts', message: 'the PDF renderer is Node only (pdfkit, font files): use the server route' },
             { target: './server', from: './src', message: 'the server must not import client code' },
           ],
         },
@@ -48,6 +47,22 @@ export default tseslint.config(
             {
               group: ['react', 'react-dom', 'three', '@react-three/*', 'express', 'drizzle-orm', 'drizzle-orm/*', '@electric-sql/*', 'better-auth', 'better-auth/*', 'pg', 'zustand'],
               message: 'shared/ is pure TypeScript: no React, three, Express or database imports',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
+    files: ['src/**/*.{ts,tsx}'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['@shared/report/calc-sheet-pdf', '**/report/calc-sheet-pdf', '**/report/woff', 'pdfkit'],
+              message: 'the calc sheet PDF renderer is Node only (pdfkit, font files): link to the server route instead',
             },
           ],
         },
