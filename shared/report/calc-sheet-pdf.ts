@@ -235,7 +235,14 @@ class Writer {
 function writeCover(w: Writer, sheet: CalcSheet): void {
   w.text(sheet.title, { font: SEMIBOLD, size: 16, color: COLORS.ink, gap: 2 });
   w.text(`${sheet.spoolName} · ${sheet.revisionLabel}`, { font: SEMIBOLD, size: 12, color: COLORS.accent, gap: 8 });
-  w.rows(sheet.identity, false);
+  // Identity two pairs to a row, so the cover keeps room for the conditions and the summary.
+  const pairs: { cells: string[] }[] = [];
+  for (let i = 0; i < sheet.identity.length; i += 2) {
+    const a = sheet.identity[i]!;
+    const b = sheet.identity[i + 1];
+    pairs.push({ cells: [a.label, a.value, b?.label ?? '', b?.value ?? ''] });
+  }
+  w.table(null, [0.14, 0.36, 0.16, 0.34], pairs);
 
   w.heading('Design conditions');
   if (sheet.conditions.length > 0) w.rows(sheet.conditions, true);
