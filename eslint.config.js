@@ -54,6 +54,22 @@ export default tseslint.config(
     },
   },
   {
+    files: ['src/**/*.{ts,tsx}'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        {
+          patterns: [
+            {
+              group: ['@shared/report/calc-sheet-pdf', '**/report/calc-sheet-pdf', '**/report/woff', 'pdfkit'],
+              message: 'the calc sheet PDF renderer is Node only (pdfkit, font files): link to the server route instead',
+            },
+          ],
+        },
+      ],
+    },
+  },
+  {
     files: ['**/*.js', '**/*.cjs', '**/*.mjs'],
     ...tseslint.configs.disableTypeChecked,
     languageOptions: { globals: { ...globals.node } },

@@ -18,6 +18,7 @@ import { publicShareRouter, spoolSharesRouter } from './routes/shares';
 import { teamRouter } from './routes/team';
 import { TeamMaterials } from './materials/team-materials';
 import { commentsRouter } from './routes/comments';
+import { calcSheetRouter, publicCalcSheetRouter } from './routes/calc-sheet';
 
 export interface AppDeps {
   db: Db;
@@ -83,11 +84,13 @@ export function createApp(deps: AppDeps) {
 
   const materials = new TeamMaterials(deps.db);
   app.use('/api/share', publicShareRouter({ db: deps.db, materials }));
+  app.use('/api/share', publicCalcSheetRouter({ db: deps.db, materials }));
   const memberships = new MembershipCache(deps.db);
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
   app.use('/api/spools/:id/comments', commentsRouter({ db: deps.db }));
   app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl }));
+  app.use('/api/spools', calcSheetRouter({ db: deps.db, materials }));
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials }));
   app.use('/api/check', checkRouter({ materials }));
   app.use('/api', catalogRouter({ db: deps.db, materials }));

@@ -96,16 +96,21 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
   return r;
 }
 
+/** The share link of a public token: 404 when unknown, 410 when revoked or expired. */
+export async function findActiveShare(db: Db, token: string): Promise<ShareRow> {
+  if (token.length > 100) throw notFound('Share link not found');
+  const [row] = await db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
+  if (!row) throw notFound('Share link not found');
+  if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
+  if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
+  return row;
+}
+
 /** GET /api/share/:token — the public read-only view; no account needed. */
 export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
   const r = Router();
   r.get('/:token', async (req, res) => {
-    const token = String(req.params.token);
-    if (token.length > 100) throw notFound('Share link not found');
-    const [row] = await deps.db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
-    if (!row) throw notFound('Share link not found');
-    if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
-    if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
+    const row = await findActiveShare(deps.db, String(req.params.token));
     res.json({
       spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
       check: runCheck(row.document, await deps.materials.finder(row.teamId)),

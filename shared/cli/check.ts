@@ -1,21 +1,25 @@
 #!/usr/bin/env node
 /**
- * The headless checker: `npm run check -- [--json] <spool.json | ->`.
- * Exit 0: every element passes or is marginal · 1: any fails or needs review · 2: bad input.
+ * The headless checker: `npm run check -- [--json] [--pdf out.pdf] <spool.json | ->`.
+ * Exit 0: every element passes or is marginal · 1: any fails or needs review · 2: bad input
+ * (or the calc sheet could not be written).
  */
-import { readFileSync } from 'node:fs';
+import { readFileSync, writeFileSync } from 'node:fs';
 import { parseSpoolDocument, type FieldIssue } from '../model/spool';
 import { CAUTION } from '../model/caution';
 import { checkSpool, fmt, type ElementCheck, type SpoolCheck } from '../engine/index';
 import { UNIT_LABELS } from '../units/units';
+import { buildCalcSheet, type CalcSheet } from '../report/calc-sheet';
 
 export interface CliResult {
   readonly code: 0 | 1 | 2;
   readonly stdout: string;
   readonly stderr: string;
+  /** With --pdf: the calc sheet to write and where (the caller renders and writes it). */
+  readonly pdf?: { readonly file: string; readonly sheet: CalcSheet };
 }
 
-const USAGE = 'usage: npm run check -- [--json] <spool.json | ->';
+const USAGE = 'usage: npm run check -- [--json] [--pdf out.pdf] <spool.json | ->';
 
 /** Exit code for a completed check: 1 when any element fails or needs review. */
 export function exitCodeFor(check: SpoolCheck): 0 | 1 {
@@ -72,9 +76,22 @@ export function formatTable(check: SpoolCheck, doc: { elements: readonly { nps?:
 }
 
 /** Run the checker on already-read input text (testable without a process). */
-export function runCheck(args: readonly string[], readInput: (file: string) => string): CliResult {
+export function runCheck(args: readonly string[], readInput: (file: string) => string, now: () => Date = () => new Date()): CliResult {
   const json = args.includes('--json');
-  const files = args.filter((a) => a !== '--json');
+  let pdfFile: string | undefined;
+  const rest: string[] = [];
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i] ?? '';
+    if (a === '--json') continue;
+    if (a === '--pdf' || a.startsWith('--pdf=')) {
+      const f = a === '--pdf' ? args[++i] : a.slice('--pdf='.length);
+      if (f === undefined || f === '' || f.startsWith('--')) return badInput(json, `--pdf needs a file name; ${USAGE}`, []);
+      pdfFile = f;
+      continue;
+    }
+    rest.push(a);
+  }
+  const files = rest;
   const unknown = files.filter((a) => a.startsWith('--'));
   if (unknown.length > 0 || files.length !== 1) {
     return badInput(json, unknown.length > 0 ? `unknown option ${unknown[0] ?? ''}; ${USAGE}` : USAGE, []);
@@ -99,16 +116,34 @@ export function runCheck(args: readonly string[], readInput: (file: string) => s
   const issues = check.elements.flatMap((e) => e.inputIssues);
   if (issues.length > 0) return badInput(json, `${label}: some elements cannot be checked`, issues);
   const code = exitCodeFor(check);
-  if (json) return { code, stdout: `${JSON.stringify(check)}\n`, stderr: '' };
-  return { code, stdout: formatTable(check, parsed.doc), stderr: '' };
+  // A document outside the server has no team, revision or history.
+  const pdf = pdfFile
+    ? { file: pdfFile, sheet: buildCalcSheet({ team: null, revision: null, state: null, document: parsed.doc, check, history: [], historyNote: `No history: made by the headless checker from ${label}.`, generatedAt: now().toISOString() }) }
+    : undefined;
+  const out = json ? `${JSON.stringify(check)}\n` : formatTable(check, parsed.doc);
+  return { code, stdout: out, stderr: '', ...(pdf ? { pdf } : {}) };
 }
 
-function main(): void {
+async function main(): Promise<void> {
   const result = runCheck(process.argv.slice(2), (file) => readFileSync(file === '-' ? 0 : file, 'utf8'));
+  let code: number = result.code;
+  let stderr = result.stderr;
+  if (result.pdf) {
+    try {
+      // Loaded only when asked for: pdfkit and the font files are not needed for a plain check.
+      const { renderCalcSheetPdf } = await import('../report/calc-sheet-pdf');
+      const bytes = await renderCalcSheetPdf(result.pdf.sheet);
+      writeFileSync(result.pdf.file, bytes);
+      stderr += `spoolwright check: calc sheet written to ${result.pdf.file} (${bytes.length} bytes)\n`;
+    } catch (err) {
+      stderr += `spoolwright check: cannot write the calc sheet to ${result.pdf.file}: ${(err as Error).message}\n`;
+      code = 2;
+    }
+  }
   if (result.stdout) process.stdout.write(result.stdout);
-  if (result.stderr) process.stderr.write(result.stderr);
-  process.exitCode = result.code;
+  if (stderr) process.stderr.write(stderr);
+  process.exitCode = code;
 }
 
 const invokedDirectly = process.argv[1] !== undefined && /check\.(ts|js)$/.test(process.argv[1]);
-if (invokedDirectly) main();
+if (invokedDirectly) void main();

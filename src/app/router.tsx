@@ -16,6 +16,11 @@ function page<M>(load: () => Promise<M>, pick: (m: M) => ComponentType) {
 const SketchPage = lazy(() =>
   import('@/features/sketch/sketch-page').then((m) => ({ default: m.SketchPage })),
 );
+const CalcSheetPage = lazy(() =>
+  import('@/features/calc-sheet/components/calc-sheet-page').then((m) => ({
+    default: m.CalcSheetPage,
+  })),
+);
 
 function RouteErrorView() {
   const error = useRouteError();
@@ -68,6 +73,14 @@ export function createAppRouter() {
               element: (
                 <Suspense fallback={<LoadingLine label="Opening the sketcher…" />}>
                   <SketchPage />
+                </Suspense>
+              ),
+            },
+            {
+              path: '/spools/:spoolId/calc-sheet',
+              element: (
+                <Suspense fallback={<LoadingLine label="Opening the calc sheet…" />}>
+                  <CalcSheetPage />
                 </Suspense>
               ),
             },

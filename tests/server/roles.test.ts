@@ -90,6 +90,7 @@ const ROUTES: RouteCase[] = [
   { name: 'GET /api/spools/:id/revisions', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/revisions` }) },
   { name: 'GET /api/spools/:id/revisions/:rev', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/revisions/0` }) },
   { name: 'GET /api/spools/:id/events', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/events` }) },
+  { name: 'GET /api/spools/:id/calc-sheet.pdf', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/calc-sheet.pdf?revision=0` }) },
   { name: 'GET /api/spools/:id/comments', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/comments` }) },
   {
     name: 'POST /api/spools/:id/comments (comment on elements)',
@@ -132,6 +133,12 @@ const ROUTES: RouteCase[] = [
     },
   },
   { name: 'GET /api/share/:token (public view)', allowed: EVERY_MEMBER, isPublic: true, setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareId}` }) },
+  {
+    name: 'GET /api/share/:token/calc-sheet.pdf (public)',
+    allowed: EVERY_MEMBER,
+    isPublic: true,
+    setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareId}/calc-sheet.pdf` }),
+  },
   { name: 'GET /api/team/members', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/team/members' }) },
   {
     name: 'POST /api/team/members (manage members)',
@@ -184,10 +191,10 @@ describe.each(ROUTES)('$name', (route) => {
     const r = await req;
     const allowed = route.isPublic || (who !== 'anonymous' && route.allowed.includes(who));
     if (allowed) {
-      expect(r.status, `${route.name} as ${who}: ${r.text.slice(0, 200)}`).toBeGreaterThanOrEqual(200);
-      expect(r.status, `${route.name} as ${who}: ${r.text.slice(0, 200)}`).toBeLessThan(300);
+      expect(r.status, `${route.name} as ${who}: ${(r.text ?? '').slice(0, 200)}`).toBeGreaterThanOrEqual(200);
+      expect(r.status, `${route.name} as ${who}: ${(r.text ?? '').slice(0, 200)}`).toBeLessThan(300);
     } else {
-      expect(r.status, `${route.name} as ${who}: ${r.text.slice(0, 200)}`).toBe(who === 'anonymous' ? 401 : 403);
+      expect(r.status, `${route.name} as ${who}: ${(r.text ?? '').slice(0, 200)}`).toBe(who === 'anonymous' ? 401 : 403);
       expect(r.body.error.code).toBe(who === 'anonymous' ? 'unauthenticated' : 'forbidden');
     }
   });

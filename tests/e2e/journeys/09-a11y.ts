@@ -92,7 +92,7 @@ async function signInByForm(page: Page, base: string, email: string): Promise<vo
 /** Pages each role can open, as paths with `:spool` standing for a demo spool's id. */
 export const ROLE_PAGES: Record<string, readonly string[]> = {
   designer: ['/spools', '/spools/:spool'],
-  checker: ['/spools', '/spools/:spool'],
+  checker: ['/spools', '/spools/:spool', '/spools/:spool/calc-sheet'],
   fabricator: ['/spools', '/spools/:spool'],
   lead: ['/spools', '/spools/:spool'],
   admin: ['/spools', '/spools/:spool'],

@@ -1,4 +1,5 @@
 import { useEffect, useRef, useState } from 'react';
+import { Link } from 'react-router-dom';
 import { can, findTransition, TRANSITIONS, type SpoolStatus } from '@shared/model/permissions';
 import { parseSpoolDocument, type FieldIssue, type SpoolDocument, type UnitSystem } from '@shared/model/spool';
 import { Button } from '@/components/ui/button';
@@ -159,6 +160,13 @@ export function SpoolBar({
       </span>
       <div className="ml-auto flex flex-wrap items-center gap-2">
         <UnitsSwitch value={displayUnits} docUnits={doc.units} onChange={onDisplayUnits} />
+        <Link
+          to={`/spools/${encodeURIComponent(spool.id)}/calc-sheet`}
+          className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100"
+          title="The calc sheet of the saved revision: print it or download the PDF"
+        >
+          Calc sheet
+        </Link>
         <Button size="sm" onClick={() => downloadJson(fileNameOf(doc), doc)} title="Download the spool document (JSON)">
           Export
         </Button>
