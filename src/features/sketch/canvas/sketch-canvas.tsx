@@ -177,7 +177,7 @@ export function SketchCanvas({
           <LabelProjector labels={labels} registry={registry} scale={scale} />
           <AdaptiveDpr pixelated />
           <OrbitControls makeDefault enableDamping={false} regress />
-          <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
+          <ViewController path={path} scale={scale} fitRequest={view.fitRequest} focus={view.focus} store={store} />
         </Canvas>
         <LabelOverlay labels={labels} registry={registry} />
       </div>

@@ -283,6 +283,27 @@ export function buildSpoolPath(doc: SpoolDocument): SpoolPath {
   };
 }
 
+/**
+ * Box around one element: its centreline (a bend's arc sampled) grown by one outside
+ * diameter on every side, so a focused element keeps a little of its surroundings.
+ */
+export function segmentBox(seg: PathSegment): BoundingBox {
+  const pts: Vec3[] = [seg.start, seg.end];
+  if (seg.kind === 'bend') {
+    for (let k = 1; k < 8; k++) {
+      const phi = (seg.angleRad * k) / 8;
+      pts.push(add(seg.centre, add(scale(seg.xAxis, seg.radius * Math.cos(phi)), scale(seg.yAxis, seg.radius * Math.sin(phi)))));
+    }
+  }
+  const g = seg.outsideDiameter;
+  const lo = (f: (v: Vec3) => number) => Math.min(...pts.map(f)) - g;
+  const hi = (f: (v: Vec3) => number) => Math.max(...pts.map(f)) + g;
+  return {
+    min: vec(lo((v) => v.x), lo((v) => v.y), lo((v) => v.z)),
+    max: vec(hi((v) => v.x), hi((v) => v.y), hi((v) => v.z)),
+  };
+}
+
 /** Centre and size of a box. */
 export function boxCentre(box: BoundingBox): Vec3 {
   return scale(add(box.min, box.max), 0.5);

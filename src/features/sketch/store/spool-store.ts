@@ -9,6 +9,7 @@ import {
   headingSchema,
   npsSchema,
   scheduleSchema,
+  spoolElementSchema,
   type BendRadius,
   type Conditions,
   type ConditionOverrides,
@@ -252,7 +253,8 @@ function firstIssue(
   field: string,
 ): string {
   const iss = r.error?.issues[0];
-  const path = iss && iss.path.length > 0 ? `${field}.${iss.path.map(String).join('.')}` : field;
+  const inner = iss ? iss.path.map(String).join('.') : '';
+  const path = inner === '' ? field : field === '' ? inner : `${field}.${inner}`;
   return `${path}: ${iss?.message ?? 'invalid value'}`;
 }
 
@@ -689,6 +691,10 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
           fields.conditions = conditions;
         }
         const updated = compact({ ...el, ...fields }) as SpoolElement;
+        // The element as a whole must stay valid (e.g. an NPS or an outside diameter, a
+        // schedule or a nominal wall), or the document could not be saved.
+        const whole = spoolElementSchema.safeParse(updated);
+        if (!whole.success) return refuse(firstIssue(whole, ''));
         const turnTo: Vec3 | undefined =
           has('heading') && patch.heading !== undefined
             ? headingToVec(patch.heading)
