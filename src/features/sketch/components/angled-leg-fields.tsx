@@ -58,14 +58,14 @@ export function AngledLegFields({ onDraw, onInvalid }: AngledLegFieldsProps) {
   const issues: readonly AngledIssue[] = result.ok ? [] : result.issues;
   const errorOf = (f: AngledField) => {
     const iss = issues.find((i) => i.field === f);
-    return iss && touched ? `${ANGLED_FIELD_LABELS[f]}: ${iss.message}` : undefined;
+    return iss && touched ? `${ANGLED_FIELD_LABELS[f]} ${iss.message}` : undefined;
   };
   const turn = result.ok && endDir ? angleBetweenDeg(endDir, result.dir) : undefined;
 
   const draw = () => {
     setTouched(true);
     if (!result.ok) {
-      onInvalid(result.issues.map((i) => `${ANGLED_FIELD_LABELS[i.field]}: ${i.message}`).join('; '));
+      onInvalid(result.issues.map((i) => `${ANGLED_FIELD_LABELS[i.field]} ${i.message}`).join('; '));
       return;
     }
     onDraw(result.heading, result.description);

@@ -2,7 +2,9 @@ import { useContext, useMemo } from 'react';
 import { checkSpool, type CheckOptions } from '@shared/engine';
 import type { ElementCheck } from '@shared/engine/types';
 import type { ConditionOverrides, Conditions, SpoolDocument, SpoolElement, UnitSystem } from '@shared/model/spool';
+import { getPipeWall, normalizeNps } from '@shared/data/pipe-dimensions';
 import { convert, type Quantity } from '@shared/units/units';
+import { resolveOutsideDiameter } from '../geometry/pipe-size';
 import { CheckOptionsContext } from '../store/spool-store-context';
 import { useDisplayUnits } from './display-units';
 
@@ -67,6 +69,24 @@ export function convertDocumentUnits(doc: SpoolDocument, to: UnitSystem): SpoolD
   };
 }
 
+/**
+ * The element with its NPS/schedule dimensions written out (document units): the metric and
+ * imperial columns of ASME B36.10M are rounded separately (NPS 2: 2.375 in, 60.3 mm), so a
+ * restated element keeps the exact dimensions its document uses. NPS stays for bend radii
+ * given as multiples of it and for the wall-before-bending table.
+ */
+export function pinDimensions(el: SpoolElement, units: UnitSystem): SpoolElement {
+  const n = el.nps !== undefined ? normalizeNps(el.nps) : undefined;
+  const wall = n && el.schedule !== undefined ? getPipeWall(n, String(el.schedule)) : undefined;
+  const out: Record<string, unknown> = { ...el };
+  if (el.outsideDiameter === undefined) {
+    const od = resolveOutsideDiameter(el, units);
+    if (od !== undefined && n) out.outsideDiameter = od;
+  }
+  if (el.nominalWall === undefined && wall) out.nominalWall = units === 'imperial' ? wall.wallIn : wall.wallMm;
+  return out as unknown as SpoolElement;
+}
+
 /** Check one element of `doc` as restated in `display` units (see above). */
 export function checkElementInUnits(
   doc: SpoolDocument,
@@ -74,7 +94,7 @@ export function checkElementInUnits(
   display: UnitSystem,
   options?: CheckOptions,
 ): ElementCheck | undefined {
-  const one = convertDocumentUnits({ ...doc, elements: [el] }, display);
+  const one = convertDocumentUnits({ ...doc, elements: [pinDimensions(el, doc.units)] }, display);
   return checkSpool(one, options).elements[0];
 }
 

@@ -63,7 +63,7 @@ export function angledDirection(input: AngledDirectionInput): AngledDirectionRes
     issues.push({ field: 'roll', message: 'must be from 0° to 90°' });
   else if (roll > 0) {
     const rt = input.rollToward;
-    if (!isDirection(rt)) issues.push({ field: 'rollToward', message: 'choose the axis the roll leans toward' });
+    if (!isDirection(rt)) issues.push({ field: 'rollToward', message: 'must be chosen for a roll above 0°' });
     else if (isDirection(from) && isDirection(toward) && (!perpendicular(rt, from) || !perpendicular(rt, toward)))
       issues.push({
         field: 'rollToward',
