@@ -100,3 +100,50 @@ describe('any-angle paths', () => {
     close(path.end, vec(100, 0, -50));
   });
 });
+
+describe('fitting the view', () => {
+  it('fits a tall spool whole at 1280 × 800 with a margin (box corners projected isometrically)', async () => {
+    const { fitOrthographic, fitMargin } = await import('@/features/sketch/canvas/scene-math');
+    const { ISOMETRIC_VIEW } = await import('@/features/sketch/canvas/view-controller');
+    // A riser: 24 in east, 1200 in up, 24 in north.
+    const doc = drawn([['east', 24], ['up', 1200], ['north', 24]]);
+    const path = buildSpoolPath(doc);
+    const W = 1280;
+    const H = 800;
+    const iso = vec(ISOMETRIC_VIEW.x, ISOMETRIC_VIEW.y, ISOMETRIC_VIEW.z);
+    const f = fitOrthographic(path.bbox.min, path.bbox.max, iso, W, H);
+    const m = fitMargin(W, H);
+    expect(m).toBe(48); // 6 % of 800 px
+    // Project every corner as the camera does (view-plane axes x = up × z, y = z × x).
+    const z = iso;
+    const x = (() => {
+      const c = cross(vec(0, 1, 0), z);
+      return scale(c, 1 / norm(c));
+    })();
+    const y = cross(z, x);
+    const t = vec(f.target.x, f.target.y, f.target.z);
+    for (const cx of [path.bbox.min.x, path.bbox.max.x])
+      for (const cy of [path.bbox.min.y, path.bbox.max.y])
+        for (const cz of [path.bbox.min.z, path.bbox.max.z]) {
+          const d = sub(vec(cx, cy, cz), t);
+          const sx = W / 2 + dot(d, x) * f.zoom;
+          const sy = H / 2 - dot(d, y) * f.zoom;
+          expect(sx).toBeGreaterThanOrEqual(m - 1e-6);
+          expect(sx).toBeLessThanOrEqual(W - m + 1e-6);
+          expect(sy).toBeGreaterThanOrEqual(m - 1e-6);
+          expect(sy).toBeLessThanOrEqual(H - m + 1e-6);
+        }
+    // The height governs: the projected height fills the usable 704 px exactly.
+    expect(f.extent.h * f.zoom).toBeCloseTo(H - 2 * m, 6);
+  });
+});
+
+describe('dimension labels in display units', () => {
+  it('shows an imperial offset in mm when the display is metric (1 in = 25.4 mm, exact)', () => {
+    const path = buildSpoolPath(drawn([['east', 100], [h({ from: 'east', toward: 'north', angle: 45 }), 50]]));
+    const [s1, b1] = path.segments;
+    expect(dimensionText(b1!, 'imperial', undefined, 'metric')).toBe('45° R152.4 mm');
+    // S1: cut 100 − 2.485281 = 97.514719 in = 2476.87 mm; leg 100 in = 2540 mm
+    expect(dimensionText(s1!, 'imperial', 100, 'metric')).toBe('2476.87 mm · leg 2540');
+  });
+});
