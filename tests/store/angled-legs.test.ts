@@ -185,6 +185,36 @@ describe('angled legs', () => {
   });
 });
 
+describe('editing a bend angle', () => {
+  it('turns the leg after the bend in the bend plane and re-angles the next bend', () => {
+    const store = fresh();
+    const s = store.getState();
+    s.addLeg('east', 100);
+    s.addLeg('north', 50);
+    s.addLeg('east', 100);
+    expect(s.updateElement('B1', { angle: 45 })).toEqual({ ok: true });
+    const els = store.getState().doc.elements;
+    const bends = els.filter(isBend);
+    // east → (45° toward north) → east: a 45° offset, both bends 45°.
+    expect(bends.map((b) => b.angle)).toEqual([45, 45]);
+    expect(els.filter(isStraight)[1]!.heading).toEqual({ east: 0.707106781187, north: 0.707106781187, up: 0 });
+    // Leg lengths stay: the offset leg is still 50 in, so its cut is 50 − 2·R·tan(22.5°).
+    expect(els.filter(isStraight)[1]!.length).toBeCloseTo(50 - 2 * T45, 5);
+    s.undo();
+    expect(store.getState().doc.elements.filter(isBend).map((b) => b.angle)).toEqual([90, 90]);
+  });
+
+  it('refuses 180°, zero and an angle on a straight, naming the field', () => {
+    const store = fresh();
+    const s = store.getState();
+    s.addLeg('east', 100);
+    s.addLeg('north', 50);
+    expect(s.updateElement('B1', { angle: 180 })).toMatchObject({ ok: false, message: expect.stringMatching(/^angle: must be less than 180/) });
+    expect(s.updateElement('B1', { angle: 0 })).toMatchObject({ ok: false, message: 'angle: must be greater than zero' });
+    expect(s.updateElement('S1', { angle: 30 })).toMatchObject({ ok: false, message: 'angle: a straight has no bend angle' });
+  });
+});
+
 describe('focus on selected', () => {
   it('asks the canvas to frame the selected element, refused without one', () => {
     const store = fresh();

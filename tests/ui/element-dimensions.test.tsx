@@ -101,3 +101,22 @@ describe('equation trail in display units', () => {
     expect(eq3a).toMatch(/ in$/);
   });
 });
+
+describe('bend angle in the element form', () => {
+  it('turns the leg after the bend: 90° → 45° makes the next bend 45° as well', async () => {
+    const user = userEvent.setup();
+    const store = drawnStore();
+    // drawn east, north, up, east: B1 turns east → north
+    store.getState().select('B1');
+    renderWithStore(<ElementInspector />, store);
+    const angle = screen.getByLabelText(/^Bend angle/);
+    await user.clear(angle);
+    await user.type(angle, '45');
+    await user.click(screen.getByRole('button', { name: 'Apply' }));
+    await waitFor(() => expect(el(store, 'B1')).toMatchObject({ angle: 45 }));
+    // the north leg now runs 45° between east and north; B2 (to up) stays 90°
+    expect(el(store, 'S2').heading).toEqual({ east: 0.707106781187, north: 0.707106781187, up: 0 });
+    expect(el(store, 'B2')).toMatchObject({ angle: 90 });
+    expect(store.getState().past).toHaveLength(1);
+  });
+});

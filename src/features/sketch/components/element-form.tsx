@@ -262,6 +262,7 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
             <TextField
               label="Bend angle"
               unit="°"
+              hint="the leg after the bend turns in the bend's plane"
               inputMode="decimal"
               autoComplete="off"
               disabled={readOnly}

@@ -20,7 +20,18 @@ import {
   type SpoolDocument,
   type SpoolElement,
 } from '@shared/model/spool';
-import { DIRECTION_VECTORS, angleBetweenDeg, headingToVec, type Vec3 } from '../geometry/vec';
+import {
+  DIRECTION_VECTORS,
+  add,
+  angleBetweenDeg,
+  dot,
+  headingToVec,
+  norm,
+  normalize,
+  scale,
+  sub,
+  type Vec3,
+} from '../geometry/vec';
 import {
   formatLength,
   locate,
@@ -87,6 +98,12 @@ export interface ElementPatch {
   readonly nominalWall?: number;
   /** Bends: R1 as a length or `{ multipleOfD }`. */
   readonly bendRadius?: BendRadius;
+  /**
+   * Bends: the bend angle (0 < angle < 180 degrees). The leg after the bend turns in the
+   * bend's plane (the rest of the run moves with it; the next bend takes the new angle
+   * between its legs); the leg lengths stay.
+   */
+  readonly angle?: number;
   /** Per-element overrides, merged; a key set to undefined is removed; `null` clears all. */
   readonly conditions?: Partial<ConditionOverrides> | null;
   /** Straights: end preparation. */
@@ -643,6 +660,7 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
         for (const key of [
           'length',
           'legLength',
+          'angle',
           'outsideDiameter',
           'insideDiameter',
           'nominalWall',
@@ -652,6 +670,10 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
             if (!(typeof v === 'number' && Number.isFinite(v) && v > 0))
               return refuse(`${key}: must be greater than zero`);
           }
+        }
+        if (has('angle') && patch.angle !== undefined) {
+          if (el.kind !== 'bend') return refuse('angle: a straight has no bend angle');
+          if (!(patch.angle < 180)) return refuse('angle: must be less than 180 degrees (180° would double back)');
         }
         if (el.kind === 'bend') {
           for (const key of ['length', 'legLength', 'endType'] as const)
@@ -708,9 +730,17 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
             if (!at) return refuse(`no element "${id}"`);
             if (at.kind === 'corner') {
               run.corners[at.corner] = updated as (typeof run.corners)[number];
-              if (turnTo) {
-                const next = run.legs[at.corner + 1];
-                if (next) next.dir = turnTo;
+              const next = run.legs[at.corner + 1];
+              if (turnTo && next) next.dir = turnTo;
+              if (has('angle') && patch.angle !== undefined && next) {
+                // Turn the next leg in the plane of the legs the bend joins.
+                const u = run.legs[at.corner]!.dir;
+                const cur = next.dir;
+                const perp = sub(cur, scale(u, dot(cur, u)));
+                if (norm(perp) < 1e-9) return refuse(`angle: ${id} joins legs that run the same way; turn a leg instead`);
+                const t = normalize(perp);
+                const theta = (patch.angle * Math.PI) / 180;
+                next.dir = normalize(add(scale(u, Math.cos(theta)), scale(t, Math.sin(theta))));
               }
               return;
             }
