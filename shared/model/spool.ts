@@ -31,6 +31,20 @@ export const DIRECTIONS = ['north', 'south', 'east', 'west', 'up', 'down'] as co
 export const directionSchema = z.enum(DIRECTIONS);
 export type Direction = z.infer<typeof directionSchema>;
 
+/**
+ * A general sketch direction, for legs drawn off the six axes (45° offsets, rolled legs):
+ * its components along east, north and up. Any length but zero; readers normalise it.
+ * An element with a `heading` runs along it; `direction` (an axis) is then absent or ignored.
+ */
+export const headingSchema = z
+  .object({
+    east: z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number'),
+    north: z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number'),
+    up: z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number'),
+  })
+  .refine((h) => Math.hypot(h.east, h.north, h.up) > 1e-9, 'must not be zero in every component');
+export type Heading = z.infer<typeof headingSchema>;
+
 const finite = () => z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number');
 const nonNegative = () => finite().refine((v) => v >= 0, 'must be zero or more');
 const positive = () => finite().refine((v) => v > 0, 'must be greater than zero');
@@ -104,6 +118,12 @@ const elementBase = {
   nominalWall: positive().optional(),
   /** Outgoing direction in the sketch (straights: run direction; bends: direction after the bend). */
   direction: directionSchema.optional(),
+  /**
+   * General outgoing direction (same meaning as `direction`, any angle); wins over `direction`.
+   * A bend turns the incoming run toward it by `angle`: the bend lies in the plane of the
+   * incoming direction and the heading.
+   */
+  heading: headingSchema.optional(),
   /** Per-element overrides of the spool conditions. */
   conditions: conditionOverridesSchema.optional(),
   /** Free-text tag shown on drawings. */

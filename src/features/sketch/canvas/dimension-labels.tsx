@@ -3,7 +3,7 @@ import { useFrame, useThree } from '@react-three/fiber';
 import { Vector3 } from 'three';
 import type { CheckStatus } from '@shared/engine/types';
 import type { UnitSystem } from '@shared/model/spool';
-import { UNIT_LABELS } from '@shared/units/units';
+import { UNIT_LABELS, convert } from '@shared/units/units';
 import type { PathSegment } from '../geometry/spool-path';
 import type { Vec3 } from '../geometry/vec';
 import type { DimensionMode } from '../store/spool-store';
@@ -24,16 +24,23 @@ const fmt = (v: number) => String(Math.round(v * 100) / 100);
 
 /**
  * Label text of an element: a straight's cut length (and its leg length when bends take
- * tangent from it), a bend's angle and radius.
+ * tangent from it), a bend's angle and radius. Lengths are in the document's `units` and
+ * shown in `display` units (default: the same).
  */
-export function dimensionText(seg: PathSegment, units: UnitSystem, legLength?: number): string {
-  const u = UNIT_LABELS[units].length;
-  if (seg.kind === 'bend') return `${fmt(seg.angleDeg)}° R${fmt(seg.radius)} ${u}`;
+export function dimensionText(
+  seg: PathSegment,
+  units: UnitSystem,
+  legLength?: number,
+  display: UnitSystem = units,
+): string {
+  const u = UNIT_LABELS[display].length;
+  const len = (v: number) => fmt(convert(v, 'length', units, display));
+  if (seg.kind === 'bend') return `${fmt(seg.angleDeg)}° R${len(seg.radius)} ${u}`;
   const leg =
     legLength !== undefined && Math.abs(legLength - seg.length) > 1e-6
-      ? ` · leg ${fmt(legLength)}`
+      ? ` · leg ${len(legLength)}`
       : '';
-  return `${fmt(seg.length)} ${u}${leg}`;
+  return `${len(seg.length)} ${u}${leg}`;
 }
 
 /** Which segments get a label. */
@@ -67,6 +74,7 @@ export function dimensionLabels(
   selectedId: string | null,
   hoveredId: string | null,
   legs?: ReadonlyMap<string, number>,
+  display: UnitSystem = units,
 ): ScreenLabel[] {
   return pickLabelled(segments, mode, selectedId, hoveredId).map((seg) => {
     const st = STATUS_STYLES[statuses.get(seg.id) ?? 'invalid'];
@@ -81,7 +89,7 @@ export function dimensionLabels(
             {st.glyph}
           </span>{' '}
           <span className="text-steel-500">{seg.id}</span>{' '}
-          {dimensionText(seg, units, legs?.get(seg.id))}
+          {dimensionText(seg, units, legs?.get(seg.id), display)}
         </span>
       ),
     };

@@ -71,3 +71,50 @@ export function niceStep(raw: number): number {
   const f = raw / p;
   return (f < 1.5 ? 1 : f < 3.5 ? 2 : f < 7.5 ? 5 : 10) * p;
 }
+
+/** How an orthographic view frames a box: where it looks, its zoom (pixels per scene unit) and the box's projected size. */
+export interface OrthographicFit {
+  readonly target: Vector3;
+  readonly zoom: number;
+  /** Width and height of the box projected on the view plane (scene units). */
+  readonly extent: { readonly w: number; readonly h: number };
+}
+
+/** Margin left around a fitted box on each side: 6 % of the shorter side, at least 24 px. */
+export function fitMargin(width: number, height: number): number {
+  return Math.max(24, 0.06 * Math.min(width, height));
+}
+
+/**
+ * Frame a box (scene units) in an orthographic view looking along −`viewDir` with `up` as
+ * the screen's up, in a viewport of `width` × `height` px: the box's eight corners are
+ * projected on the view plane, so a tall spool seen from the isometric direction keeps its
+ * full projected height, and the zoom leaves `margin` px free on every side.
+ */
+export function fitOrthographic(
+  min: Vec3,
+  max: Vec3,
+  viewDir: Vec3,
+  width: number,
+  height: number,
+  up: Vec3 = { x: 0, y: 1, z: 0 },
+  margin: number = fitMargin(width, height),
+): OrthographicFit {
+  const z = toV(viewDir).normalize();
+  const x = toV(up).cross(z).normalize();
+  const y = z.clone().cross(x);
+  const target = toV(min).add(toV(max)).multiplyScalar(0.5);
+  let w = 0;
+  let h = 0;
+  for (const cx of [min.x, max.x])
+    for (const cy of [min.y, max.y])
+      for (const cz of [min.z, max.z]) {
+        const d = new Vector3(cx, cy, cz).sub(target);
+        w = Math.max(w, Math.abs(d.dot(x)) * 2);
+        h = Math.max(h, Math.abs(d.dot(y)) * 2);
+      }
+  const usableW = Math.max(1, width - 2 * margin);
+  const usableH = Math.max(1, height - 2 * margin);
+  const zoom = Math.max(1e-4, Math.min(usableW / Math.max(w, 1e-6), usableH / Math.max(h, 1e-6)));
+  return { target, zoom, extent: { w, h } };
+}

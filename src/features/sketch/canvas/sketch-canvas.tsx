@@ -4,6 +4,7 @@ import { AdaptiveDpr, OrbitControls } from '@react-three/drei';
 import type { CheckStatus, SpoolCheck } from '@shared/engine/types';
 import { buildSpoolPath, legLengths } from '../geometry/spool-path';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
+import { useDisplayUnits } from '../components/display-units';
 import { LabelOverlay, LabelProjector, dimensionLabels } from './dimension-labels';
 import { CHUNK_SIZE, ElementChunk, itemKey, type ChunkItem } from './element-chunks';
 import { HighlightMesh, SelectionOutline } from './element-mesh';
@@ -61,6 +62,9 @@ export function SketchCanvas({
   const hover = useSpoolStore((s) => s.hover);
 
   const path = useMemo(() => buildSpoolPath(doc), [doc]);
+  // Labels read in the display units; without a units provider (benchmarks) in the document's.
+  const displayUnits = useDisplayUnits();
+  const display = displayUnits.doc === doc.units ? displayUnits.display : doc.units;
   const specs = useMemo(() => path.segments.map(meshSpecOf), [path]);
   const statuses = useMemo(
     () => new Map<string, CheckStatus>(check.elements.map((e) => [e.id, e.status])),
@@ -102,9 +106,10 @@ export function SketchCanvas({
         selectedId,
         hoveredId,
         legLengths(path),
+        display,
       ),
     ],
-    [axes, path, statuses, doc.units, view.showDimensions, selectedId, hoveredId],
+    [axes, path, statuses, doc.units, view.showDimensions, selectedId, hoveredId, display],
   );
   const onHover = useCallback(
     (id: string | null) => {
@@ -177,7 +182,7 @@ export function SketchCanvas({
           <LabelProjector labels={labels} registry={registry} scale={scale} />
           <AdaptiveDpr pixelated />
           <OrbitControls makeDefault enableDamping={false} regress />
-          <ViewController path={path} scale={scale} fitRequest={view.fitRequest} store={store} />
+          <ViewController path={path} scale={scale} fitRequest={view.fitRequest} focus={view.focus} store={store} />
         </Canvas>
         <LabelOverlay labels={labels} registry={registry} />
       </div>

@@ -3,7 +3,8 @@ import { useFrame, useThree } from '@react-three/fiber';
 import { Raycaster, Vector2, Vector3, type Object3D, type OrthographicCamera } from 'three';
 import { add, scale as scaleVec, sub, type Vec3 } from '../geometry/vec';
 import { elementAtTriangle, type Range } from './element-chunks';
-import type { SpoolPath } from '../geometry/spool-path';
+import { segmentBox, type SpoolPath } from '../geometry/spool-path';
+import { fitOrthographic } from './scene-math';
 import type { SpoolStore } from '../store/spool-store';
 
 /** Direction from the target to the camera: a true isometric view from south-east, above. */
@@ -12,6 +13,8 @@ export const ISOMETRIC_VIEW = new Vector3(1, 1, 1).normalize();
 interface OrbitLike {
   target: Vector3;
   update(): void;
+  addEventListener?(type: 'start', listener: () => void): void;
+  removeEventListener?(type: 'start', listener: () => void): void;
 }
 
 /**
@@ -31,6 +34,10 @@ export interface SpoolwrightCanvasHooks {
   orbitBy(radians: number): void;
   /** Frame the whole spool. */
   fit(): void;
+  /** Zoom to one element, keeping the view direction (as "Focus on selected"). */
+  focus(elementId: string): boolean;
+  /** Size of the canvas and the screen box (page px) of the whole spool's bounding box corners. */
+  spoolScreenBox(): { canvas: { left: number; top: number; width: number; height: number }; min: { x: number; y: number }; max: { x: number; y: number } };
   /** Request a render. */
   invalidate(): void;
   /** RGBA of the drawing buffer at a page point (the canvas keeps its buffer). */
@@ -54,11 +61,13 @@ export interface ViewControllerProps {
   /** Scene units per document unit. */
   readonly scale: number;
   readonly fitRequest: number;
+  /** Element to zoom to, with a counter that changes on each request. */
+  readonly focus?: { readonly id: string; readonly request: number } | null;
   readonly store: SpoolStore;
 }
 
 /** Frames the spool (on mount, on `requestFit()`, when the first element appears) and installs the hooks. */
-export function ViewController({ path, scale, fitRequest, store }: ViewControllerProps) {
+export function ViewController({ path, scale, fitRequest, focus, store }: ViewControllerProps) {
   const camera = useThree((s) => s.camera) as OrthographicCamera;
   const controls = useThree((s) => s.controls) as unknown as OrbitLike | null;
   const size = useThree((s) => s.size);
@@ -78,41 +87,78 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
     frames.current++;
   });
 
+  // True while the view is as the last fit left it: then a resize fits again, so the first
+  // fit made before the layout settled never leaves a tall spool clipped.
+  const fitted = useRef(false);
+
+  /** Look at a box (document units) from `viewDir`, zoomed so it fills the view with a margin. */
+  const frame = useCallback(
+    (bmin: Vec3, bmax: Vec3, viewDir: Vector3) => {
+      const min = new Vector3(bmin.x, bmin.y, bmin.z).multiplyScalar(scale);
+      const max = new Vector3(bmax.x, bmax.y, bmax.z).multiplyScalar(scale);
+      const { width, height } = sizeRef.current;
+      const f = fitOrthographic(min, max, viewDir, width, height, camera.up);
+      const diag = Math.max(min.distanceTo(max), 1);
+      const dist = diag * 2 + 10;
+      camera.position.copy(f.target).addScaledVector(viewDir, dist);
+      camera.near = 0.1;
+      camera.far = dist + diag * 4;
+      camera.lookAt(f.target);
+      camera.zoom = f.zoom;
+      camera.updateProjectionMatrix();
+      camera.updateMatrixWorld();
+      if (controls) {
+        controls.target.copy(f.target);
+        controls.update();
+      }
+      invalidate();
+    },
+    [camera, controls, scale, invalidate],
+  );
+
   const fit = useCallback(() => {
     const { bbox } = pathRef.current;
-    const min = new Vector3(bbox.min.x, bbox.min.y, bbox.min.z).multiplyScalar(scale);
-    const max = new Vector3(bbox.max.x, bbox.max.y, bbox.max.z).multiplyScalar(scale);
-    const target = min.clone().add(max).multiplyScalar(0.5);
-    const diag = Math.max(min.distanceTo(max), 1);
-    const dist = diag * 2 + 10;
-    camera.position.copy(target).addScaledVector(ISOMETRIC_VIEW, dist);
-    camera.near = 0.1;
-    camera.far = dist + diag * 4;
-    camera.lookAt(target);
-    camera.updateMatrixWorld();
-    let w = 0;
-    let h = 0;
-    const inv = camera.matrixWorldInverse;
-    for (const x of [min.x, max.x])
-      for (const y of [min.y, max.y])
-        for (const z of [min.z, max.z]) {
-          const p = new Vector3(x, y, z).applyMatrix4(inv);
-          const c = target.clone().applyMatrix4(inv);
-          w = Math.max(w, Math.abs(p.x - c.x) * 2);
-          h = Math.max(h, Math.abs(p.y - c.y) * 2);
-        }
-    const { width, height } = sizeRef.current;
-    camera.zoom = Math.max(
-      1e-4,
-      0.85 * Math.min(width / Math.max(w, 1e-6), height / Math.max(h, 1e-6)),
-    );
-    camera.updateProjectionMatrix();
-    if (controls) {
-      controls.target.copy(target);
-      controls.update();
-    }
-    invalidate();
-  }, [camera, controls, scale, invalidate]);
+    frame(bbox.min, bbox.max, ISOMETRIC_VIEW);
+    fitted.current = true;
+  }, [frame]);
+
+  const focusOn = useCallback(
+    (id: string) => {
+      const seg = pathRef.current.byId.get(id);
+      if (!seg) return false;
+      const box = segmentBox(seg);
+      const target = controls?.target ?? new Vector3();
+      const dir = camera.position.clone().sub(target);
+      const viewDir = dir.lengthSq() > 0 ? dir.normalize() : ISOMETRIC_VIEW.clone();
+      frame(box.min, box.max, viewDir);
+      fitted.current = false;
+      return true;
+    },
+    [camera, controls, frame],
+  );
+
+  // The user moving the view ends the "as fitted" state.
+  useEffect(() => {
+    if (!controls?.addEventListener) return;
+    const onStart = () => {
+      fitted.current = false;
+    };
+    controls.addEventListener('start', onStart);
+    return () => controls.removeEventListener?.('start', onStart);
+  }, [controls]);
+
+  // A resize keeps the user's view, but refits a view nobody has moved since it was fitted.
+  useLayoutEffect(() => {
+    if (fitted.current && hasSize) fit();
+  }, [size.width, size.height, hasSize, fit]);
+
+  const focusRequest = focus?.request;
+  const focusId = focus?.id;
+  useLayoutEffect(() => {
+    if (focusRequest !== undefined && focusId && hasSize) focusOn(focusId);
+    // Only a new request focuses; a later edit of the document does not.
+    // eslint-disable-next-line react-hooks/exhaustive-deps
+  }, [focusRequest]);
 
   // Fit once the canvas has a size and the controls exist, and on each request.
   useLayoutEffect(() => {
@@ -183,11 +229,37 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
         camera.position.copy(target).add(offset);
         camera.lookAt(target);
         controls?.update();
+        fitted.current = false;
         // As a drag on the controls does: draw at the moving resolution until the view rests.
         perf.regress();
         invalidate();
       },
       fit,
+      focus: focusOn,
+      spoolScreenBox() {
+        const rect = gl.domElement.getBoundingClientRect();
+        const { bbox } = pathRef.current;
+        let minX = Infinity;
+        let minY = Infinity;
+        let maxX = -Infinity;
+        let maxY = -Infinity;
+        for (const x of [bbox.min.x, bbox.max.x])
+          for (const y of [bbox.min.y, bbox.max.y])
+            for (const z of [bbox.min.z, bbox.max.z]) {
+              const p = new Vector3(x, y, z).multiplyScalar(scale).project(camera);
+              const sx = rect.left + ((p.x + 1) / 2) * rect.width;
+              const sy = rect.top + ((1 - p.y) / 2) * rect.height;
+              minX = Math.min(minX, sx);
+              minY = Math.min(minY, sy);
+              maxX = Math.max(maxX, sx);
+              maxY = Math.max(maxY, sy);
+            }
+        return {
+          canvas: { left: rect.left, top: rect.top, width: rect.width, height: rect.height },
+          min: { x: minX, y: minY },
+          max: { x: maxX, y: maxY },
+        };
+      },
       invalidate: () => invalidate(),
       readPixel(x, y) {
         const ctx = gl.getContext();
@@ -223,7 +295,7 @@ export function ViewController({ path, scale, fitRequest, store }: ViewControlle
     return () => {
       if (window.__spoolwright === hooks) delete window.__spoolwright;
     };
-  }, [camera, controls, gl, invalidate, fit, scale, store, scene, perf]);
+  }, [camera, controls, gl, invalidate, fit, focusOn, scale, store, scene, perf]);
 
   return null;
 }

@@ -1,6 +1,6 @@
 import { useState } from 'react';
 import { Button } from '@/components/ui/button';
-import { useSpoolStoreApi } from '../store/spool-store-context';
+import { useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
 import { KEY_HELP, useSketchKeys } from './sketch-keys';
 import { ViewMenu } from './view-menu';
 
@@ -30,13 +30,18 @@ function KeyHelp({ open, onClose }: { open: boolean; onClose: () => void }) {
   );
 }
 
-/** Tools floating over the sketch: fit to spool (F), display settings and the key list (?). */
+/** Tools floating over the sketch: fit to spool (F), focus on selected (Shift+F), display settings and the key list (?). */
 export function CanvasTools() {
   const api = useSpoolStoreApi();
   const [helpOpen, setHelpOpen] = useState(false);
   const fit = () => api.getState().requestFit();
+  const selectedId = useSpoolStore((s) => s.selectedId);
+  const focusSelected = () => {
+    if (api.getState().selectedId) api.getState().requestFocus();
+  };
   useSketchKeys({
     onFit: fit,
+    onFocusSelected: focusSelected,
     onHelp: () => setHelpOpen((o) => !o),
     onEscape: () => setHelpOpen(false),
   });
@@ -44,6 +49,9 @@ export function CanvasTools() {
     <div className="absolute top-2 right-2 z-10 flex items-center gap-1">
       <Button size="sm" onClick={fit} title="Fit the spool in view (F)">
         Fit
+      </Button>
+      <Button size="sm" onClick={focusSelected} disabled={!selectedId} title={selectedId ? `Zoom to ${selectedId} (Shift+F)` : 'Select an element to zoom to it (Shift+F)'}>
+        Focus
       </Button>
       <ViewMenu />
       <Button size="sm" onClick={() => setHelpOpen((o) => !o)} aria-expanded={helpOpen} title="Keys (?)">

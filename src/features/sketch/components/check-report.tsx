@@ -3,6 +3,7 @@ import { Button } from '@/components/ui/button';
 import { CheckBadge } from '@/components/ui/status-badge';
 import { formatNumber, formatPercent } from '@/lib/format';
 import { cn } from '@/lib/cn';
+import { UNIT_LABELS } from '@shared/units/units';
 import { useDisplayUnits } from './display-units';
 
 const CASE_LABELS: Record<string, string> = {
@@ -31,12 +32,13 @@ function useLen() {
   return (v: number | null | undefined) => (v === null || v === undefined ? '—' : `${formatNumber(units.toDisplay(v, 'length'))} ${units.label('length')}`);
 }
 
-function TrailList({ steps }: { steps: readonly TrailStep[] }) {
+/** Trail steps; `restated`: the steps already come in display units (no further conversion). */
+function TrailList({ steps, restated }: { steps: readonly TrailStep[]; restated?: boolean }) {
   const units = useDisplayUnits();
   return (
     <ol className="flex flex-col gap-1.5">
       {steps.map((s, i) => {
-        const shown = units.showUnit(s.value, s.unit);
+        const shown = restated ? { value: s.value, unit: s.unit } : units.showUnit(s.value, s.unit);
         return (
           <li key={i} className="rounded border border-steel-200 bg-steel-50 p-1.5 text-xs" data-testid="trail-step">
             <div className="flex justify-between gap-2">
@@ -83,16 +85,55 @@ function CasesTable({ cases, governing }: { cases: readonly CaseResult[]; govern
   );
 }
 
+/** The governing case's trail first, then the other cases and the wall before bending, from `trail` (which may be restated in display units). */
+function EquationTrail({ check, trail }: { check: ElementCheck; trail: ElementCheck }) {
+  const units = useDisplayUnits();
+  const restated = trail !== check || units.display === units.doc;
+  const source = restated ? trail : check;
+  const governing = source.cases.find((c) => c.case === check.governing) ?? source.cases[0];
+  const labels = UNIT_LABELS[units.display];
+  return (
+    <>
+      <p className="my-1 text-[11px] text-steel-500" data-testid="trail-units">
+        {restated
+          ? `Values in ${labels.length}, ${labels.pressure}, ${labels.temperature} (the display units).`
+          : `Substituted values are in the document's units (${units.doc}).`}
+      </p>
+      {governing ? <TrailList steps={governing.trail} restated={restated} /> : null}
+      {source.cases
+        .filter((c) => c !== governing)
+        .map((c) => (
+          <details key={c.case} className="mt-2">
+            <summary className="cursor-pointer text-xs text-steel-600">{caseLabel(c.case)}</summary>
+            <TrailList steps={c.trail} restated={restated} />
+          </details>
+        ))}
+      {source.preBend && source.preBend.trail.length > 0 ? (
+        <details className="mt-2">
+          <summary className="cursor-pointer text-xs text-steel-600">wall before bending</summary>
+          <TrailList steps={source.preBend.trail} restated={restated} />
+        </details>
+      ) : null}
+    </>
+  );
+}
+
 export interface CheckReportProps {
   readonly check: ElementCheck;
   /** Current schedule of the element, to decide whether "use it" applies. */
   readonly schedule?: string;
   readonly onUseSchedule?: (schedule: string) => void;
   readonly readOnly?: boolean;
+  /**
+   * The same element checked with every input restated in the display units (see
+   * `useDisplayUnitCheck`): its trail is shown, so substituted numbers read in the display
+   * units. Default: `check` (display = document units).
+   */
+  readonly trailCheck?: ElementCheck;
 }
 
 /** The wall check of one element: the figures, per-location cases, wall before bending, trail and inputs. */
-export function CheckReport({ check, schedule, onUseSchedule, readOnly }: CheckReportProps) {
+export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailCheck }: CheckReportProps) {
   const units = useDisplayUnits();
   const len = useLen();
   const governingCase = check.cases.find((c) => c.case === check.governing);
@@ -183,22 +224,7 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly }: CheckR
       ) : null}
       <details className="rounded border border-steel-200 p-2" open>
         <summary className="cursor-pointer text-xs font-semibold uppercase tracking-wide text-steel-600">Equation trail</summary>
-        <p className="my-1 text-[11px] text-steel-500">Substituted values are in the document's units ({units.doc}).</p>
-        {governingCase ? <TrailList steps={governingCase.trail} /> : null}
-        {check.cases
-          .filter((c) => c !== governingCase)
-          .map((c) => (
-            <details key={c.case} className="mt-2">
-              <summary className="cursor-pointer text-xs text-steel-600">{caseLabel(c.case)}</summary>
-              <TrailList steps={c.trail} />
-            </details>
-          ))}
-        {check.preBend && check.preBend.trail.length > 0 ? (
-          <details className="mt-2">
-            <summary className="cursor-pointer text-xs text-steel-600">wall before bending</summary>
-            <TrailList steps={check.preBend.trail} />
-          </details>
-        ) : null}
+        <EquationTrail check={check} trail={trailCheck ?? check} />
       </details>
       <details className="rounded border border-steel-200 p-2">
         <summary className="cursor-pointer text-xs font-semibold uppercase tracking-wide text-steel-600">Inputs and their sources</summary>

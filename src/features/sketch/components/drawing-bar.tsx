@@ -1,12 +1,13 @@
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { listPipeWalls, normalizeNps, NPS_SIZES, SCHEDULES } from '@shared/data/pipe-dimensions';
-import type { Direction } from '@shared/model/spool';
+import type { Direction, Heading } from '@shared/model/spool';
 import { convert } from '@shared/units/units';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { cn } from '@/lib/cn';
 import { FALLBACK_BEND_RADIUS } from '../geometry/pipe-size';
 import { useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
+import { AngledLegFields } from './angled-leg-fields';
 import { useDisplayUnits } from './display-units';
 import { DIRECTION_KEYS, useSketchKeys } from './sketch-keys';
 
@@ -31,8 +32,9 @@ export interface DrawingBarProps {
 }
 
 /**
- * The drawing bar: pipe size of the run, leg length, the six direction buttons, undo/redo,
- * delete and insert-after. Refused edits are reported under the bar.
+ * The drawing bar: pipe size of the run, leg length, the six direction buttons, angled legs
+ * (plane + angle, optional roll), undo/redo, delete and insert-after. Refused edits are
+ * reported under the bar.
  */
 export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
   const api = useSpoolStoreApi();
@@ -46,6 +48,7 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
 
   const [lengthText, setLengthText] = useState(() => (units.display === 'metric' ? '1000' : '36'));
   const [insertAfter, setInsertAfter] = useState(false);
+  const [angledOpen, setAngledOpen] = useState(false);
   const [notice, setNotice] = useState<Notice | null>(null);
   const lastUnits = useRef(units.display);
   // Switching display units converts the length being typed, so the same leg is drawn.
@@ -75,7 +78,7 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
     else setNotice({ tone: 'refused', text: r.message });
   };
 
-  const drawLeg = (direction: Direction, after: boolean) => {
+  const drawLeg = (direction: Direction | Heading, after: boolean, done?: string) => {
     if (!canEdit) return;
     if (!lengthOk) {
       setNotice({ tone: 'refused', text: lengthError! });
@@ -89,7 +92,7 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
       return;
     }
     const r = target ? s.insertLegAfter(target, direction, length) : s.addLeg(direction, length);
-    report(r);
+    report(r, done);
   };
 
   const deleteSelected = () => {
@@ -215,6 +218,9 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                 </Button>
               ))}
             </div>
+            <Button aria-expanded={angledOpen} onClick={() => setAngledOpen((o) => !o)} title="Draw a leg at any angle: from an axis toward another, optionally rolled">
+              Angled…
+            </Button>
             <label className="flex items-center gap-1 text-xs text-steel-600" title="Direction buttons insert the leg after the selected element instead of at the run's end">
               <input type="checkbox" checked={insertAfter} onChange={(e) => setInsertAfter(e.target.checked)} disabled={!selectedId && !insertAfter} />
               after selected
@@ -238,6 +244,12 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
           </p>
         )}
       </div>
+      {canEdit && angledOpen ? (
+        <AngledLegFields
+          onDraw={(heading, description) => drawLeg(heading, insertAfter, `leg ${description}`)}
+          onInvalid={(text) => setNotice({ tone: 'refused', text })}
+        />
+      ) : null}
       {notice ? (
         <div
           role={notice.tone === 'refused' ? 'alert' : 'status'}

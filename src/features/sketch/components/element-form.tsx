@@ -2,7 +2,7 @@ import { useEffect, useMemo } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, useWatch } from 'react-hook-form';
 import { z } from 'zod';
-import { listPipeWalls, normalizeNps, NPS_SIZES, SCHEDULES } from '@shared/data/pipe-dimensions';
+import { getPipeSize, getPipeWall, listPipeWalls, normalizeNps, NPS_SIZES, SCHEDULES } from '@shared/data/pipe-dimensions';
 import {
   bendRadiusSchema,
   bendSchema,
@@ -16,12 +16,17 @@ import {
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import { fieldMessage, parseNumberInput, parseTextInput } from './condition-fields';
+import { describeDirection } from '../geometry/angled-direction';
+import { headingToVec } from '../geometry/vec';
 import { roundForEntry, useDisplayUnits, type DisplayUnits } from './display-units';
 
 export const ELEMENT_FIELD_LABELS = {
   tag: 'Tag',
   nps: 'NPS',
   schedule: 'Schedule',
+  outsideDiameter: 'Outside diameter D',
+  insideDiameter: 'Inside diameter d',
+  nominalWall: 'Nominal wall T',
   direction: 'Direction',
   length: 'Length',
   endType: 'End type',
@@ -38,6 +43,10 @@ export const elementFormSchema = z
     // The picker only offers trade designations, so the form holds the string form of the NPS.
     nps: z.string().trim().min(1, 'must not be empty').optional(),
     schedule: z.string().trim().min(1, 'must not be empty').optional(),
+    // Explicit dimensions in display units; empty = from NPS and schedule.
+    outsideDiameter: z.number().optional(),
+    insideDiameter: z.number().optional(),
+    nominalWall: z.number().optional(),
     direction: straightSchema.shape.direction,
     length: z.number().optional(),
     endType: straightSchema.shape.endType,
@@ -51,6 +60,21 @@ export const elementFormSchema = z
       if (!r.success) ctx.addIssue({ code: 'custom', path: [path], message: r.error.issues[0]?.message ?? 'is not valid' });
     };
     if (v.kind === 'straight') check(straightSchema.shape.length, v.length, 'length');
+    for (const key of ['outsideDiameter', 'insideDiameter', 'nominalWall'] as const)
+      if (v[key] !== undefined) check(straightSchema.shape[key], v[key], key);
+    const D = v.outsideDiameter;
+    const T = v.nominalWall;
+    const d = v.insideDiameter;
+    const issue = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
+    if (v.nps === undefined && D === undefined && d === undefined)
+      issue('outsideDiameter', 'give an outside diameter (or an inside diameter with a wall), or choose an NPS');
+    if (v.schedule === undefined && T === undefined) issue('nominalWall', 'give a nominal wall, or choose a schedule');
+    if (d !== undefined && T === undefined && v.schedule === undefined)
+      issue('insideDiameter', 'needs a nominal wall (or a schedule) as well');
+    const pos = (x: number | undefined): x is number => x !== undefined && Number.isFinite(x) && x > 0;
+    if (pos(D) && pos(T) && T >= D / 2) issue('nominalWall', `must be less than half the outside diameter (${roundForEntry(D / 2)})`);
+    if (pos(D) && pos(T) && pos(d) && T < D / 2 && Math.abs(D - 2 * T - d) > 1e-6 * D)
+      issue('insideDiameter', `must equal D − 2T = ${roundForEntry(D - 2 * T)}, or be left empty`);
     if (v.kind === 'bend') {
       check(bendSchema.shape.angle, v.angle, 'angle');
       check(bendRadiusSchema, v.radiusMode === 'multipleOfD' ? { multipleOfD: v.radiusValue } : v.radiusValue, 'radiusValue');
@@ -60,7 +84,16 @@ export type ElementFormValues = z.infer<typeof elementFormSchema>;
 
 export function elementToForm(el: SpoolElement, units: DisplayUnits): ElementFormValues {
   const nps = el.nps === undefined ? undefined : (normalizeNps(el.nps) ?? String(el.nps));
-  const base = { tag: el.tag, nps, schedule: el.schedule === undefined ? undefined : String(el.schedule), direction: el.direction };
+  const len = (v: number | undefined) => (v === undefined ? undefined : roundForEntry(units.toDisplay(v, 'length')));
+  const base = {
+    tag: el.tag,
+    nps,
+    schedule: el.schedule === undefined ? undefined : String(el.schedule),
+    outsideDiameter: len(el.outsideDiameter),
+    insideDiameter: len(el.insideDiameter),
+    nominalWall: len(el.nominalWall),
+    direction: el.direction,
+  };
   if (el.kind === 'straight') {
     return { kind: 'straight', ...base, length: roundForEntry(units.toDisplay(el.length, 'length')), endType: el.endType };
   }
@@ -86,6 +119,12 @@ export function formToElementPatch(
   if (isDirty('nps')) patch.nps = values.nps;
   if (isDirty('schedule')) patch.schedule = values.schedule;
   if (isDirty('direction')) patch.direction = values.direction;
+  for (const key of ['outsideDiameter', 'insideDiameter', 'nominalWall'] as const) {
+    if (isDirty(key)) {
+      const v = values[key];
+      patch[key] = v === undefined ? undefined : units.fromDisplay(v, 'length');
+    }
+  }
   if (el.kind === 'straight') {
     if (isDirty('length') && values.length !== undefined) patch.length = units.fromDisplay(values.length, 'length');
     if (isDirty('endType')) patch.endType = values.endType;
@@ -141,6 +180,19 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
     return current && !NPS_SIZES.includes(current) ? [current, ...NPS_SIZES] : [...NPS_SIZES];
   }, [defaults.nps]);
 
+  // Table dimensions of the chosen NPS and schedule, shown as what an empty field means.
+  const schedule = useWatch({ control: form.control, name: 'schedule' });
+  const tableDims = useMemo(() => {
+    const n = typeof nps === 'string' && nps !== '' ? normalizeNps(nps) : undefined;
+    if (!n) return undefined;
+    const w = schedule ? getPipeWall(n, schedule) : undefined;
+    const size = getPipeSize(n);
+    const show = (inches: number | undefined, mm: number | undefined) => {
+      const v = units.doc === 'imperial' ? inches : mm;
+      return v === undefined ? undefined : `${roundForEntry(units.toDisplay(v, 'length'))} ${units.label('length')}`;
+    };
+    return { od: show(w?.odIn ?? size?.odIn, w?.odMm ?? size?.odMm), wall: show(w?.wallIn, w?.wallMm) };
+  }, [nps, schedule, units]);
   const errors = formState.errors;
   const msg = (name: keyof typeof ELEMENT_FIELD_LABELS) => fieldMessage(ELEMENT_FIELD_LABELS[name], errors[name]?.message);
   const submit = form.handleSubmit((values) => {
@@ -152,14 +204,45 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
   return (
     <form aria-label="Element properties" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-3">
       <div className="grid grid-cols-2 gap-x-3 gap-y-2">
-        <SelectField label="NPS" disabled={readOnly} options={opt(npsChoices, defaults.nps === undefined ? '(not set: explicit diameter)' : undefined)} error={msg('nps')} {...register('nps', { setValueAs: parseTextInput })} />
+        <SelectField label="NPS" disabled={readOnly} options={opt(npsChoices, '(none: explicit diameter)')} error={msg('nps')} {...register('nps', { setValueAs: parseTextInput })} />
         <SelectField
           label="Schedule"
           disabled={readOnly}
-          options={opt(scheduleChoices, defaults.schedule === undefined ? '(not set: explicit wall)' : undefined)}
+          options={opt(scheduleChoices, '(none: explicit wall)')}
           error={msg('schedule')}
           {...register('schedule', { setValueAs: parseTextInput })}
         />
+        <TextField
+          label="Outside diameter D"
+          unit={units.label('length')}
+          hint={tableDims?.od !== undefined ? `empty: ${tableDims.od} from the NPS` : 'empty: from the NPS'}
+          inputMode="decimal"
+          autoComplete="off"
+          disabled={readOnly}
+          error={msg('outsideDiameter')}
+          {...register('outsideDiameter', { setValueAs: parseNumberInput })}
+        />
+        <TextField
+          label="Nominal wall T"
+          unit={units.label('length')}
+          hint={tableDims?.wall !== undefined ? `empty: ${tableDims.wall} from the schedule` : 'empty: from the schedule'}
+          inputMode="decimal"
+          autoComplete="off"
+          disabled={readOnly}
+          error={msg('nominalWall')}
+          {...register('nominalWall', { setValueAs: parseNumberInput })}
+        />
+        <TextField
+          label="Inside diameter d"
+          unit={units.label('length')}
+          hint="given: straights use the ID form, Eq. (3b)"
+          inputMode="decimal"
+          autoComplete="off"
+          disabled={readOnly}
+          error={msg('insideDiameter')}
+          {...register('insideDiameter', { setValueAs: parseNumberInput })}
+        />
+        <div />
         {element.kind === 'straight' ? (
           <>
             <TextField
@@ -179,6 +262,7 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
             <TextField
               label="Bend angle"
               unit="°"
+              hint="the leg after the bend turns in the bend's plane"
               inputMode="decimal"
               autoComplete="off"
               disabled={readOnly}
@@ -207,7 +291,14 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
             />
           </>
         )}
-        <SelectField label="Direction" disabled={readOnly} options={opt(DIRECTIONS, '(not set)')} error={msg('direction')} {...register('direction', { setValueAs: parseTextInput })} />
+        <SelectField
+          label="Direction"
+          disabled={readOnly}
+          options={opt(DIRECTIONS, element.heading ? '(angled, as drawn)' : '(not set)')}
+          hint={element.heading ? `angled: ${describeDirection(headingToVec(element.heading))}` : undefined}
+          error={msg('direction')}
+          {...register('direction', { setValueAs: parseTextInput })}
+        />
         <TextField label="Tag" autoComplete="off" disabled={readOnly} error={msg('tag')} {...register('tag', { setValueAs: parseTextInput })} />
       </div>
       {readOnly ? null : (

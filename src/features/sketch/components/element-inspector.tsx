@@ -8,6 +8,7 @@ import { CautionNote } from '@/components/ui/caution-note';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
 import type { ElementPatch } from '../store/spool-store';
 import { CheckReport } from './check-report';
+import { useDisplayUnitCheck } from './display-check';
 import { conditionsToForm, formToConditions, type ConditionFormValues } from './condition-fields';
 import { ConditionInputs } from './conditions-form';
 import { useDisplayUnits } from './display-units';
@@ -76,6 +77,7 @@ export function ElementInspector({ readOnly }: { readonly readOnly?: boolean }) 
   const check = useSpoolCheck();
   const element = selectedId ? doc.elements.find((e) => e.id === selectedId) : undefined;
   const elementCheck = element ? check.elements.find((c) => c.id === element.id) : undefined;
+  const trailCheck = useDisplayUnitCheck(doc, element, elementCheck);
   const [refusal, setRefusal] = useState<string | null>(null);
   useEffect(() => setRefusal(null), [selectedId]);
 
@@ -114,6 +116,7 @@ export function ElementInspector({ readOnly }: { readonly readOnly?: boolean }) 
           schedule={element.schedule === undefined ? undefined : String(element.schedule)}
           onUseSchedule={(schedule) => apply({ schedule })}
           readOnly={readOnly}
+          trailCheck={trailCheck}
         />
       ) : null}
       <details className="rounded border border-steel-200 p-2">

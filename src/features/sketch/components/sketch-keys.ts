@@ -20,6 +20,7 @@ export const KEY_HELP: readonly { keys: string; what: string }[] = [
   { keys: 'Delete', what: 'delete the selected element' },
   { keys: 'Esc', what: 'clear the selection' },
   { keys: 'F', what: 'fit the spool in view' },
+  { keys: 'Shift + F', what: 'focus on the selected element (zoom to it)' },
   { keys: 'Ctrl + S', what: 'save' },
   { keys: '?', what: 'show or hide this list' },
 ];
@@ -31,6 +32,7 @@ export interface SketchKeyHandlers {
   readonly onDelete?: () => void;
   readonly onEscape?: () => void;
   readonly onFit?: () => void;
+  readonly onFocusSelected?: () => void;
   readonly onSave?: () => void;
   readonly onHelp?: () => void;
 }
@@ -91,6 +93,7 @@ export function useSketchKeys(handlers: SketchKeyHandlers, enabled = true): void
         return;
       }
       if (e.key === 'Escape') h.onEscape?.();
+      else if ((e.key === 'f' || e.key === 'F') && e.shiftKey) h.onFocusSelected?.();
       else if (e.key === 'f' || e.key === 'F') h.onFit?.();
       else if (e.key === '?') h.onHelp?.();
     };

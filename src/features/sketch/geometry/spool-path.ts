@@ -7,6 +7,7 @@ import {
   cross,
   directionOf,
   dot,
+  elementDirection,
   norm,
   normalize,
   scale,
@@ -26,10 +27,11 @@ import {
  *   length (centreline intersection to intersection, or to the run's free end) is the sum of
  *   its straights plus the tangent R·tan(θ/2) of each bend at its ends.
  * - Direction: a straight that follows a bend runs along the bend's outgoing direction; a
- *   straight that starts the run or follows a straight runs along its own `direction`
- *   (default: the current direction; the run starts east). A bend turns the incoming
- *   direction toward its `direction` by its `angle` (90° between perpendicular axes lands
- *   on that axis).
+ *   straight that starts the run or follows a straight runs along its own `heading` or
+ *   `direction` (default: the current direction; the run starts east). A bend turns the
+ *   incoming direction u toward its `heading`/`direction` h by its `angle`, in the plane of
+ *   u and h (90° between perpendicular axes lands on that axis; 45° with h at 45° to u lands
+ *   on h). Any angle and plane: the bend's torus frame follows.
  */
 
 export interface StraightSegment {
@@ -127,9 +129,9 @@ function perpendicularTo(u: Vec3): Vec3 {
 /** Initial direction of a run: the first element's direction, with a leading bend's incoming direction made perpendicular. */
 function initialDirection(elements: readonly SpoolElement[]): Vec3 {
   const first = elements[0];
-  if (!first?.direction) return EAST;
-  const d = DIRECTION_VECTORS[first.direction];
-  if (first.kind === 'straight') return d;
+  const d = first ? elementDirection(first) : undefined;
+  if (!d) return EAST;
+  if (first?.kind === 'straight') return d;
   // A bend starts the run: come in perpendicular to where it turns.
   return Math.abs(dot(d, EAST)) < 0.5 ? EAST : DIRECTION_VECTORS.north;
 }
@@ -142,13 +144,12 @@ export interface ElementDirections {
 
 /** Bend turn target projected into the plane perpendicular to u; a fallback when unusable. */
 function bendTarget(u: Vec3, bend: Bend, next: SpoolElement | undefined, notes: string[]): Vec3 {
-  const candidates: (Direction | undefined)[] = [
-    bend.direction,
-    next?.kind === 'straight' ? next.direction : undefined,
+  const candidates: (Vec3 | undefined)[] = [
+    elementDirection(bend),
+    next?.kind === 'straight' ? elementDirection(next) : undefined,
   ];
-  for (const c of candidates) {
-    if (!c) continue;
-    const t = DIRECTION_VECTORS[c];
+  for (const t of candidates) {
+    if (!t) continue;
     const perp = sub(t, scale(u, dot(t, u)));
     if (norm(perp) > 1e-6) return normalize(perp);
   }
@@ -185,7 +186,8 @@ export function buildSpoolPath(doc: SpoolDocument): SpoolPath {
     maxOd = Math.max(maxOd, od);
     const prev = index > 0 ? doc.elements[index - 1] : undefined;
     if (el.kind === 'straight') {
-      const dir = prev?.kind !== 'bend' && el.direction ? DIRECTION_VECTORS[el.direction] : cur;
+      const own = prev?.kind !== 'bend' ? elementDirection(el) : undefined;
+      const dir = own ?? cur;
       const end = add(p, scale(dir, el.length));
       const midpoint = add(p, scale(dir, el.length / 2));
       const side = perpendicularTo(dir);
@@ -278,6 +280,27 @@ export function buildSpoolPath(doc: SpoolDocument): SpoolPath {
     developedLength: developed,
     bbox: box,
     notes,
+  };
+}
+
+/**
+ * Box around one element: its centreline (a bend's arc sampled) grown by one outside
+ * diameter on every side, so a focused element keeps a little of its surroundings.
+ */
+export function segmentBox(seg: PathSegment): BoundingBox {
+  const pts: Vec3[] = [seg.start, seg.end];
+  if (seg.kind === 'bend') {
+    for (let k = 1; k < 8; k++) {
+      const phi = (seg.angleRad * k) / 8;
+      pts.push(add(seg.centre, add(scale(seg.xAxis, seg.radius * Math.cos(phi)), scale(seg.yAxis, seg.radius * Math.sin(phi)))));
+    }
+  }
+  const g = seg.outsideDiameter;
+  const lo = (f: (v: Vec3) => number) => Math.min(...pts.map(f)) - g;
+  const hi = (f: (v: Vec3) => number) => Math.max(...pts.map(f)) + g;
+  return {
+    min: vec(lo((v) => v.x), lo((v) => v.y), lo((v) => v.z)),
+    max: vec(hi((v) => v.x), hi((v) => v.y), hi((v) => v.z)),
   };
 }
 

@@ -1,4 +1,4 @@
-import type { Direction } from '@shared/model/spool';
+import type { Direction, Heading } from '@shared/model/spool';
 
 /** A plain 3D vector in scene axes: east = +x, up = +y, north = −z (south = +z). */
 export interface Vec3 {
@@ -19,10 +19,11 @@ export const normalize = (a: Vec3): Vec3 => {
   const n = norm(a);
   return n === 0 ? a : scale(a, 1 / n);
 };
-/** Angle between two vectors, degrees (0…180). */
+/** Angle between two vectors, degrees (0…180); atan2 keeps it exact near 0° and 180°. */
 export const angleBetweenDeg = (a: Vec3, b: Vec3): number => {
-  const c = dot(normalize(a), normalize(b));
-  return (Math.acos(Math.min(1, Math.max(-1, c))) * 180) / Math.PI;
+  const u = normalize(a);
+  const v = normalize(b);
+  return (Math.atan2(norm(cross(u, v)), dot(u, v)) * 180) / Math.PI;
 };
 
 /** Unit vector of each sketch direction (east = +x, up = +y, north = −z). */
@@ -50,4 +51,26 @@ export function directionOf(v: Vec3, tolerance = 1e-6): Direction | undefined {
     if (norm(sub(normalize(v), d)) < tolerance) return name;
   }
   return undefined;
+}
+
+/** A document heading (east, north, up components) as a unit scene vector. */
+export function headingToVec(h: Heading): Vec3 {
+  return normalize(vec(h.east, h.up, -h.north));
+}
+
+const clean = (v: number) => {
+  const r = Math.round(v * 1e12) / 1e12;
+  return r === 0 ? 0 : r;
+};
+
+/** A scene vector as a document heading (unit length, components rounded to 1e-12). */
+export function vecToHeading(v: Vec3): Heading {
+  const u = normalize(v);
+  return { east: clean(u.x), north: clean(-u.z), up: clean(u.y) };
+}
+
+/** The unit direction an element states: its `heading`, else its axis `direction`, else undefined. */
+export function elementDirection(el: { heading?: Heading; direction?: Direction }): Vec3 | undefined {
+  if (el.heading) return headingToVec(el.heading);
+  return el.direction ? DIRECTION_VECTORS[el.direction] : undefined;
 }

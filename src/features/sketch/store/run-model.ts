@@ -9,7 +9,19 @@ import {
 import { UNIT_LABELS } from '@shared/units/units';
 import { FALLBACK_BEND_RADIUS, bendTangent } from '../geometry/pipe-size';
 import { buildSpoolPath } from '../geometry/spool-path';
-import { angleBetweenDeg, directionOf, type Vec3 } from '../geometry/vec';
+import {
+  add,
+  angleBetweenDeg,
+  directionOf,
+  dot,
+  normalize,
+  scale,
+  elementDirection,
+  norm,
+  sub,
+  vecToHeading,
+  type Vec3,
+} from '../geometry/vec';
 
 /*
  * The run as legs and corners, the form in which the store edits a spool's structure.
@@ -116,13 +128,47 @@ export function defaultBendRadius(doc: SpoolDocument): BendRadius {
   return doc.defaultBendRadius ?? FALLBACK_BEND_RADIUS;
 }
 
+/**
+ * An element pointed along `dir`: an axis `direction` when `dir` is on an axis, else a
+ * `heading` (the other key removed). The same object when it already points that way, so
+ * unchanged elements keep their identity (the memoising checker relies on it).
+ */
+export function orient<T extends SpoolElement>(el: T, dir: Vec3): T {
+  const axis = directionOf(dir);
+  const current = elementDirection(el);
+  const same = current !== undefined && norm(sub(current, dir)) < 1e-9;
+  if (axis) {
+    if (same && el.direction === axis && el.heading === undefined) return el;
+    const { heading: _h, ...rest } = el;
+    return { ...rest, direction: axis } as T;
+  }
+  if (same && el.heading !== undefined) return el;
+  const { direction: _d, ...rest } = el;
+  return { ...rest, heading: vecToHeading(dir) } as T;
+}
+
+/**
+ * Where a bend stated as `bend` leaves a run coming in along `u` (as the path draws it): its
+ * heading/direction projected square to `u`, turned by its angle. Undefined without a usable
+ * direction.
+ */
+function bendExit(bend: Bend, u: Vec3): Vec3 | undefined {
+  const h = elementDirection(bend);
+  if (!h) return undefined;
+  const perp = sub(h, scale(u, dot(h, u)));
+  if (norm(perp) < 1e-6) return undefined;
+  const t = normalize(perp);
+  const theta = (bend.angle * Math.PI) / 180;
+  return normalize(add(scale(u, Math.cos(theta)), scale(t, Math.sin(theta))));
+}
+
 function newBend(
   ctx: RunContext,
   template: SpoolElement | undefined,
   angle: number,
   dir: Vec3,
 ): Bend {
-  return createBend({
+  const bend = createBend({
     id: ctx.nextId('B'),
     ...(template?.nps !== undefined ? { nps: template.nps } : {}),
     ...(template?.schedule !== undefined ? { schedule: template.schedule } : {}),
@@ -132,11 +178,9 @@ function newBend(
     ...(template?.nominalWall !== undefined ? { nominalWall: template.nominalWall } : {}),
     bendRadius: defaultBendRadius(ctx.doc),
     angle,
-    ...(directionOf(dir) ? { direction: directionOf(dir)! } : {}),
   });
+  return orient(bend, dir);
 }
-
-const isAxis = (v: Vec3) => directionOf(v) !== undefined;
 
 /**
  * Normalise a run after an edit and turn it back into elements: drop emptied legs, merge
@@ -178,10 +222,6 @@ export function serializeRun(
   for (let i = 0; i < corners.length; ) {
     const a = legs[i]!;
     const b = legs[i + 1]!;
-    if (!isAxis(a.dir) || !isAxis(b.dir)) {
-      i++;
-      continue;
-    }
     const angle = angleBetweenDeg(a.dir, b.dir);
     if (angle < EPS) {
       legs.splice(i, 2, {
@@ -195,12 +235,17 @@ export function serializeRun(
     if (angle > 180 - EPS)
       return { ok: false, message: ctx.doubleBackMessage ?? DOUBLE_BACK_MESSAGE };
     const rounded = Math.round(angle * 1e6) / 1e6;
-    const direction = directionOf(b.dir);
     const bend = corners[i];
     if (!bend) {
       corners[i] = newBend(ctx, a.pieces[a.pieces.length - 1] ?? b.pieces[0], rounded, b.dir);
-    } else if (bend.angle !== rounded || bend.direction !== direction) {
-      corners[i] = { ...bend, angle: rounded, ...(direction ? { direction } : {}) };
+    } else {
+      // A bend that already leaves along the next leg keeps its stated direction (a
+      // hand-made "45° toward north" stays as written).
+      const exit = bend.angle === rounded ? bendExit(bend, a.dir) : undefined;
+      if (!(exit && norm(sub(exit, b.dir)) < 1e-9)) {
+        const turned = orient(bend, b.dir);
+        corners[i] = turned.angle === rounded ? turned : { ...turned, angle: rounded };
+      }
     }
     i++;
   }
@@ -213,7 +258,6 @@ export function serializeRun(
     const after = corners[i] ?? null;
     const tBefore = tangentOf(before, doc);
     const tAfter = tangentOf(after, doc);
-    const direction = directionOf(leg.dir);
     for (let j = 0; j < leg.pieces.length; j++) {
       const piece = leg.pieces[j]!;
       const need = (j === 0 ? tBefore : 0) + (j === leg.pieces.length - 1 ? tAfter : 0);
@@ -236,10 +280,13 @@ export function serializeRun(
             `it must be longer than ${formatLength(need, doc)}, the tangent R·tan(θ/2) ${bends.length > 1 ? 'of both bends' : 'of the bend'} (${detail})`,
         };
       }
-      const next =
-        piece.length === cut && (direction === undefined || piece.direction === direction)
-          ? piece
-          : { ...piece, length: cut, ...(direction ? { direction } : {}) };
+      // A straight right after a bend runs along the bend's exit; one with no stated
+      // direction there keeps none rather than gaining a heading.
+      const followsBend = j === 0 && before !== null;
+      const unstated = piece.direction === undefined && piece.heading === undefined;
+      const oriented =
+        followsBend && unstated && directionOf(leg.dir) === undefined ? piece : orient(piece, leg.dir);
+      const next = oriented.length === cut ? oriented : { ...oriented, length: cut };
       elements.push(next);
     }
     if (after) elements.push(after);

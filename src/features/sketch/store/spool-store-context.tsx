@@ -5,7 +5,7 @@ import type { SpoolDocument } from '@shared/model/spool';
 import { createSpoolStore, type SpoolStore, type SpoolStoreState } from './spool-store';
 
 const SpoolStoreContext = createContext<SpoolStore | null>(null);
-const CheckOptionsContext = createContext<CheckOptions | undefined>(undefined);
+export const CheckOptionsContext = createContext<CheckOptions | undefined>(undefined);
 
 export interface SpoolStoreProviderProps {
   /** A store made by the caller (e.g. to load server data into it); else one is made from `initial` once. */

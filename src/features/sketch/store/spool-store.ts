@@ -6,21 +6,36 @@ import {
   createStraight,
   directionSchema,
   endTypeSchema,
+  headingSchema,
   npsSchema,
   scheduleSchema,
+  spoolElementSchema,
   type BendRadius,
   type Conditions,
   type ConditionOverrides,
   type Direction,
   type EndType,
+  type Heading,
   type NpsInput,
   type SpoolDocument,
   type SpoolElement,
 } from '@shared/model/spool';
-import { DIRECTION_VECTORS, angleBetweenDeg } from '../geometry/vec';
+import {
+  DIRECTION_VECTORS,
+  add,
+  angleBetweenDeg,
+  dot,
+  headingToVec,
+  norm,
+  normalize,
+  scale,
+  sub,
+  type Vec3,
+} from '../geometry/vec';
 import {
   formatLength,
   locate,
+  orient,
   parseRun,
   serializeRun,
   type EditResult,
@@ -74,6 +89,8 @@ export interface ElementPatch {
   readonly legLength?: number;
   /** Straights: the straight's run direction (splits it off its leg when the leg has several straights). Bends: the direction after the bend (the whole following leg turns). */
   readonly direction?: Direction;
+  /** As `direction`, any angle (east/north/up components); wins over `direction` when both are given. */
+  readonly heading?: Heading;
   readonly nps?: NpsInput;
   readonly schedule?: string;
   readonly outsideDiameter?: number;
@@ -81,6 +98,12 @@ export interface ElementPatch {
   readonly nominalWall?: number;
   /** Bends: R1 as a length or `{ multipleOfD }`. */
   readonly bendRadius?: BendRadius;
+  /**
+   * Bends: the bend angle (0 < angle < 180 degrees). The leg after the bend turns in the
+   * bend's plane (the rest of the run moves with it; the next bend takes the new angle
+   * between its legs); the leg lengths stay.
+   */
+  readonly angle?: number;
   /** Per-element overrides, merged; a key set to undefined is removed; `null` clears all. */
   readonly conditions?: Partial<ConditionOverrides> | null;
   /** Straights: end preparation. */
@@ -97,7 +120,15 @@ export interface ViewSettings {
   readonly antialias: boolean;
   /** Incremented by `requestFit()`; the canvas frames the spool when it changes. */
   readonly fitRequest: number;
+  /** Set by `requestFocus()`: the canvas frames element `id` when `request` changes. */
+  readonly focus: { readonly id: string; readonly request: number } | null;
 }
+
+/**
+ * Where a new leg runs: one of the six axes, or a general heading (east/north/up components,
+ * e.g. from `angledDirection`: "45° from east toward north").
+ */
+export type LegDirection = Direction | Heading;
 
 export interface SpoolStoreState {
   // document slice
@@ -144,11 +175,12 @@ export interface SpoolStoreState {
   /**
    * Draw a leg of `length` (leg length, see conventions) in `direction` at the run's free end.
    * Same direction: a straight is added to the last leg. A turn inserts a bend with the
-   * spool's default radius and the angle between the legs (90° between axes). Refused: a
+   * spool's default radius and the angle between the legs (90° between axes, 45° for a leg
+   * "45° from east toward north" after an east leg; any angle and plane). Refused: a
    * reversal ("a leg cannot double back on the previous one"); a leg not longer than the
    * new bend's tangent R·tan(θ/2); a previous leg that would become too short.
    */
-  addLeg(direction: Direction, length: number, opts?: ChangeOptions): EditResult;
+  addLeg(direction: LegDirection, length: number, opts?: ChangeOptions): EditResult;
   /**
    * Insert a leg right after element `id` (after a straight: at its far end, splitting its
    * leg if it is not the leg's last straight; after a bend: at the start of the following
@@ -156,7 +188,7 @@ export interface SpoolStoreState {
    */
   insertLegAfter(
     id: string,
-    direction: Direction,
+    direction: LegDirection,
     length: number,
     opts?: ChangeOptions,
   ): EditResult;
@@ -183,6 +215,8 @@ export interface SpoolStoreState {
   setAntialias(on: boolean): void;
   /** Ask the canvas to frame the whole spool ("fit to spool"). */
   requestFit(): void;
+  /** Ask the canvas to zoom to element `id` (default: the selected one); refused when there is none. */
+  requestFocus(id?: string): EditResult;
 }
 
 export type SpoolStore = StoreApi<SpoolStoreState>;
@@ -236,7 +270,8 @@ function firstIssue(
   field: string,
 ): string {
   const iss = r.error?.issues[0];
-  const path = iss && iss.path.length > 0 ? `${field}.${iss.path.map(String).join('.')}` : field;
+  const inner = iss ? iss.path.map(String).join('.') : '';
+  const path = inner === '' ? field : field === '' ? inner : `${field}.${inner}`;
   return `${path}: ${iss?.message ?? 'invalid value'}`;
 }
 
@@ -280,9 +315,9 @@ function createSelectionSlice(
 function createViewSlice(
   set: SetState,
   get: GetState,
-): Pick<SpoolStoreState, 'view' | 'setShowDimensions' | 'setAntialias' | 'requestFit'> {
+): Pick<SpoolStoreState, 'view' | 'setShowDimensions' | 'setAntialias' | 'requestFit' | 'requestFocus'> {
   return {
-    view: { showDimensions: 'auto', antialias: false, fitRequest: 0 },
+    view: { showDimensions: 'auto', antialias: false, fitRequest: 0, focus: null },
     setShowDimensions(mode) {
       set({ view: { ...get().view, showDimensions: mode } });
     },
@@ -291,6 +326,14 @@ function createViewSlice(
     },
     requestFit() {
       set({ view: { ...get().view, fitRequest: get().view.fitRequest + 1 } });
+    },
+    requestFocus(id) {
+      const target = id ?? get().selectedId;
+      if (!target) return refuse('select an element first: the view zooms to it');
+      if (!get().doc.elements.some((e) => e.id === target)) return refuse(`no element "${target}"`);
+      const request = (get().view.focus?.request ?? 0) + 1;
+      set({ view: { ...get().view, focus: { id: target, request } } });
+      return ok;
     },
   };
 }
@@ -445,12 +488,25 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
       return ok;
     };
 
-    const newStraight = (direction: Direction, newIds: Set<string>) => {
+    const newStraight = (dir: Vec3, newIds: Set<string>) => {
       const pipe = get().drawingPipe;
       const id = `S${++counters.S}`;
       newIds.add(id);
-      return createStraight({ id, nps: pipe.nps, schedule: pipe.schedule, length: 1, direction });
+      return orient(createStraight({ id, nps: pipe.nps, schedule: pipe.schedule, length: 1 }), dir);
     };
+
+    /** The unit vector of a leg direction, or a refusal naming what is wrong with it. */
+    const legVector = (direction: LegDirection): Vec3 | EditResult => {
+      if (typeof direction === 'string') {
+        if (!directionSchema.safeParse(direction).success)
+          return refuse(`unknown direction "${String(direction)}"`);
+        return DIRECTION_VECTORS[direction];
+      }
+      const r = headingSchema.safeParse(direction);
+      if (!r.success) return refuse(firstIssue(r, 'heading'));
+      return headingToVec(r.data);
+    };
+    const isRefusal = (v: Vec3 | EditResult): v is EditResult => 'ok' in v;
 
     const checkLength = (length: number, what: string): EditResult | undefined =>
       Number.isFinite(length) && length > 0
@@ -531,30 +587,30 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
       },
 
       addLeg(direction, length, opts) {
-        if (!directionSchema.safeParse(direction).success)
-          return refuse(`unknown direction "${String(direction)}"`);
+        const dir = legVector(direction);
+        if (isRefusal(dir)) return dir;
         const bad = checkLength(length, 'a leg length');
         if (bad) return bad;
         return editRun((run, newIds) => {
           // A new leg; serializeRun merges it into the last leg when it runs the same way
           // and puts a bend in the corner otherwise.
-          const piece = newStraight(direction, newIds);
-          run.legs.push({ dir: DIRECTION_VECTORS[direction], pieces: [piece], work: [length] });
+          const piece = newStraight(dir, newIds);
+          run.legs.push({ dir, pieces: [piece], work: [length] });
           if (run.legs.length > 1) run.corners.push(null);
         }, opts);
       },
 
       insertLegAfter(id, direction, length, opts) {
-        if (!directionSchema.safeParse(direction).success)
-          return refuse(`unknown direction "${String(direction)}"`);
+        const dir = legVector(direction);
+        if (isRefusal(dir)) return dir;
         const bad = checkLength(length, 'a leg length');
         if (bad) return bad;
         return editRun((run, newIds) => {
           const at = locate(run, id);
           if (!at) return refuse(`no element "${id}"`);
           const newLeg: Leg = {
-            dir: DIRECTION_VECTORS[direction],
-            pieces: [newStraight(direction, newIds)],
+            dir,
+            pieces: [newStraight(dir, newIds)],
             work: [length],
           };
           if (at.kind === 'corner') {
@@ -591,6 +647,7 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
           ['nps', npsSchema],
           ['schedule', scheduleSchema],
           ['direction', directionSchema],
+          ['heading', headingSchema],
           ['endType', endTypeSchema],
           ['bendRadius', bendRadiusSchema],
         ];
@@ -603,6 +660,7 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
         for (const key of [
           'length',
           'legLength',
+          'angle',
           'outsideDiameter',
           'insideDiameter',
           'nominalWall',
@@ -612,6 +670,10 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
             if (!(typeof v === 'number' && Number.isFinite(v) && v > 0))
               return refuse(`${key}: must be greater than zero`);
           }
+        }
+        if (has('angle') && patch.angle !== undefined) {
+          if (el.kind !== 'bend') return refuse('angle: a straight has no bend angle');
+          if (!(patch.angle < 180)) return refuse('angle: must be less than 180 degrees (180° would double back)');
         }
         if (el.kind === 'bend') {
           for (const key of ['length', 'legLength', 'endType'] as const)
@@ -651,6 +713,16 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
           fields.conditions = conditions;
         }
         const updated = compact({ ...el, ...fields }) as SpoolElement;
+        // The element as a whole must stay valid (e.g. an NPS or an outside diameter, a
+        // schedule or a nominal wall), or the document could not be saved.
+        const whole = spoolElementSchema.safeParse(updated);
+        if (!whole.success) return refuse(firstIssue(whole, ''));
+        const turnTo: Vec3 | undefined =
+          has('heading') && patch.heading !== undefined
+            ? headingToVec(patch.heading)
+            : has('direction') && patch.direction !== undefined
+              ? DIRECTION_VECTORS[patch.direction]
+              : undefined;
 
         return editRun(
           (run) => {
@@ -658,9 +730,17 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
             if (!at) return refuse(`no element "${id}"`);
             if (at.kind === 'corner') {
               run.corners[at.corner] = updated as (typeof run.corners)[number];
-              if (has('direction') && patch.direction !== undefined) {
-                const next = run.legs[at.corner + 1];
-                if (next) next.dir = DIRECTION_VECTORS[patch.direction];
+              const next = run.legs[at.corner + 1];
+              if (turnTo && next) next.dir = turnTo;
+              if (has('angle') && patch.angle !== undefined && next) {
+                // Turn the next leg in the plane of the legs the bend joins.
+                const u = run.legs[at.corner]!.dir;
+                const cur = next.dir;
+                const perp = sub(cur, scale(u, dot(cur, u)));
+                if (norm(perp) < 1e-9) return refuse(`angle: ${id} joins legs that run the same way; turn a leg instead`);
+                const t = normalize(perp);
+                const theta = (patch.angle * Math.PI) / 180;
+                next.dir = normalize(add(scale(u, Math.cos(theta)), scale(t, Math.sin(theta))));
               }
               return;
             }
@@ -675,12 +755,8 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
               const total = leg.work.reduce((a, b) => a + b, 0);
               leg.work[j] = leg.work[j]! + (patch.legLength - total);
             }
-            if (
-              has('direction') &&
-              patch.direction !== undefined &&
-              angleBetweenDeg(DIRECTION_VECTORS[patch.direction], leg.dir) > 1e-6
-            ) {
-              const dir = DIRECTION_VECTORS[patch.direction];
+            if (turnTo && angleBetweenDeg(turnTo, leg.dir) > 1e-6) {
+              const dir = turnTo;
               if (leg.pieces.length === 1) leg.dir = dir;
               else {
                 const parts: Leg[] = [
@@ -694,7 +770,7 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
             }
           },
           opts,
-          `turning ${id} ${patch.direction ?? ''} would make the run double back on itself`.replace(
+          `turning ${id} ${patch.heading ? 'that way' : (patch.direction ?? '')} would make the run double back on itself`.replace(
             /\s+/g,
             ' ',
           ),
