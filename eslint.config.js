@@ -1,7 +1,6 @@
 import js from '@eslint/js';
 import tseslint from 'typescript-eslint';
 import reactHooks from 'eslint-plugin-react-hooks';
-import importX from 'eslint-plugin-import-x';
 import globals from 'globals';
 
 export default tseslint.config(
@@ -14,7 +13,7 @@ export default tseslint.config(
       parserOptions: { projectService: true, tsconfigRootDir: import.meta.dirname },
       globals: { ...globals.browser, ...globals.node },
     },
-    plugins: { 'react-hooks': reactHooks, 'import-x': importX },
+    plugins: { 'react-hooks': reactHooks },
     rules: {
       ...reactHooks.configs.recommended.rules,
       'react-hooks/refs': 'off',
@@ -22,18 +21,6 @@ export default tseslint.config(
       '@typescript-eslint/no-floating-promises': 'error',
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
       '@typescript-eslint/consistent-type-imports': 'error',
-      // Imports flow one way: src -> shared, server -> shared; shared imports neither.
-      'import-x/no-restricted-paths': [
-        'error',
-        {
-          zones: [
-            { target: './shared', from: './src', message: 'shared/ must not import from src/' },
-            { target: './shared', from: './server', message: 'shared/ must not import from server/' },
-            { target: './src', from: './server', message: 'the client must not import server code' },
-            { target: './server', from: './src', message: 'the server must not import client code' },
-          ],
-        },
-      ],
       'no-restricted-imports': 'off',
     },
   },
@@ -48,6 +35,8 @@ export default tseslint.config(
               group: ['react', 'react-dom', 'three', '@react-three/*', 'express', 'drizzle-orm', 'drizzle-orm/*', '@electric-sql/*', 'better-auth', 'better-auth/*', 'pg', 'zustand'],
               message: 'shared/ is pure TypeScript: no React, three, Express or database imports',
             },
+            // Imports flow one way: src -> shared, server -> shared; shared imports neither.
+            { group: ['@/*', '**/src/**', '**/server/**'], message: 'shared/ must not import from src/ or server/' },
           ],
         },
       ],
@@ -64,8 +53,18 @@ export default tseslint.config(
               group: ['@shared/report/calc-sheet-pdf', '**/report/calc-sheet-pdf', '**/report/woff', 'pdfkit'],
               message: 'the calc sheet PDF renderer is Node only (pdfkit, font files): link to the server route instead',
             },
+            { group: ['**/server/**', 'express', 'drizzle-orm', 'drizzle-orm/*', '@electric-sql/*', 'pg'], message: 'the client must not import server code' },
           ],
         },
+      ],
+    },
+  },
+  {
+    files: ['server/**/*.ts'],
+    rules: {
+      '@typescript-eslint/no-restricted-imports': [
+        'error',
+        { patterns: [{ group: ['@/*', '**/src/**', 'react', 'react-dom', 'three', '@react-three/*'], message: 'the server must not import client code' }] },
       ],
     },
   },
