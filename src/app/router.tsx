@@ -84,6 +84,13 @@ export function createAppRouter() {
                 </Suspense>
               ),
             },
+            {
+              path: '/spools/:spoolId/fabrication',
+              lazy: page(
+                () => import('@/features/fabrication/components/fabrication-page'),
+                (m) => m.FabricationPage,
+              ),
+            },
             { path: '*', element: <Navigate to="/spools" replace /> },
           ],
         },

@@ -167,6 +167,13 @@ export function SpoolBar({
         >
           Calc sheet
         </Link>
+        <Link
+          to={`/spools/${encodeURIComponent(spool.id)}/fabrication`}
+          className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100"
+          title={isDirty ? 'The fabrication sheet shows the saved spool: save first to include your changes' : 'Bend list, cut list, bill of materials, masses and hydrotest'}
+        >
+          Fabrication sheet
+        </Link>
         <Button size="sm" onClick={() => downloadJson(fileNameOf(doc), doc)} title="Download the spool document (JSON)">
           Export
         </Button>
