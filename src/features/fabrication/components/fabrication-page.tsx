@@ -208,7 +208,18 @@ function HydrotestPanel({ sheet }: { sheet: FabricationSheet }) {
       <SheetTable
         label="Hydrotest by element"
         head={['Element', `ST (${u.pressure})`, `S (${u.pressure})`, 'ST/S', `Sy at test (${u.pressure})`, `Pressure at yield (${u.pressure})`, 'Source of ST']}
-        rows={h.elements.map((e) => [<code key="id">{e.id}</code>, n(e.ST), n(e.S), `${n(e.ratio)}${e.ratioCapped ? ' (capped)' : ''}`, n(e.Sy), n(e.yieldPressure), <span key="src" className="text-steel-500">{e.stSource}</span>])}
+        rows={h.elements.map((e) => [
+          <code key="id">{e.id}</code>,
+          n(e.ST),
+          n(e.S),
+          `${n(e.ratio)}${e.ratioCapped ? ' (capped)' : ''}`,
+          n(e.Sy),
+          n(e.yieldPressure),
+          <span key="src" className="line-clamp-1 max-w-md text-steel-500 print:line-clamp-none" title={`ST: ${e.stSource}${e.sySource ? ` · Sy: ${e.sySource}` : ''}`}>
+            {e.fromMemory ? <strong className="text-copper-600">from memory · </strong> : null}
+            {e.stSource}
+          </span>,
+        ])}
       />
       {h.notes.length > 0 ? (
         <ul className="list-disc pl-5 text-xs text-steel-700">
