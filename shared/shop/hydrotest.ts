@@ -151,7 +151,7 @@ export function computeHydrotest(
   if (limited && limit) {
     equation += `; reduced per 345.4.2(c): P = 2·Sy·t / (D − 2·Y·t) at yield in ${limit.id} = ${fmt(pressure)} ${u.pressure}`;
   }
-  if (designPressure <= 0) notes.push('the internal design pressure is 0: para. 345.4.2 gives no test pressure; external-pressure and vacuum lines are tested per para. 345.4.1 and the owner');
+  if (designPressure <= 0) notes.push('the internal design pressure is 0: para. 345.4.2 gives no test pressure; piping under external pressure is tested at 1.5 × the external differential pressure, at least 15 psi (105 kPa) (para. 345.2.4, from memory): the owner sets the test');
   if (rows.some((r) => r.ratioCapped)) notes.push('ST/S above 6.5 is capped at 6.5 (para. 345.4.2(b))');
   if (rows.some((r) => r.fromMemory)) notes.push('uses stress or yield values recalled from memory: verify against the licensed edition');
   return {
