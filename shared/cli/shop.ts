@@ -1,12 +1,12 @@
 #!/usr/bin/env node
 /**
- * The headless fabrication sheet: `npm run shop -- [--json | --csv[=elements|cut-list|bom]] <spool.json | ->`.
+ * The headless fabrication sheet: `npm run shop -- [--json | --csv[=sheet|elements|cut-list|bom]] <spool.json | ->`.
  * Exit 0: the sheet was printed · 2: bad input (the message names the field).
  */
 import { readFileSync } from 'node:fs';
 import { parseSpoolDocument, type FieldIssue, type SpoolDocument } from '../model/spool';
 import { checkSpool, fmt } from '../engine/index';
-import { buildFabricationSheet, bomTable, cutListTable, elementTable, tableToCsv, toShopJson, type FabricationSheet, type Table } from '../shop/index';
+import { buildFabricationSheet, bomTable, cutListTable, elementTable, sheetTable, tableToCsv, toShopJson, type FabricationSheet, type Table } from '../shop/index';
 import { MASS_LABELS, UNIT_LABELS } from '../units/units';
 
 export interface ShopCliResult {
@@ -15,8 +15,8 @@ export interface ShopCliResult {
   readonly stderr: string;
 }
 
-const USAGE = 'usage: npm run shop -- [--json | --csv[=elements|cut-list|bom]] <spool.json | ->';
-const CSV_TABLES = ['elements', 'cut-list', 'bom'] as const;
+const USAGE = 'usage: npm run shop -- [--json | --csv[=sheet|elements|cut-list|bom]] <spool.json | ->';
+const CSV_TABLES = ['sheet', 'elements', 'cut-list', 'bom'] as const;
 type CsvTable = (typeof CSV_TABLES)[number];
 
 function badInput(json: boolean, message: string, details: readonly FieldIssue[]): ShopCliResult {
@@ -84,10 +84,10 @@ function parseArgs(args: readonly string[]): { json: boolean; csv: CsvTable | nu
   const files: string[] = [];
   for (const a of args) {
     if (a === '--json') json = true;
-    else if (a === '--csv') csv = 'elements';
+    else if (a === '--csv') csv = 'sheet';
     else if (a.startsWith('--csv=')) {
       const t = a.slice(6);
-      if (!(CSV_TABLES as readonly string[]).includes(t)) return { json, csv, files, error: `unknown table "${t}" for --csv (elements, cut-list or bom); ${USAGE}` };
+      if (!(CSV_TABLES as readonly string[]).includes(t)) return { json, csv, files, error: `unknown table "${t}" for --csv (sheet, elements, cut-list or bom); ${USAGE}` };
       csv = t as CsvTable;
     } else if (a.startsWith('--')) return { json, csv, files, error: `unknown option ${a}; ${USAGE}` };
     else files.push(a);
@@ -124,7 +124,7 @@ export function runShop(args: readonly string[], readInput: (file: string) => st
   const sheet = buildFabricationSheet(doc, check);
   if (a.json) return { code: 0, stdout: `${JSON.stringify(toShopJson(sheet))}\n`, stderr: '' };
   if (a.csv) {
-    const table = a.csv === 'elements' ? elementTable(doc, check) : a.csv === 'cut-list' ? cutListTable(sheet) : bomTable(sheet);
+    const table = a.csv === 'sheet' ? sheetTable(sheet) : a.csv === 'elements' ? elementTable(doc, check) : a.csv === 'cut-list' ? cutListTable(sheet) : bomTable(sheet);
     return { code: 0, stdout: tableToCsv(table), stderr: '' };
   }
   return { code: 0, stdout: formatSheet(sheet), stderr: '' };

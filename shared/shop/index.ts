@@ -5,7 +5,7 @@ export { computeHydrotest, HYDROTEST_CAUTION, HYDROTEST_RATIO_CAP, yieldLimitedP
 export type { Hydrotest, HydrotestElement, HydrotestElementInput } from './hydrotest';
 export { contentMassPerLength, pipeMassPerLength, pipeMassPerRun } from './mass';
 export { bendArcLength, bendTangentLength } from './geometry';
-export { bomTable, csvFileName, cutListTable, elementTable, tableToCsv } from './tables';
+export { bomTable, csvFileName, cutListTable, elementTable, sheetTable, tableToCsv } from './tables';
 export type { Table, TableName } from './tables';
 export { toShopJson } from './json';
 export type { ShopJson } from './json';

@@ -14,7 +14,7 @@ export interface Table {
   readonly rows: readonly (readonly (string | number | null)[])[];
 }
 
-export type TableName = 'elements' | 'cut-list' | 'bom';
+export type TableName = 'sheet' | 'elements' | 'cut-list' | 'bom';
 
 const round = (v: number | null | undefined): number | null => (v === null || v === undefined || !Number.isFinite(v) ? null : Number(v.toPrecision(6)));
 
@@ -59,6 +59,56 @@ export function elementTable(doc: SpoolDocument, check: SpoolCheck): Table {
       c?.lightestSchedule ?? null,
       ok && c.preBendWall !== undefined ? round(c.preBendWall) : null,
       c?.status ?? 'invalid',
+    ];
+  });
+  return { fields, rows };
+}
+
+/** The fabrication sheet per element (the JSON `elements` flattened): order, cut, mass and the bend figures. */
+export function sheetTable(sheet: FabricationSheet): Table {
+  const u = UNIT_LABELS[sheet.units];
+  const m = MASS_LABELS[sheet.units];
+  const fields = [
+    'element',
+    'kind',
+    'NPS',
+    'schedule',
+    'order schedule',
+    `order wall (${u.length})`,
+    `cut length (${u.length})`,
+    `mass (${m.mass})`,
+    'bend angle (deg)',
+    `bend radius (${u.length})`,
+    'R/D',
+    'table factor',
+    `wall before bending (${u.length})`,
+    `extrados wall after bending (${u.length})`,
+    `intrados wall after bending (${u.length})`,
+    'order heavier',
+    `arc length (${u.length})`,
+    `bend tangent R·tan(θ/2) (${u.length})`,
+  ];
+  const rows = sheet.elements.map((e) => {
+    const b = e.bend;
+    return [
+      e.id,
+      e.kind,
+      e.nps,
+      e.schedule,
+      e.orderSchedule,
+      round(e.orderWall),
+      round(e.cutLength),
+      round(e.mass),
+      b ? round(b.angle) : null,
+      b ? round(b.radius) : null,
+      b ? round(b.radiusOverD) : null,
+      b ? round(b.tableFactor) : null,
+      b ? round(b.wallBeforeBending) : null,
+      b ? round(b.extradosWallAfter) : null,
+      b ? round(b.intradosWallAfter) : null,
+      b ? (b.orderHeavier ? 'yes' : 'no') : null,
+      b ? round(b.arcLength) : null,
+      b ? round(b.tangent) : null,
     ];
   });
   return { fields, rows };

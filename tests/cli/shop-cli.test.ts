@@ -75,6 +75,15 @@ describe('npm run shop (process)', () => {
     expect(parsed.data.map((row) => row.element)).toEqual(['S1', 'B1', 'S2']);
     expect(Number(parsed.data[0]!['cut length (in)'])).toBe(48);
   });
+  it('--csv prints the sheet per element, bend figures included', async () => {
+    const r = await run(['--csv', write('csv.json', spool)]);
+    expect(r.code).toBe(0);
+    const parsed = Papa.parse<Record<string, string>>(r.stdout.trim(), { header: true });
+    expect(parsed.meta.fields).toEqual(expect.arrayContaining(['order schedule', 'wall before bending (in)', 'extrados wall after bending (in)', 'mass (lb)']));
+    const bend = parsed.data.find((row) => row.element === 'B1')!;
+    expect(Number(bend['table factor'])).toBe(1.25); // B31.1 Table 102.4.5 at 3D
+    expect(Number(bend['bend tangent R·tan(θ/2) (in)'])).toBe(12);
+  });
   it('the readable sheet names the lists, the hydrotest and the caution', async () => {
     const r = await run([write('readable.json', spool)]);
     expect(r.code).toBe(0);
