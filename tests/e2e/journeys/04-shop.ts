@@ -100,6 +100,7 @@ export const shopJourney: E2EJourney = {
           await page.getByTestId('order-heavier-ST-B1').waitFor();
           const status = await page.getByRole('status').first().textContent();
           expect(status?.includes('not released'), 'unreleased revision is marked');
+          await screenshot(page, 'fabrication-sheet-order-heavier');
         });
       },
       STEPS,
