@@ -39,6 +39,8 @@ export const shopJourney: E2EJourney = {
         await step(STEPS[0]!, async () => {
           await signIn(page, base, 'fabricator@spoolwright.test');
           await page.getByLabel('Find spools').fill('CW-101-01');
+          // The search is debounced: wait for the filtered register before clicking.
+          await page.getByText(/^1 spool$/).waitFor();
           const link = page.getByRole('link', { name: RELEASED });
           await link.waitFor();
           const href = await link.getAttribute('href');
@@ -91,6 +93,7 @@ export const shopJourney: E2EJourney = {
         await step(STEPS[4]!, async () => {
           await page.goto(`${base}/spools`);
           await page.getByLabel('Find spools').fill('ST-415-01');
+          await page.getByText(/^1 spool$/).waitFor();
           const link = page.getByRole('link', { name: HEAVIER });
           await link.waitFor();
           await link.click();

@@ -91,11 +91,11 @@ async function signInByForm(page: Page, base: string, email: string): Promise<vo
 
 /** Pages each role can open, as paths with `:spool` standing for a demo spool's id. */
 export const ROLE_PAGES: Record<string, readonly string[]> = {
-  designer: ['/spools', '/spools/:spool'],
-  checker: ['/spools', '/spools/:spool', '/spools/:spool/calc-sheet'],
-  fabricator: ['/spools', '/spools/:spool'],
-  lead: ['/spools', '/spools/:spool'],
-  admin: ['/spools', '/spools/:spool'],
+  designer: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
+  checker: ['/spools', '/spools/:spool', '/spools/:spool/calc-sheet', '/spools/:spool/fabrication'],
+  fabricator: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
+  lead: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
+  admin: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
 };
 
 const STEPS = [
