@@ -51,6 +51,9 @@ export interface HydrotestElement {
   readonly Sy: number | null;
   readonly sySource: string | null;
   readonly yieldPressure: number | null;
+  /** ST / Sy (or either) recalled from memory. */
+  readonly stFromMemory: boolean;
+  readonly syFromMemory: boolean;
   readonly fromMemory: boolean;
 }
 
@@ -131,6 +134,8 @@ export function computeHydrotest(
       Sy: sy?.Sy ?? null,
       sySource: sy?.source ?? null,
       yieldPressure: sy ? yieldLimitedPressure(sy.Sy, el.D, el.wall, el.Y) : null,
+      stFromMemory: st.fromMemory,
+      syFromMemory: sy?.fromMemory ?? false,
       fromMemory: st.fromMemory || (sy?.fromMemory ?? false),
     };
   });

@@ -213,10 +213,13 @@ function HydrotestPanel({ sheet }: { sheet: FabricationSheet }) {
           n(e.ST),
           n(e.S),
           `${n(e.ratio)}${e.ratioCapped ? ' (capped)' : ''}`,
-          n(e.Sy),
+          <span key="sy" title={e.sySource ?? 'no yield strength known'}>
+            {n(e.Sy)}
+            {e.syFromMemory ? <span className="text-copper-600"> (from memory)</span> : null}
+          </span>,
           n(e.yieldPressure),
           <span key="src" className="line-clamp-1 max-w-md text-steel-500 print:line-clamp-none" title={`ST: ${e.stSource}${e.sySource ? ` · Sy: ${e.sySource}` : ''}`}>
-            {e.fromMemory ? <strong className="text-copper-600">from memory · </strong> : null}
+            {e.stFromMemory ? <strong className="text-copper-600">from memory · </strong> : null}
             {e.stSource}
           </span>,
         ])}
