@@ -118,11 +118,21 @@ export function computeHydrotest(
   const u = UNIT_LABELS[units];
   const testF = temperatureToF(testTemperature, units);
   const notes: string[] = [];
+  // Table lookups depend only on the material (and S for the fallback): once per material, not per element.
+  const cache = new Map<Material, { st: ReturnType<typeof stAtTest>; sy: ReturnType<typeof syAtTest> }>();
+  const lookups = (el: HydrotestElementInput) => {
+    if (!el.material) return { st: stAtTest(el, testF, units, notes), sy: syAtTest(el, testF, units) };
+    let hit = cache.get(el.material);
+    if (!hit) {
+      hit = { st: stAtTest(el, testF, units, notes), sy: syAtTest(el, testF, units) };
+      cache.set(el.material, hit);
+    }
+    return hit.st.source.startsWith('taken equal to S') ? { st: { ...hit.st, ST: el.S }, sy: hit.sy } : hit;
+  };
   const rows: HydrotestElement[] = elements.map((el) => {
-    const st = stAtTest(el, testF, units, notes);
+    const { st, sy } = lookups(el);
     const raw = st.ST / el.S;
     const ratio = Math.min(raw, HYDROTEST_RATIO_CAP);
-    const sy = syAtTest(el, testF, units);
     if (!sy) notes.push(`${el.id}: no yield strength known; the 345.4.2(c) yield limit is not checked for it`);
     return {
       id: el.id,
