@@ -3,9 +3,11 @@
  * register, reads it, prints it and downloads the CSVs, and reaches another spool's sheet from
  * the sketcher's spool bar.
  */
+import { execFileSync } from 'node:child_process';
 import fs from 'node:fs';
 import Papa from 'papaparse';
 import type { Page } from 'playwright-core';
+import { CAUTION } from '../../../shared/model/caution';
 import { expect, journey, newContext, openPage, screenshot, signIn, step, type E2EJourney } from '../harness';
 
 const STEPS = [
@@ -13,6 +15,7 @@ const STEPS = [
   'the sheet lists bends, cuts, materials, masses and the hydrotest with the caution',
   'the cut list, bill of materials and element table download as CSV with units and revision',
   'the print view leaves out the app frame and the buttons',
+  'the calc sheet PDF of the revision downloads from the sheet and reads back with pdftotext',
   'the sketcher links to the sheet; bends to be ordered heavier are flagged',
 ];
 
@@ -91,6 +94,16 @@ export const shopJourney: E2EJourney = {
           await page.emulateMedia({ media: 'screen' });
         });
         await step(STEPS[4]!, async () => {
+          const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('calc-sheet-pdf').click()]);
+          expect(/^CW-101-01-Cooling-water-header-drop-rev\d+-calc-sheet\.pdf$/.test(download.suggestedFilename()), `PDF file name ${download.suggestedFilename()}`);
+          const file = await download.path();
+          expect(fs.readFileSync(file).subarray(0, 5).toString('latin1') === '%PDF-', 'the download is a PDF');
+          const text = execFileSync('pdftotext', [file, '-']).toString('utf8').replace(/\s+/g, ' ');
+          expect(text.includes(RELEASED), 'the PDF names the spool');
+          for (const id of ['CW-S1', 'CW-B1', 'CW-S3']) expect(text.includes(id), `the PDF has element ${id}`);
+          expect(text.includes(CAUTION), 'the PDF carries the caution');
+        });
+        await step(STEPS[5]!, async () => {
           await page.goto(`${base}/spools`);
           await page.getByLabel('Find spools').fill('ST-415-01');
           await page.getByText(/^1 spool$/).waitFor();

@@ -24,6 +24,7 @@ import { useDocumentTitle } from '@/features/sketch/components/leave-guard';
 import { buildSpoolPath, legLengths } from '@/features/sketch/geometry/spool-path';
 import { useSpool } from '@/features/spools/api/get-spool';
 import type { Spool } from '@/features/spools/api/spool-schemas';
+import { API_BASE } from '@/lib/api';
 import { formatNumber } from '@/lib/format';
 import { cn } from '@/lib/cn';
 import { downloadText } from '../download-text';
@@ -259,6 +260,20 @@ export function FabricationSheetView({ spool, doc, check, sheet }: { spool: Spoo
           <Link to={`/spools/${spool.id}`} className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100">
             Open sketch
           </Link>
+          <Link
+            to={`/spools/${encodeURIComponent(spool.id)}/calc-sheet?revision=${spool.revision}`}
+            className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100"
+          >
+            Calc sheet
+          </Link>
+          <a
+            href={`${API_BASE}/spools/${encodeURIComponent(spool.id)}/calc-sheet.pdf?revision=${spool.revision}`}
+            download
+            data-testid="calc-sheet-pdf"
+            className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100"
+          >
+            Calc sheet PDF
+          </a>
           <Button size="sm" onClick={() => download('elements', elementTable(doc, check))}>
             Element table CSV
           </Button>
