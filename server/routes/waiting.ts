@@ -1,5 +1,5 @@
 import { Router } from 'express';
-import { and, asc, desc, eq, inArray, isNull } from 'drizzle-orm';
+import { and, asc, desc, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { spoolComments, spoolEvents } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';

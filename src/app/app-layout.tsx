@@ -1,6 +1,7 @@
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { useMe } from '@/features/auth/api/get-me';
 import { cn } from '@/lib/cn';
+import { WaitingCount } from '@/features/review/components/waiting-list';
 
 const roleLabel: Record<string, string> = {
   designer: 'Designer',
@@ -29,6 +30,7 @@ export function AppLayout() {
           >
             Spool register
           </NavLink>
+          {me?.role ? <WaitingCount /> : null}
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm" data-testid="whoami">
           {me ? (
