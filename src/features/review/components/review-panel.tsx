@@ -104,7 +104,9 @@ function ReplyBox({ spoolId, elementId, exists }: { spoolId: string; elementId: 
       return;
     }
     setError(null);
-    create.mutate({ spoolId, body: text.trim(), elementId: elementId ?? undefined }, { onSuccess: () => setText('') });
+    const sent = text.trim();
+    // Clear only if the box still holds what was sent (typing may have gone on meanwhile).
+    create.mutate({ spoolId, body: sent, elementId: elementId ?? undefined }, { onSuccess: () => setText((t) => (t.trim() === sent ? '' : t)) });
   };
   return (
     <div className="flex flex-col gap-1">
@@ -153,7 +155,8 @@ export function ReviewPanel({ spoolId, revision, elementIds, selectedId, onSelec
       return;
     }
     setError(null);
-    create.mutate({ spoolId, body: body.trim(), elementId: pin === '' ? undefined : pin }, { onSuccess: () => setBody('') });
+    const sent = body.trim();
+    create.mutate({ spoolId, body: sent, elementId: pin === '' ? undefined : pin }, { onSuccess: () => setBody((b) => (b.trim() === sent ? '' : b)) });
   };
 
   return (

@@ -1,7 +1,7 @@
 import { createContext, useContext, useEffect, useMemo, useRef, type MutableRefObject, type ReactNode } from 'react';
 import { useFrame, useThree } from '@react-three/fiber';
 import { Vector3 } from 'three';
-import type { SpoolPath } from '../geometry/spool-path';
+import type { PathSegment, SpoolPath } from '../geometry/spool-path';
 
 /*
  * Review badges over the sketch: a count of open comments on each commented element. Like the
@@ -78,7 +78,16 @@ export function CommentBadgeOverlay() {
 
 const v = new Vector3();
 
-/** The canvas side, inside the `<Canvas>`: moves each badge above its element's mid-point after every frame. */
+/** The point on the element's centreline halfway along it (a bend's arc middle, not its chord's). */
+export function centreOf(seg: PathSegment): [number, number, number] {
+  if (seg.kind === 'straight') return [(seg.start.x + seg.end.x) / 2, (seg.start.y + seg.end.y) / 2, (seg.start.z + seg.end.z) / 2];
+  const phi = seg.angleRad / 2;
+  const c = Math.cos(phi) * seg.radius;
+  const s = Math.sin(phi) * seg.radius;
+  return [seg.centre.x + c * seg.xAxis.x + s * seg.yAxis.x, seg.centre.y + c * seg.xAxis.y + s * seg.yAxis.y, seg.centre.z + c * seg.xAxis.z + s * seg.yAxis.z];
+}
+
+/** The canvas side, inside the `<Canvas>`: moves each badge beside its element's centre after every frame. */
 export function CommentBadgeProjector({ path, scale }: { readonly path: SpoolPath; readonly scale: number }) {
   const ctx = useContext(BadgeContext);
   const invalidate = useThree((s) => s.invalidate);
@@ -88,8 +97,7 @@ export function CommentBadgeProjector({ path, scale }: { readonly path: SpoolPat
     ctx?.place((id) => {
       const seg = path.byId.get(id);
       if (!seg) return null;
-      const p = seg.midpoint;
-      v.set(p.x * scale, p.y * scale, p.z * scale).project(camera);
+      v.set(...centreOf(seg)).multiplyScalar(scale).project(camera);
       if (v.z < -1 || v.z > 1) return null;
       return { x: ((v.x + 1) / 2) * size.width, y: ((1 - v.y) / 2) * size.height };
     });
