@@ -136,7 +136,8 @@ export function ReviewPanel({ spoolId, revision, elementIds, selectedId, onSelec
   }, [selectedId]);
   useEffect(() => {
     if (!selectedId) return;
-    const el = listRef.current?.querySelector<HTMLElement>(`[data-thread="${CSS.escape(selectedId)}"]`);
+    const threads = listRef.current?.querySelectorAll<HTMLElement>('[data-thread]') ?? [];
+    const el = Array.from(threads).find((t) => t.dataset.thread === selectedId);
     el?.scrollIntoView?.({ block: 'nearest' });
   }, [selectedId, comments.data]);
 

@@ -40,7 +40,8 @@ export function WaitingRows({ waiting }: { readonly waiting: Waiting }) {
             ) : null}
             <span className="ml-auto text-xs text-steel-500">{w.since ? `since ${formatDateTime(w.since)}` : `saved ${formatDateTime(w.spool.updatedAt)}`}</span>
           </div>
-          {w.note ? <p className="text-xs text-steel-600">“{w.note}”</p> : null}
+          {/* A return note is also a comment of the revision: show it once. */}
+          {w.note && !w.comments?.some((c) => c.body === w.note) ? <p className="text-xs text-steel-600">“{w.note}”</p> : null}
           {w.comments && w.comments.length > 0 ? (
             <ul className="flex flex-col gap-0.5 pl-3 text-xs">
               {w.comments.map((c) => (
