@@ -18,6 +18,7 @@ import {
   STEP_TIMEOUT,
   type E2EJourney,
 } from '../harness';
+import { seriousViolations } from './09-a11y';
 
 const STEPS = [
   'designer submits a spool with a failing bend',
@@ -51,7 +52,8 @@ function reviewDocument(name: string) {
 }
 
 async function signedIn(browser: Browser, base: string, email: string): Promise<{ ctx: BrowserContext; page: Page }> {
-  const ctx = await newContext(browser);
+  // bypassCSP lets axe's script be injected once the server sends a Content-Security-Policy.
+  const ctx = await newContext(browser, { bypassCSP: true });
   const page = await openPage(ctx);
   await signIn(page, base, email);
   return { ctx, page };
@@ -274,9 +276,11 @@ export const reviewJourney: E2EJourney = {
           expect(shareUrl.startsWith(`${base}/share/`), `share link is ${shareUrl}`);
           await dialog.locator('[data-testid="share-list"] tr[data-state="active"]').first().waitFor();
           await screenshot(page, 'share-dialog');
+          const axe = await seriousViolations(page);
+          expect(axe.length === 0, `axe with the share dialog open:\n${axe.join('\n')}`);
         });
 
-        const visitorCtx = await newContext(browser);
+        const visitorCtx = await newContext(browser, { bypassCSP: true });
         contexts.push(visitorCtx);
         const visitor = await openPage(visitorCtx);
         await step(STEPS[9], async () => {
@@ -308,6 +312,8 @@ export const reviewJourney: E2EJourney = {
           const foreign = apiCalls.filter((p) => !p.startsWith('/api/share/'));
           expect(foreign.length === 0, `the public page called ${foreign.join(', ')}`);
           await screenshot(visitor, 'share-public-page');
+          const axe = await seriousViolations(visitor);
+          expect(axe.length === 0, `axe on the public page:\n${axe.join('\n')}`);
         });
 
         await step(STEPS[10], async () => {
@@ -324,6 +330,8 @@ export const reviewJourney: E2EJourney = {
           expect(!visitor.url().includes('/sign-in'), 'a revoked link led to sign-in');
           expect((await visitor.getByTestId('element-table').count()) === 0, 'the revoked page still shows the spool');
           await screenshot(visitor, 'share-revoked');
+          const axe = await seriousViolations(visitor);
+          expect(axe.length === 0, `axe on the revoked page:\n${axe.join('\n')}`);
         });
 
         await step(STEPS[11], async () => {
