@@ -52,6 +52,8 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
   const check = useSpoolCheck();
   const [displayUnits, setDisplayUnits] = useState<UnitSystem>(() => readStoredDisplayUnits() ?? spool.document.units);
   const [tab, setTab] = useState<InspectorTab>(initialTab);
+  // Stable, so the element list keeps its columns between renders.
+  const selectElement = useCallback((id: string) => api.getState().select(id), [api]);
   const openThread = useCallback(
     (id: string) => {
       api.getState().select(id);
@@ -162,7 +164,7 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
             </div>
             <CautionNote className="shrink-0 rounded-none border-t border-steel-200" />
             <div className="h-56 shrink-0 border-t border-steel-200 bg-white">
-              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={(id) => api.getState().select(id)} markers={openByElement} onMarker={openThread} />
+              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={selectElement} markers={openByElement} onMarker={openThread} />
             </div>
           </div>
           <aside className="flex w-[26rem] shrink-0 flex-col border-l border-steel-200 bg-white" aria-label="Inspector">

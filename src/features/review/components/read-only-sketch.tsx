@@ -1,4 +1,4 @@
-import { useEffect, useState, type ReactNode } from 'react';
+import { useCallback, useEffect, useState, type ReactNode } from 'react';
 import type { CheckOptions, SpoolCheck } from '@shared/engine';
 import type { SpoolDocument } from '@shared/model/spool';
 import { CautionNote } from '@/components/ui/caution-note';
@@ -29,6 +29,7 @@ function ReadOnlyScreen({ banner }: { readonly banner: ReactNode }) {
   const selectedId = useSpoolStore((s) => s.selectedId);
   const check = useSpoolCheck();
   const [tab, setTab] = useState<'element' | 'conditions'>('element');
+  const select = useCallback((id: string) => api.getState().select(id), [api]);
   useEffect(() => {
     if (selectedId) setTab('element');
   }, [selectedId]);
@@ -44,7 +45,7 @@ function ReadOnlyScreen({ banner }: { readonly banner: ReactNode }) {
             </div>
             <CautionNote className="shrink-0 rounded-none border-t border-steel-200" />
             <div className="h-56 shrink-0 border-t border-steel-200 bg-white">
-              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={(id) => api.getState().select(id)} />
+              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={select} />
             </div>
           </div>
           <aside className="flex w-[26rem] shrink-0 flex-col border-l border-steel-200 bg-white" aria-label="Inspector">
