@@ -25,7 +25,7 @@ import { ElementTable } from './components/element-table';
 import { LeaveGuard, useDocumentTitle } from './components/leave-guard';
 import { MaterialChoicesProvider, toMaterialChoices } from './components/material-choices';
 import { SpoolBar } from './components/spool-bar';
-import { CommentBadgesProvider } from './canvas/comment-badges';
+import { CommentBadgesProvider } from './canvas/comment-badges-context';
 import { Button } from '@/components/ui/button';
 import { useComments } from '@/features/review/api/get-comments';
 import { HistoryPanel } from '@/features/review/components/history-panel';
