@@ -19,6 +19,7 @@ import { teamRouter } from './routes/team';
 import { TeamMaterials } from './materials/team-materials';
 import { commentsRouter } from './routes/comments';
 import { calcSheetRouter, publicCalcSheetRouter } from './routes/calc-sheet';
+import { waitingRouter } from './routes/waiting';
 
 export interface AppDeps {
   db: Db;
@@ -88,6 +89,7 @@ export function createApp(deps: AppDeps) {
   const memberships = new MembershipCache(deps.db);
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
+  app.use('/api/waiting', waitingRouter({ db: deps.db }));
   app.use('/api/spools/:id/comments', commentsRouter({ db: deps.db }));
   app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl }));
   app.use('/api/spools', calcSheetRouter({ db: deps.db, materials }));

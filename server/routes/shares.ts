@@ -111,11 +111,14 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
   const r = Router();
   r.get('/:token', async (req, res) => {
     const row = await findActiveShare(deps.db, String(req.params.token));
+    // The name of who made the link (no e-mail, no other team data).
+    const [by] = row.createdBy ? await deps.db.select({ name: user.name }).from(user).where(eq(user.id, row.createdBy)).limit(1) : [];
     res.json({
       spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
       check: runCheck(row.document, await deps.materials.finder(row.teamId)),
       sharedAt: row.createdAt.toISOString(),
       expiresAt: row.expiresAt.toISOString(),
+      sharedBy: by?.name ?? null,
     });
   });
   return r;

@@ -1,6 +1,10 @@
+import { lazy, Suspense } from 'react';
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { useMe } from '@/features/auth/api/get-me';
 import { cn } from '@/lib/cn';
+
+// The count's query and schemas load with their own chunk, not with the shell.
+const WaitingCount = lazy(() => import('@/features/review/components/waiting-list').then((m) => ({ default: m.WaitingCount })));
 
 const roleLabel: Record<string, string> = {
   designer: 'Designer',
@@ -29,6 +33,11 @@ export function AppLayout() {
           >
             Spool register
           </NavLink>
+          {me?.role ? (
+            <Suspense fallback={null}>
+              <WaitingCount />
+            </Suspense>
+          ) : null}
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm" data-testid="whoami">
           {me ? (

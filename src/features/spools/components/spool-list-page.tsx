@@ -8,6 +8,7 @@ import { ErrorLine, LoadingLine } from '@/components/ui/spinner';
 import { useCan, useRole } from '@/features/auth/use-can';
 import { formatDateTime } from '@/lib/format';
 import { cn } from '@/lib/cn';
+import { WaitingList } from '@/features/review/components/waiting-list';
 import { createBlankDocument, useCreateSpool } from '../api/create-spool';
 import { useSpools } from '../api/get-spools';
 import { SPOOL_STATUSES, type SpoolStatus, type SpoolSummary } from '../api/spool-schemas';
@@ -142,6 +143,7 @@ export function SpoolListPage() {
 
   return (
     <main className="mx-auto flex h-full max-w-6xl flex-col gap-4 overflow-auto p-6 font-sans">
+      <WaitingList />
       <div className="flex items-end gap-4">
         <div>
           <h1 className="text-2xl font-semibold text-steel-800">Spool register</h1>
