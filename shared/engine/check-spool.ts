@@ -1,8 +1,8 @@
 import type { SpoolDocument, SpoolElement } from '../model/spool';
 import { CAUTION } from '../model/caution';
-import type { CheckStatus, CheckSummary, ElementCheck, SpoolCheck } from './types';
-import { checkElement } from './check-element';
-import type { MaterialFinder } from './resolve';
+import type { CheckStatus, CheckSummary, ElementCheck, ElementFigures, SpoolCheck, SpoolFigures } from './types';
+import { checkElement, checkElementFigures } from './check-element';
+import type { MaterialFinder, ResolveCache } from './resolve';
 
 export interface CheckOptions {
   /** Material lookup (library plus team materials); defaults to the built-in library. */
@@ -17,15 +17,41 @@ export function worseStatus(a: CheckStatus | null, b: CheckStatus): CheckStatus 
 }
 
 /**
- * Check every element of a spool document (already validated by `parseSpoolDocument`).
- * Pure and synchronous; rule violations are element results, never exceptions.
+ * Check every element of a spool document (already validated by `parseSpoolDocument`), with the
+ * full trail: every case's equation trail with substituted values, the inputs with their sources
+ * and the message texts. This is the path for what people read (the inspector, the checker's
+ * JSON, the calc sheet). Pure and synchronous; rule violations are element results, never exceptions.
  */
 export function checkSpool(doc: SpoolDocument, options: CheckOptions = {}): SpoolCheck {
   const elements: ElementCheck[] = doc.elements.map((el, i) => checkElement(doc, el, i, options.findMaterial));
   return summarise(doc, elements);
 }
 
-function summarise(doc: SpoolDocument, elements: readonly ElementCheck[]): SpoolCheck {
+/**
+ * Numbers-first check of a whole spool: every number `checkSpool` gives (statuses, walls, margins,
+ * MAWP, cases, lightest schedule, before-bending wall) and the message codes, without building
+ * the trail, the inputs list or any text. For stored summaries, batch re-checks and anything that
+ * only needs the figures; `checkSpool` / `explainElement` give the trail when someone reads it.
+ */
+export function checkSpoolFigures(doc: SpoolDocument, options: CheckOptions = {}): SpoolFigures {
+  const cache: ResolveCache = new Map();
+  const els = doc.elements;
+  const elements: ElementFigures[] = new Array<ElementFigures>(els.length);
+  for (let i = 0; i < els.length; i++) elements[i] = checkElementFigures(doc, els[i]!, i, options.findMaterial, cache);
+  return summarise(doc, elements);
+}
+
+/**
+ * The full check of one element, trail included, found by id (or null when the document has no
+ * such element). For the calc sheet and any view of a single element's working.
+ */
+export function explainElement(doc: SpoolDocument, elementId: string, options: CheckOptions = {}): ElementCheck | null {
+  const index = doc.elements.findIndex((e) => e.id === elementId);
+  const el = doc.elements[index];
+  return el ? checkElement(doc, el, index, options.findMaterial) : null;
+}
+
+function summarise<E extends { readonly status: CheckStatus }>(doc: SpoolDocument, elements: readonly E[]): { units: SpoolDocument['units']; elements: readonly E[]; summary: CheckSummary; worst: CheckStatus | null; caution: string } {
   const summary: { -readonly [K in keyof CheckSummary]: number } = { pass: 0, marginal: 0, fail: 0, review: 0, invalid: 0 };
   let worst: CheckStatus | null = null;
   for (const e of elements) {
@@ -39,25 +65,48 @@ function summarise(doc: SpoolDocument, elements: readonly ElementCheck[]): Spool
  * A checker that reuses the result of every element whose object, spool conditions, units and
  * position are unchanged since the last call. Documents are immutable, so an edit re-checks only
  * the elements it touched: the sketcher re-colours one element without re-checking a thousand.
- * Results are identical to `checkSpool` (same pure function per element).
+ * Results are identical to `checkSpool` (same pure function per element, full trail).
+ * Unchanged positions are found by comparing with the previous document's element array (no
+ * hashing); elements that moved are found through a WeakMap and re-checked only if their index changed.
  */
 export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocument) => SpoolCheck {
-  let cache = new WeakMap<SpoolElement, { index: number; result: ElementCheck }>();
+  let cache = new WeakMap<SpoolElement, ElementCheck>();
   let lastConditions: SpoolDocument['conditions'] | null = null;
   let lastUnits: SpoolDocument['units'] | null = null;
+  let lastElements: readonly SpoolElement[] = [];
+  let lastResults: readonly ElementCheck[] = [];
+  let lastDoc: SpoolDocument | null = null;
+  let lastCheck: SpoolCheck | null = null;
   return (doc) => {
+    if (doc === lastDoc && lastCheck) return lastCheck;
     if (doc.conditions !== lastConditions || doc.units !== lastUnits) {
       cache = new WeakMap();
+      lastElements = [];
+      lastResults = [];
       lastConditions = doc.conditions;
       lastUnits = doc.units;
     }
-    const elements = doc.elements.map((el, i) => {
+    const els = doc.elements;
+    const results: ElementCheck[] = new Array<ElementCheck>(els.length);
+    for (let i = 0; i < els.length; i++) {
+      const el = els[i]!;
+      if (lastElements[i] === el) {
+        results[i] = lastResults[i]!;
+        continue;
+      }
       const hit = cache.get(el);
-      if (hit && hit.index === i) return hit.result;
+      if (hit && hit.index === i) {
+        results[i] = hit;
+        continue;
+      }
       const result = checkElement(doc, el, i, options.findMaterial);
-      cache.set(el, { index: i, result });
-      return result;
-    });
-    return summarise(doc, elements);
+      cache.set(el, result);
+      results[i] = result;
+    }
+    lastElements = els;
+    lastResults = results;
+    lastDoc = doc;
+    lastCheck = summarise(doc, results);
+    return lastCheck;
   };
 }
