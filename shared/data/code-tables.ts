@@ -262,16 +262,27 @@ export function preBendFactor(radiusOverNps: number): { value: number | null; so
   return { value: r.value, source: PRE_BEND_SOURCE, note: exact ? `${fmt(x)}D tabulated` : `interpolated at ${fmt(radiusOverNps)}D` };
 }
 
-/** Numbers-only form of `preBendFactor` (no strings): the factor, or null below 3D. */
+/** Numbers-only form of `preBendFactor` (no strings, no objects): the factor, or null below 3D. */
 export function preBendFactorValue(radiusOverNps: number): number | null {
   if (!Number.isFinite(radiusOverNps)) return null;
+  const table = PRE_BEND_TABLE;
   let x = radiusOverNps;
-  for (const p of PRE_BEND_TABLE) if (Math.abs(x - p.x) <= PRE_BEND_RATIO_TOLERANCE * p.x) x = p.x;
-  const first = PRE_BEND_TABLE[0]!;
-  const last = PRE_BEND_TABLE[PRE_BEND_TABLE.length - 1]!;
-  if (x < first.x) return null;
+  for (let i = 0; i < table.length; i++) {
+    const p = table[i]!;
+    if (Math.abs(x - p.x) <= PRE_BEND_RATIO_TOLERANCE * p.x) x = p.x;
+  }
+  if (x < table[0]!.x) return null;
+  const last = table[table.length - 1]!;
   if (x >= last.x) return last.y;
-  return interpolate(PRE_BEND_TABLE, x)!.value;
+  for (let i = 1; i < table.length; i++) {
+    const hi = table[i]!;
+    if (x > hi.x) continue;
+    if (x === hi.x) return hi.y;
+    const lo = table[i - 1]!;
+    // Same arithmetic as interpolate(), so both forms give the same number.
+    return lo.y + (hi.y - lo.y) * ((x - lo.x) / (hi.x - lo.x));
+  }
+  return null;
 }
 
 export const GEOMETRIC_THINNING_SOURCE =

@@ -444,8 +444,19 @@ export function getPipeSize(
 export function getPipeWall(nps: string, schedule: string): PipeWall | undefined {
   const n = canonicalNps(nps);
   const s = canonicalSchedule(schedule);
-  return n === undefined || s === undefined ? undefined : WALLS.get(key(n, s));
+  return n === undefined || s === undefined ? undefined : WALLS_BY_NPS.get(n)?.get(s);
 }
+
+/** NPS → schedule → wall, so a lookup builds no key string. */
+const WALLS_BY_NPS: ReadonlyMap<string, ReadonlyMap<string, PipeWall>> = (() => {
+  const out = new Map<string, Map<string, PipeWall>>();
+  for (const w of WALLS.values()) {
+    let m = out.get(w.nps);
+    if (!m) out.set(w.nps, (m = new Map()));
+    m.set(w.schedule, w);
+  }
+  return out;
+})();
 
 /**
  * Every schedule listed for this NPS (both standards), sorted by wall ascending; ties keep a

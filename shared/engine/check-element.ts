@@ -1,6 +1,6 @@
 import type { FieldIssue, SpoolDocument, SpoolElement } from '../model/spool';
 import type { CaseName, CaseResult, CheckMessage, CheckStatus, ElementCheck, ElementFigures, PreBendFigures, PreBendResult, ScheduleChoice, TrailStep } from './types';
-import { geometricThinning, preBendFactorValue } from '../data/code-tables';
+import { preBendFactorValue } from '../data/code-tables';
 import { listScheduleChoices } from '../data/pipe-dimensions';
 import { UNIT_LABELS } from '../units/units';
 import { bendThickness, extradosFactor, intradosFactor, pressureForThickness, straightThickness, straightThicknessFromId, thickWallY } from './equations';
@@ -8,6 +8,55 @@ import { EXTERNAL_BASIS_LABEL, externalAllowable, minimumExternalWall } from './
 import { fmt } from './format';
 import type { MaterialFinder, ResolveCache, ResolvedElement } from './resolve';
 import { resolveElement } from './resolve';
+
+/**
+ * Every message code, in the order messages appear in a result (each code has one place in that
+ * order, so "unique codes in order of appearance" is this order filtered).
+ */
+export const MESSAGE_CODES = [
+  'input',
+  'material-vs-spool-stress',
+  'below-min-temperature',
+  'product-form',
+  'w-rule',
+  'w-assumed',
+  'tight-bend',
+  'yield-lower-bound',
+  'long-cylinder',
+  'special-consideration',
+  'wall-short',
+  'marginal',
+  'external-allowable',
+  'no-schedule',
+  'order-heavier',
+  'pre-bend-table',
+  'flattening',
+  'from-memory',
+] as const;
+export type MessageCode = (typeof MESSAGE_CODES)[number];
+const CODE_BIT = new Map<string, number>(MESSAGE_CODES.map((c, i) => [c, 1 << i]));
+const bit = (code: MessageCode): number => CODE_BIT.get(code) ?? 0;
+const BIT = {
+  special: bit('special-consideration'),
+  wallShort: bit('wall-short'),
+  marginal: bit('marginal'),
+  external: bit('external-allowable'),
+  noSchedule: bit('no-schedule'),
+  orderHeavier: bit('order-heavier'),
+  preBendTable: bit('pre-bend-table'),
+  flattening: bit('flattening'),
+  fromMemory: bit('from-memory'),
+};
+const CODE_LISTS = new Map<number, readonly string[]>();
+/** The codes of a mask as one shared, frozen list (no allocation once seen). */
+function codesOf(mask: number): readonly string[] {
+  let list = CODE_LISTS.get(mask);
+  if (!list) {
+    list = Object.freeze(MESSAGE_CODES.filter((_, i) => (mask & (1 << i)) !== 0));
+    CODE_LISTS.set(mask, list);
+  }
+  return list;
+}
 
 /** Margin on the ordered wall below which a passing element is `marginal` (10 %). */
 export const MARGINAL_LIMIT = 0.1;
@@ -72,17 +121,30 @@ interface InternalCase {
   readonly nonFinite: boolean;
 }
 
+/** t at one location: Eq. (3b) from an explicit ID, (3a) for straight pipe, (3c) with I for a bend. */
+function thicknessAt(r: ResolvedElement, useId: boolean, D: number, I: number | undefined, y: number): number {
+  if (useId) return straightThicknessFromId(r.P, r.d ?? 0, r.c, r.S, r.E, r.W, y);
+  return I === undefined ? straightThickness(r.P, D, r.S, r.E, r.W, y) : bendThickness(r.P, D, r.S, r.E, r.W, y, I);
+}
+
+function pushThickness(ctx: Ctx, trail: TrailStep[], name: CaseName, useId: boolean, D: number, I: number | undefined, y: number, tv: number, note: string): void {
+  const { r, lu } = ctx;
+  const { P, S, E, W } = r;
+  if (useId) {
+    trail.push({ equation: EQ.b, label: `pressure design thickness t${note}`, formula: 't = P·(d + 2c) / (2·[S·E·W − P·(1 − Y)])', substituted: `t = ${fmt(P)} × (${fmt(r.d ?? 0)} + 2 × ${fmt(r.c)}) / (2 × [${fmt(S)} × ${fmt(E)} × ${fmt(W)} − ${fmt(P)} × (1 − ${fmt(y)})])`, symbol: 't', value: tv, unit: lu });
+  } else if (I === undefined) {
+    trail.push({ equation: EQ.a, label: `pressure design thickness t${note}`, formula: 't = P·D / (2·(S·E·W + P·Y))', substituted: `t = ${fmt(P)} × ${fmt(D)} / (2 × (${fmt(S)} × ${fmt(E)} × ${fmt(W)} + ${fmt(P)} × ${fmt(y)}))`, symbol: 't', value: tv, unit: lu });
+  } else {
+    trail.push({ equation: EQ.c, label: `pressure design thickness t at the ${name}${note}`, formula: 't = P·D / (2·[(S·E·W / I) + P·Y])', substituted: `t = ${fmt(P)} × ${fmt(D)} / (2 × [(${fmt(S)} × ${fmt(E)} × ${fmt(W)} / ${fmt(I)}) + ${fmt(P)} × ${fmt(y)}])`, symbol: 't', value: tv, unit: lu });
+  }
+}
+
 /** Internal pressure at one location: straight (I = 1, Eq. 3a or 3b) or a bend location (Eq. 3c with I). */
 function internalCase(ctx: Ctx, name: CaseName, D: number, T: number, I: number | undefined): InternalCase {
-  const { r, lu, full } = ctx;
+  const { r, full } = ctx;
   const trail: TrailStep[] | null = full ? [] : null;
-  const { P, S, E, W } = r;
   let Y = r.Y;
   const useId = name === 'straight' && r.d !== null;
-  const compute = (y: number): number => {
-    if (useId) return straightThicknessFromId(P, r.d ?? 0, r.c, S, E, W, y);
-    return I === undefined ? straightThickness(P, D, S, E, W, y) : bendThickness(P, D, S, E, W, y, I);
-  };
   if (trail && I !== undefined) {
     trail.push({
       equation: name === 'intrados' ? EQ.d : name === 'extrados' ? EQ.e : 'B31.3 para. 304.2.1',
@@ -94,18 +156,9 @@ function internalCase(ctx: Ctx, name: CaseName, D: number, T: number, I: number 
       unit: '',
     });
   }
-  let t = compute(Y);
+  let t = thicknessAt(r, useId, D, I, Y);
   const equation = useId ? EQ.b : I === undefined ? EQ.a : EQ.c;
-  const pushT = (trail: TrailStep[], y: number, tv: number, note: string) => {
-    if (useId) {
-      trail.push({ equation: EQ.b, label: `pressure design thickness t${note}`, formula: 't = P·(d + 2c) / (2·[S·E·W − P·(1 − Y)])', substituted: `t = ${fmt(P)} × (${fmt(r.d ?? 0)} + 2 × ${fmt(r.c)}) / (2 × [${fmt(S)} × ${fmt(E)} × ${fmt(W)} − ${fmt(P)} × (1 − ${fmt(y)})])`, symbol: 't', value: tv, unit: lu });
-    } else if (I === undefined) {
-      trail.push({ equation: EQ.a, label: `pressure design thickness t${note}`, formula: 't = P·D / (2·(S·E·W + P·Y))', substituted: `t = ${fmt(P)} × ${fmt(D)} / (2 × (${fmt(S)} × ${fmt(E)} × ${fmt(W)} + ${fmt(P)} × ${fmt(y)}))`, symbol: 't', value: tv, unit: lu });
-    } else {
-      trail.push({ equation: EQ.c, label: `pressure design thickness t at the ${name}${note}`, formula: 't = P·D / (2·[(S·E·W / I) + P·Y])', substituted: `t = ${fmt(P)} × ${fmt(D)} / (2 × [(${fmt(S)} × ${fmt(E)} × ${fmt(W)} / ${fmt(I)}) + ${fmt(P)} × ${fmt(y)}])`, symbol: 't', value: tv, unit: lu });
-    }
-  };
-  if (trail) pushT(trail, Y, t, '');
+  if (trail) pushThickness(ctx, trail, name, useId, D, I, Y, t, '');
   const thick = t >= D / 6;
   let thickY = false;
   const t0 = t;
@@ -114,10 +167,10 @@ function internalCase(ctx: Ctx, name: CaseName, D: number, T: number, I: number 
     Y = thickWallY(D, d, r.c);
     thickY = true;
     if (trail) trail.push({ equation: 'B31.3 Table 304.1.1 note', label: 'coefficient Y for t ≥ D/6', formula: 'Y = (d + 2c) / (D + d + 2c)', substituted: `Y = (${fmt(d)} + 2 × ${fmt(r.c)}) / (${fmt(D)} + ${fmt(d)} + 2 × ${fmt(r.c)})`, symbol: 'Y', value: Y, unit: '' });
-    t = compute(Y);
-    if (trail) pushT(trail, Y, t, ' (thick-wall Y)');
+    t = thicknessAt(r, useId, D, I, Y);
+    if (trail) pushThickness(ctx, trail, name, useId, D, I, Y, t, ' (thick-wall Y)');
   }
-  const pse = P / (S * E) > PSE_LIMIT;
+  const pse = r.P / (r.S * r.E) > PSE_LIMIT;
   const nonFinite = !Number.isFinite(t);
   const tm = t + r.c;
   const ordered = orderedWall(r, tm);
@@ -136,7 +189,16 @@ function externalCase(ctx: Ctx, D: number, T: number): CaseResult | null {
   const ext = r.external;
   if (!ext || r.Pext <= 0) return null;
   const trail: TrailStep[] | null = full ? [] : null;
-  const t = minimumExternalWall(D, r.Pext, ext.L, ext.Ey, ext.Sy, r.S);
+  // The minimum wall is a pure function of (D, L) and the conditions: solved once per run for each.
+  const memo = r.externalWalls;
+  let t: number;
+  const key = D * 1e6 + ext.L;
+  const hit = memo?.get(key);
+  if (hit !== undefined && hit[0] === D && hit[1] === ext.L) t = hit[2];
+  else {
+    t = minimumExternalWall(D, r.Pext, ext.L, ext.Ey, ext.Sy, r.S);
+    memo?.set(key, [D, ext.L, t]);
+  }
   const atMin = externalAllowable(D, t, ext.L, ext.Ey, ext.Sy, r.S);
   const tm = t + r.c;
   const ordered = orderedWall(r, tm);
@@ -207,7 +269,8 @@ function requirementFor(ctx: Ctx, D: number, T: number): Requirement {
   } else {
     internal.push(internalCase(ctx, 'straight', D, T, undefined));
   }
-  const cases: CaseResult[] = internal.map((c) => c.result);
+  const cases: CaseResult[] = [];
+  for (const c of internal) cases.push(c.result);
   const ext = externalCase(ctx, D, T);
   if (ext) cases.push(ext);
   let governing: CaseResult | undefined;
@@ -222,38 +285,41 @@ function numbersOnly(ctx: Ctx): Ctx {
   return ctx.full ? { r: ctx.r, metric: ctx.metric, lu: ctx.lu, pu: ctx.pu, full: false } : ctx;
 }
 
+function scanPassing(ctx: Ctx, req: Requirement, choices: readonly ScheduleChoice[]): ScheduleChoice | null {
+  const { r, metric } = ctx;
+  for (const w of choices) {
+    const D = metric ? w.odMm : w.odIn;
+    const T = metric ? w.wallMm : w.wallIn;
+    const needed = Math.abs(D - r.D) < 1e-9 && !req.dependsOnT ? req.required : requirementFor(numbersOnly(ctx), D, T).required;
+    if (T >= needed - 1e-12) return w;
+  }
+  return null;
+}
+
 /**
  * The lightest schedule of the element's own standard whose wall passes; a stainless element
  * with no passing B36.19M schedule gets the lightest passing B36.10M wall [ASME B36.10M/B36.19M scope].
  */
 function lightestChoice(ctx: Ctx, req: Requirement): ScheduleChoice | null {
-  const { r, metric } = ctx;
+  const { r } = ctx;
   if (r.nps === null) return null;
-  const scan = (choices: readonly ScheduleChoice[]): ScheduleChoice | null => {
-    for (const w of choices) {
-      const D = metric ? w.odMm : w.odIn;
-      const T = metric ? w.wallMm : w.wallIn;
-      const needed = Math.abs(D - r.D) < 1e-9 && !req.dependsOnT ? req.required : requirementFor(numbersOnly(ctx), D, T).required;
-      if (T >= needed - 1e-12) return w;
-    }
-    return null;
-  };
-  const own = scan(listScheduleChoices(r.nps, r.standard));
+  const own = scanPassing(ctx, req, listScheduleChoices(r.nps, r.standard));
   if (own !== null || !r.stainless || r.standard === 'B36.10M') return own;
-  return scan(listScheduleChoices(r.nps, 'B36.10M'));
+  return scanPassing(ctx, req, listScheduleChoices(r.nps, 'B36.10M'));
+}
+
+function scanWall(metric: boolean, choices: readonly ScheduleChoice[], wall: number): ScheduleChoice | null {
+  for (const w of choices) if ((metric ? w.wallMm : w.wallIn) >= wall - 1e-12) return w;
+  return null;
 }
 
 /** The lightest listed wall (own standard, then B36.10M for stainless) at least `wall` thick. */
 function orderChoice(ctx: Ctx, wall: number): ScheduleChoice | null {
   const { r, metric } = ctx;
   if (r.nps === null) return null;
-  const scan = (choices: readonly ScheduleChoice[]): ScheduleChoice | null => {
-    for (const w of choices) if ((metric ? w.wallMm : w.wallIn) >= wall - 1e-12) return w;
-    return null;
-  };
-  const own = scan(listScheduleChoices(r.nps, r.standard));
+  const own = scanWall(metric, listScheduleChoices(r.nps, r.standard), wall);
   if (own !== null || !r.stainless || r.standard === 'B36.10M') return own;
-  return scan(listScheduleChoices(r.nps, 'B36.10M'));
+  return scanWall(metric, listScheduleChoices(r.nps, 'B36.10M'), wall);
 }
 
 function preBendFor(ctx: Ctx, internal: readonly InternalCase[], T: number): PreBendResult | undefined {
@@ -272,16 +338,19 @@ function preBendFor(ctx: Ctx, internal: readonly InternalCase[], T: number): Pre
   if (trail && tableFactor !== null && tableWall !== null) {
     trail.push({ equation: 'B31.1 Table 102.4.5', label: 'minimum wall before bending (table)', formula: 't_before = factor(R/NPS) × tm', substituted: `t_before = ${fmt(tableFactor)} × ${fmt(sideTm)}  (R/NPS = ${fmt(radiusRatio)})`, symbol: 't_tab', value: tableWall, unit: lu });
   }
-  const g = geometricThinning(r.bend.R1 / r.D);
+  // Geometric estimate [common practice], as code-tables' geometricThinning (R1/D > 0.5 is assured by resolve).
+  const k = (2 * r.bend.R1) / r.D;
+  const fExt = k / (k + 1);
+  const fInt = k / (k - 1);
   const tmin = minimumWallOf(r, T);
-  const expectedExtradosWall = tmin * g.extrados;
-  const expectedIntradosWall = tmin * g.intrados;
-  const geometricWall = Math.max(ext.result.tm / g.extrados, intr.result.tm / g.intrados);
+  const expectedExtradosWall = tmin * fExt;
+  const expectedIntradosWall = tmin * fInt;
+  const geometricWall = Math.max(ext.result.tm / fExt, intr.result.tm / fInt);
   const before = Math.max(geometricWall, tableWall ?? 0);
   const requiredOrderedWall = orderedWall(r, before);
   if (trail) {
-    trail.push({ equation: 'geometric estimate (common practice)', label: 'extrados thinning factor', formula: 'f_ext = (2R/D) / (2R/D + 1)', substituted: `f_ext = ${fmt((2 * r.bend.R1) / r.D)} / (${fmt((2 * r.bend.R1) / r.D)} + 1)`, symbol: 'f_ext', value: g.extrados, unit: '' });
-    trail.push({ equation: 'geometric estimate (common practice)', label: 'minimum wall before bending (geometric)', formula: 't_before = max(tm_ext / f_ext, tm_int / f_int)', substituted: `t_before = max(${fmt(ext.result.tm)} / ${fmt(g.extrados)}, ${fmt(intr.result.tm)} / ${fmt(g.intrados)})`, symbol: 't_geo', value: geometricWall, unit: lu });
+    trail.push({ equation: 'geometric estimate (common practice)', label: 'extrados thinning factor', formula: 'f_ext = (2R/D) / (2R/D + 1)', substituted: `f_ext = ${fmt(k)} / (${fmt(k)} + 1)`, symbol: 'f_ext', value: fExt, unit: '' });
+    trail.push({ equation: 'geometric estimate (common practice)', label: 'minimum wall before bending (geometric)', formula: 't_before = max(tm_ext / f_ext, tm_int / f_int)', substituted: `t_before = max(${fmt(ext.result.tm)} / ${fmt(fExt)}, ${fmt(intr.result.tm)} / ${fmt(fInt)})`, symbol: 't_geo', value: geometricWall, unit: lu });
     trail.push({ equation: EQ.tol, label: 'ordered nominal wall for the bend pipe', formula: r.tolLength !== null ? 'T ≥ t_before + under-tolerance' : 'T ≥ t_before / (1 − tol)', substituted: r.tolLength !== null ? `T ≥ ${fmt(before)} + ${fmt(r.tolLength)}` : `T ≥ ${fmt(before)} / (1 − ${fmt(r.tolFraction ?? 0)})`, symbol: 'T_bend', value: requiredOrderedWall, unit: lu });
   }
   const orderHeavier = T < requiredOrderedWall - 1e-12;
@@ -290,8 +359,8 @@ function preBendFor(ctx: Ctx, internal: readonly InternalCase[], T: number): Pre
     radiusRatio,
     tableFactor,
     tableWall,
-    extradosThinning: 1 - g.extrados,
-    intradosThickening: g.intrados - 1,
+    extradosThinning: 1 - fExt,
+    intradosThickening: fInt - 1,
     expectedExtradosWall,
     expectedIntradosWall,
     geometricWall,
@@ -338,8 +407,8 @@ interface Evaluation {
   readonly preBend: PreBendResult | undefined;
   /** Full path: the messages; numbers-only path: null. */
   readonly messages: CheckMessage[] | null;
-  /** Message codes in order (may repeat). */
-  readonly codes: string[];
+  /** Message codes as bits of MESSAGE_CODES. */
+  readonly mask: number;
 }
 
 function evaluate(ctx: Ctx): Evaluation {
@@ -349,13 +418,9 @@ function evaluate(ctx: Ctx): Evaluation {
   const gov = req.governing;
   const required = req.required;
   const messages: CheckMessage[] | null = full ? [] : null;
-  const codes: string[] = [];
-  const say = (level: CheckMessage['level'], code: string, text: () => string) => {
-    codes.push(code);
-    if (messages) messages.push({ level, code, text: text() });
-  };
+  let mask = 0;
   for (const n of r.notes) {
-    codes.push(n.code);
+    mask |= CODE_BIT.get(n.code) ?? 0;
     if (messages) messages.push({ level: n.level, code: n.code, text: n.text });
   }
 
@@ -376,6 +441,7 @@ function evaluate(ctx: Ctx): Evaluation {
   else if (margin !== null && margin < MARGINAL_LIMIT) status = 'marginal';
   else status = 'pass';
   if (special) {
+    mask |= BIT.special;
     if (messages) {
       const texts = new Set<string>();
       for (const c of internal) {
@@ -385,16 +451,29 @@ function evaluate(ctx: Ctx): Evaluation {
       }
       for (const text of texts) messages.push({ level: 'warning', code: 'special-consideration', text });
     }
-    codes.push('special-consideration');
   }
-  if (status === 'review' && !passes) say('error', 'wall-short', () => `the chosen wall ${fmt(r.T)} ${lu} is also below the ${fmt(required)} ${lu} needed`);
-  if (status === 'fail') say('error', 'wall-short', () => `nominal wall ${fmt(r.T)} ${lu} < ${fmt(required)} ${lu} needed (${gov?.case ?? ''} governs)`);
-  if (status === 'marginal') say('warning', 'marginal', () => `margin on the ordered wall is ${fmt((margin ?? 0) * 100)} % (< ${MARGINAL_LIMIT * 100} %)`);
+  if (status === 'review' && !passes) {
+    mask |= BIT.wallShort;
+    if (messages) messages.push({ level: 'error', code: 'wall-short', text: `the chosen wall ${fmt(r.T)} ${lu} is also below the ${fmt(required)} ${lu} needed` });
+  }
+  if (status === 'fail') {
+    mask |= BIT.wallShort;
+    if (messages) messages.push({ level: 'error', code: 'wall-short', text: `nominal wall ${fmt(r.T)} ${lu} < ${fmt(required)} ${lu} needed (${gov?.case ?? ''} governs)` });
+  }
+  if (status === 'marginal') {
+    mask |= BIT.marginal;
+    if (messages) messages.push({ level: 'warning', code: 'marginal', text: `margin on the ordered wall is ${fmt((margin ?? 0) * 100)} % (< ${MARGINAL_LIMIT * 100} %)` });
+  }
   const ext = cases.length > internal.length ? cases[cases.length - 1] : undefined;
   if (ext?.allowablePressure !== undefined) {
-    say('info', 'external-allowable', () =>
-      `allowable external pressure of the chosen wall: ${fmt(ext.allowablePressure ?? 0)} ${pu} = min(UG-28 ${fmt(ext.allowableUg28 ?? 0)} ${pu}, VIII-2 4.4.5.1 ${fmt(ext.allowableVIII2 ?? 0)} ${pu}); ${EXTERNAL_BASIS_LABEL[ext.allowableBasis ?? 'ug28-elastic']} governs — formulas recalled from memory, verify`,
-    );
+    mask |= BIT.external;
+    if (messages) {
+      messages.push({
+        level: 'info',
+        code: 'external-allowable',
+        text: `allowable external pressure of the chosen wall: ${fmt(ext.allowablePressure)} ${pu} = min(UG-28 ${fmt(ext.allowableUg28 ?? 0)} ${pu}, VIII-2 4.4.5.1 ${fmt(ext.allowableVIII2 ?? 0)} ${pu}); ${EXTERNAL_BASIS_LABEL[ext.allowableBasis ?? 'ug28-elastic']} governs — formulas recalled from memory, verify`,
+      });
+    }
   }
 
   // Lightest passing schedule of the element's own standard (also for review elements).
@@ -402,24 +481,31 @@ function evaluate(ctx: Ctx): Evaluation {
   if (r.nps !== null) {
     lightest = lightestChoice(ctx, req);
     if (lightest === null) {
-      say('error', 'no-schedule', () => `no listed schedule of NPS ${r.nps ?? ''} in ASME ${r.standard}${r.stainless && r.standard === 'B36.19M' ? ' or B36.10M' : ''} gives the wall needed`);
+      mask |= BIT.noSchedule;
+      if (messages) messages.push({ level: 'error', code: 'no-schedule', text: `no listed schedule of NPS ${r.nps} in ASME ${r.standard}${r.stainless && r.standard === 'B36.19M' ? ' or B36.10M' : ''} gives the wall needed` });
     }
   }
 
   const preBend = preBendFor(ctx, internal, r.T);
-  if (preBend?.orderHeavier) {
-    say('warning', 'order-heavier', () => `order the bend pipe heavier: ${fmt(preBend.requiredOrderedWall)} ${lu} nominal needed before bending${preBend.order ? ` (schedule ${preBend.order.label})` : ''}`);
-  }
-  if (preBend && preBend.tableFactor === null) {
-    say('info', 'pre-bend-table', () => `R/NPS = ${fmt(preBend.radiusRatio)} is below the 3D start of B31.1 Table 102.4.5: geometric estimate only`);
+  if (preBend) {
+    if (preBend.orderHeavier) {
+      mask |= BIT.orderHeavier;
+      if (messages) messages.push({ level: 'warning', code: 'order-heavier', text: `order the bend pipe heavier: ${fmt(preBend.requiredOrderedWall)} ${lu} nominal needed before bending${preBend.order ? ` (schedule ${preBend.order.label})` : ''}` });
+    }
+    if (preBend.tableFactor === null) {
+      mask |= BIT.preBendTable;
+      if (messages) messages.push({ level: 'info', code: 'pre-bend-table', text: `R/NPS = ${fmt(preBend.radiusRatio)} is below the 3D start of B31.1 Table 102.4.5: geometric estimate only` });
+    }
   }
   if (r.bend) {
-    say('info', 'flattening', () => 'flattening (max OD − min OD) must not exceed 8 % of nominal OD for internal pressure, 3 % for external (para. 332.2.1, from memory): verify at fabrication');
+    mask |= BIT.flattening;
+    if (messages) messages.push({ level: 'info', code: 'flattening', text: 'flattening (max OD − min OD) must not exceed 8 % of nominal OD for internal pressure, 3 % for external (para. 332.2.1, from memory): verify at fabrication' });
   }
   if (r.memorySymbols.length > 0) {
-    say('warning', 'from-memory', () => `uses values recalled from memory (${r.memorySymbols.join(', ')}): verify against the licensed edition`);
+    mask |= BIT.fromMemory;
+    if (messages) messages.push({ level: 'warning', code: 'from-memory', text: `uses values recalled from memory (${r.memorySymbols.join(', ')}): verify against the licensed edition` });
   }
-  return { status, required, margin, governing: gov?.case ?? null, lightest, mawp, cases, preBend, messages, codes };
+  return { status, required, margin, governing: gov?.case ?? null, lightest, mawp, cases, preBend, messages, mask };
 }
 
 function contextFor(doc: SpoolDocument, r: ResolvedElement, full: boolean): Ctx {
@@ -512,6 +598,31 @@ export function checkElementFigures(doc: SpoolDocument, el: SpoolElement, index:
   const r = res.value;
   const ev = evaluate(contextFor(doc, r, false));
   const preBend: PreBendFigures | undefined = ev.preBend;
+  const minimumWall = minimumWallOf(r, r.T);
+  const lightestSchedule = ev.lightest !== null ? ev.lightest.schedule : null;
+  const codes = codesOf(ev.mask);
+  // Two literal shapes (with and without the bend's figures) rather than a spread: no extra objects.
+  if (preBend) {
+    return {
+      id: el.id,
+      kind: el.kind,
+      index,
+      status: ev.status,
+      outsideDiameter: r.D,
+      nominalWall: r.T,
+      minimumWall,
+      requiredNominalWall: ev.required,
+      margin: ev.margin,
+      governing: ev.governing,
+      lightestSchedule,
+      lightest: ev.lightest,
+      mawp: ev.mawp,
+      preBendWall: Math.max(preBend.geometricWall, preBend.tableWall ?? 0),
+      preBend,
+      cases: ev.cases,
+      codes,
+    };
+  }
   return {
     id: el.id,
     kind: el.kind,
@@ -519,15 +630,14 @@ export function checkElementFigures(doc: SpoolDocument, el: SpoolElement, index:
     status: ev.status,
     outsideDiameter: r.D,
     nominalWall: r.T,
-    minimumWall: minimumWallOf(r, r.T),
+    minimumWall,
     requiredNominalWall: ev.required,
     margin: ev.margin,
     governing: ev.governing,
-    lightestSchedule: ev.lightest?.schedule ?? null,
+    lightestSchedule,
     lightest: ev.lightest,
     mawp: ev.mawp,
-    ...(preBend ? { preBendWall: Math.max(preBend.geometricWall, preBend.tableWall ?? 0), preBend } : {}),
     cases: ev.cases,
-    codes: uniqueCodes(ev.codes),
+    codes,
   };
 }

@@ -41,6 +41,35 @@ export function checkSpoolFigures(doc: SpoolDocument, options: CheckOptions = {}
   return summarise(doc, elements);
 }
 
+/** What `visitSpoolFigures` returns: the spool's counts without the per-element figures. */
+export interface SpoolFiguresSummary {
+  readonly units: SpoolDocument['units'];
+  readonly count: number;
+  readonly summary: CheckSummary;
+  readonly worst: CheckStatus | null;
+  readonly caution: string;
+}
+
+/**
+ * The numbers-first check streamed: `visit` receives each element's figures (the same objects
+ * `checkSpoolFigures` would collect) and nothing is kept unless the visitor keeps it. For stored
+ * summaries and batch re-checks of whole projects, where holding thousands of result objects only
+ * to count them would cost more than computing them.
+ */
+export function visitSpoolFigures(doc: SpoolDocument, visit: (figures: ElementFigures) => void, options: CheckOptions = {}): SpoolFiguresSummary {
+  const cache: ResolveCache = new Map();
+  const els = doc.elements;
+  const summary: { -readonly [K in keyof CheckSummary]: number } = { pass: 0, marginal: 0, fail: 0, review: 0, invalid: 0 };
+  let worst: CheckStatus | null = null;
+  for (let i = 0; i < els.length; i++) {
+    const f = checkElementFigures(doc, els[i]!, i, options.findMaterial, cache);
+    summary[f.status] += 1;
+    worst = worseStatus(worst, f.status);
+    visit(f);
+  }
+  return { units: doc.units, count: els.length, summary, worst, caution: CAUTION };
+}
+
 /**
  * The full check of one element, trail included, found by id (or null when the document has no
  * such element). For the calc sheet and any view of a single element's working.
@@ -75,6 +104,8 @@ export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocum
   let lastUnits: SpoolDocument['units'] | null = null;
   let lastElements: readonly SpoolElement[] = [];
   let lastResults: readonly ElementCheck[] = [];
+  // Severity per position, kept beside the results so counting never touches the result objects.
+  let lastSeverity = new Uint8Array(0);
   let lastDoc: SpoolDocument | null = null;
   let lastCheck: SpoolCheck | null = null;
   return (doc) => {
@@ -87,26 +118,40 @@ export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocum
       lastUnits = doc.units;
     }
     const els = doc.elements;
-    const results: ElementCheck[] = new Array<ElementCheck>(els.length);
-    for (let i = 0; i < els.length; i++) {
+    const n = els.length;
+    const results: ElementCheck[] = new Array<ElementCheck>(n);
+    const severity = new Uint8Array(n);
+    for (let i = 0; i < n; i++) {
       const el = els[i]!;
       if (lastElements[i] === el) {
         results[i] = lastResults[i]!;
+        severity[i] = lastSeverity[i]!;
         continue;
       }
-      const hit = cache.get(el);
-      if (hit && hit.index === i) {
-        results[i] = hit;
-        continue;
+      let result = cache.get(el);
+      if (!result || result.index !== i) {
+        result = checkElement(doc, el, i, options.findMaterial);
+        cache.set(el, result);
       }
-      const result = checkElement(doc, el, i, options.findMaterial);
-      cache.set(el, result);
       results[i] = result;
+      severity[i] = SEVERITY[result.status];
     }
     lastElements = els;
     lastResults = results;
+    lastSeverity = severity;
     lastDoc = doc;
-    lastCheck = summarise(doc, results);
+    lastCheck = { units: doc.units, elements: results, ...countSeverities(severity), caution: CAUTION };
     return lastCheck;
   };
+}
+
+const BY_SEVERITY: readonly CheckStatus[] = ['pass', 'marginal', 'review', 'fail', 'invalid'];
+
+/** Summary counts and the worst status from per-element severities (same as folding worseStatus). */
+function countSeverities(severity: Uint8Array): { summary: CheckSummary; worst: CheckStatus | null } {
+  const counts = [0, 0, 0, 0, 0];
+  for (let i = 0; i < severity.length; i++) counts[severity[i]!]! += 1;
+  let worst: CheckStatus | null = null;
+  for (let k = 0; k < counts.length; k++) if (counts[k]! > 0) worst = BY_SEVERITY[k]!;
+  return { summary: { pass: counts[0]!, marginal: counts[1]!, fail: counts[3]!, review: counts[2]!, invalid: counts[4]! }, worst };
 }

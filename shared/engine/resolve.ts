@@ -58,6 +58,11 @@ export interface ResolvedElement {
   readonly notes: ResolveNote[];
   /** Symbols of inputs recalled from memory (the "from-memory" message). */
   readonly memorySymbols: string[];
+  /**
+   * Numbers-only path: minimum external walls already solved in this run for these conditions,
+   * keyed by diameter and length (the solve is a pure function of them). Null on the full path.
+   */
+  readonly externalWalls: Map<number, [number, number, number]> | null;
 }
 
 export type MaterialFinder = (idOrSpec: string) => Material | undefined;
@@ -69,6 +74,12 @@ export type ResolveResult = { ok: true; value: ResolvedElement } | { ok: false; 
  * conditions object an element uses (the spool's, or its own overrides). Create one per document.
  */
 export type ResolveCache = Map<object, ConditionPart>;
+
+const NO_INPUTS: SourcedValue[] = [];
+
+function elementPath(index: number, field: string): string {
+  return `elements[${index}].${field}`;
+}
 
 /** Which path a condition's value came from: the element override or the spool default. */
 function conditionPath(el: SpoolElement, index: number, key: keyof Conditions): string {
@@ -108,6 +119,7 @@ interface ConditionPart {
   readonly inputs: SourcedValue[];
   readonly tolInput: SourcedValue | null;
   readonly extInputs: SourcedValue[];
+  readonly externalWalls: Map<number, [number, number, number]> | null;
 }
 
 /** The spool's explicit allowable stress applied to an element whose material differs from the spool's. */
@@ -267,7 +279,8 @@ function resolveConditions(doc: SpoolDocument, el: SpoolElement, index: number, 
     if (cond.stiffenedLength !== undefined) L = cond.stiffenedLength;
   }
 
-  return { cond, issues, extIssues, tempF, P, Pext, material, S, E, W, Y, yOverridden, ca, tolFraction, tolLength, Ey, Sy, L, notes, extNotes, memorySymbols, extMemorySymbols, inputs, tolInput, extInputs };
+  const externalWalls = !full && Pext > 0 ? new Map<number, [number, number, number]>() : null;
+  return { cond, issues, extIssues, tempF, P, Pext, material, S, E, W, Y, yOverridden, ca, tolFraction, tolLength, Ey, Sy, L, notes, extNotes, memorySymbols, extMemorySymbols, inputs, tolInput, extInputs, externalWalls };
 }
 
 /** Two material names denote the same material when they resolve to the same row (or read the same). */
@@ -291,8 +304,7 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
   const units = doc.units;
   const u = UNIT_LABELS[units];
   const issues: FieldIssue[] = [];
-  const inputs: SourcedValue[] = [];
-  const at = (field: string) => `elements[${index}].${field}`;
+  const inputs: SourcedValue[] = full ? [] : NO_INPUTS;
 
   // --- pipe size
   let nps: string | null = null;
@@ -302,18 +314,18 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
   let dimSource = '';
   if (el.nps !== undefined) {
     const n = typeof el.nps === 'string' && isCanonicalNps(el.nps) ? el.nps : normalizeNps(el.nps);
-    if (n === undefined) issues.push({ path: at('nps'), message: `NPS ${String(el.nps)} is not a size listed in ASME B36.10M/B36.19M` });
+    if (n === undefined) issues.push({ path: elementPath(index, 'nps'), message: `NPS ${String(el.nps)} is not a size listed in ASME B36.10M/B36.19M` });
     else nps = n;
   }
   if (el.schedule !== undefined && el.nominalWall === undefined) {
     const s = typeof el.schedule === 'string' && isCanonicalSchedule(el.schedule) ? el.schedule : normalizeSchedule(el.schedule);
-    if (s === undefined) issues.push({ path: at('schedule'), message: `schedule "${el.schedule}" is not known (use 10, 20, 30, 40, 60, 80, 100, 120, 140, 160, STD, XS, XXS, 5S, 10S, 40S, 80S)` });
+    if (s === undefined) issues.push({ path: elementPath(index, 'schedule'), message: `schedule "${el.schedule}" is not known (use 10, 20, 30, 40, 60, 80, 100, 120, 140, 160, STD, XS, XXS, 5S, 10S, 40S, 80S)` });
     else schedule = s;
   }
   if (nps !== null && schedule !== null) {
     const wall = getPipeWall(nps, schedule);
     if (!wall) {
-      issues.push({ path: at('schedule'), message: `NPS ${nps} has no schedule ${schedule} in ASME ${scheduleStandard(schedule)}` });
+      issues.push({ path: elementPath(index, 'schedule'), message: `NPS ${nps} has no schedule ${schedule} in ASME ${scheduleStandard(schedule)}` });
     } else {
       D = units === 'metric' ? wall.odMm : wall.odIn;
       T = units === 'metric' ? wall.wallMm : wall.wallIn;
@@ -326,7 +338,7 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
       dimSource = 'ASME B36.10M (outside diameter)';
     }
   } else if (nps === null && el.schedule !== undefined && el.nominalWall === undefined && el.nps === undefined) {
-    issues.push({ path: at('schedule'), message: 'a schedule needs nps; give nominalWall with outsideDiameter' });
+    issues.push({ path: elementPath(index, 'schedule'), message: 'a schedule needs nps; give nominalWall with outsideDiameter' });
   }
   let d: number | null = null;
   if (el.outsideDiameter !== undefined) {
@@ -335,19 +347,19 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
   }
   if (el.nominalWall !== undefined) T = el.nominalWall;
   if (el.insideDiameter !== undefined) {
-    if (T === undefined) issues.push({ path: at('nominalWall'), message: 'insideDiameter needs a nominal wall (schedule or nominalWall)' });
+    if (T === undefined) issues.push({ path: elementPath(index, 'nominalWall'), message: 'insideDiameter needs a nominal wall (schedule or nominalWall)' });
     else {
       d = el.insideDiameter;
       if (el.outsideDiameter === undefined && el.nps === undefined) {
         D = d + 2 * T;
         dimSource = 'insideDiameter + 2·nominalWall';
       } else if (D !== undefined && Math.abs(D - 2 * T - d) > 1e-6 * D) {
-        issues.push({ path: at('insideDiameter'), message: `insideDiameter ${fmt(d)} ${u.length} does not equal D − 2T = ${fmt(D - 2 * T)} ${u.length}` });
+        issues.push({ path: elementPath(index, 'insideDiameter'), message: `insideDiameter ${fmt(d)} ${u.length} does not equal D − 2T = ${fmt(D - 2 * T)} ${u.length}` });
       }
     }
   }
   if (D !== undefined && T !== undefined && T >= D / 2) {
-    issues.push({ path: at(el.nominalWall !== undefined ? 'nominalWall' : 'schedule'), message: `nominal wall ${fmt(T)} ${u.length} is not less than half the outside diameter ${fmt(D)} ${u.length}` });
+    issues.push({ path: elementPath(index, el.nominalWall !== undefined ? 'nominalWall' : 'schedule'), message: `nominal wall ${fmt(T)} ${u.length} is not less than half the outside diameter ${fmt(D)} ${u.length}` });
   }
   if (full) {
     if (D !== undefined) inputs.push({ symbol: 'D', label: 'outside diameter', value: D, unit: u.length, source: dimSource });
@@ -369,15 +381,17 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
   const cond = cp.cond;
   for (const i of cp.issues) issues.push(i);
   if (full) for (const i of cp.inputs) inputs.push(i);
-  const notes: ResolveNote[] = cp.notes.length > 0 ? [...cp.notes] : [];
-  const memorySymbols: string[] = cp.memorySymbols.length > 0 ? [...cp.memorySymbols] : [];
+  // Shared with the cached condition part until this element adds its own (copy on write).
+  let notes: ResolveNote[] = cp.notes;
+  let memorySymbols: string[] = cp.memorySymbols;
+
   const { material, S } = cp;
 
   // --- thread or groove depth
   let c = cp.ca;
   if (el.kind === 'straight' && el.endType === 'threaded') {
     const npsValue = nps !== null ? npsToNumber(nps) : undefined;
-    if (npsValue === undefined) issues.push({ path: at('endType'), message: 'threaded ends need nps to find the thread depth' });
+    if (npsValue === undefined) issues.push({ path: elementPath(index, 'endType'), message: 'threaded ends need nps to find the thread depth' });
     else {
       const th = threadDepth(npsValue);
       const h = lengthFromInches(th.inches, units);
@@ -390,7 +404,7 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
     else {
       const g = cond.grooveDepth + lengthFromInches(GROOVE_TOLERANCE_IN, units);
       c += g;
-      memorySymbols.push('g');
+      memorySymbols = [...memorySymbols, 'g'];
       if (full) inputs.push({ symbol: 'g', label: 'groove depth + 0.02 in tolerance', value: g, unit: u.length, source: 'groove depth from conditions; +0.02 in (0.5 mm) where no tolerance is stated [from memory]', fromMemory: true });
     }
   }
@@ -413,9 +427,9 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
       });
     }
     if (R1 / D <= 0.5) {
-      issues.push({ path: at('bendRadius'), message: `R1/D = ${fmt(R1 / D)} must exceed 0.5 for Eq. (3d)` });
+      issues.push({ path: elementPath(index, 'bendRadius'), message: `R1/D = ${fmt(R1 / D)} must exceed 0.5 for Eq. (3d)` });
     } else if (R1 < 1.5 * D) {
-      notes.push({ level: 'warning', code: 'tight-bend', text: full ? `R1 = ${fmt(R1 / D)}·D is under 1.5·D: such tight bends are normally elbows, not pipe bends` : '' });
+      notes = [...notes, { level: 'warning', code: 'tight-bend', text: full ? `R1 = ${fmt(R1 / D)}·D is under 1.5·D: such tight bends are normally elbows, not pipe bends` : '' }];
     }
     bend = { R1, nominalSize, angle: el.angle, multiple };
   }
@@ -425,8 +439,8 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
   if (cp.Pext > 0 && D !== undefined) {
     for (const i of cp.extIssues) issues.push(i);
     if (full) for (const i of cp.extInputs) inputs.push(i);
-    for (const n of cp.extNotes) notes.push(n);
-    for (const m of cp.extMemorySymbols) memorySymbols.push(m);
+    if (cp.extNotes.length > 0) notes = [...notes, ...cp.extNotes];
+    if (cp.extMemorySymbols.length > 0) memorySymbols = [...memorySymbols, ...cp.extMemorySymbols];
     let L: number;
     let longCylinder = false;
     if (cp.L !== undefined) {
@@ -436,7 +450,7 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
       L = 50 * D;
       longCylinder = true;
       if (full) inputs.push({ symbol: 'L', label: 'design length between stiffeners', value: L, unit: u.length, source: 'not given: treated as a long cylinder (L/Do = 50, conservative)' });
-      notes.push({ level: 'info', code: 'long-cylinder', text: full ? 'no stiffenedLength: external pressure checked as a long cylinder' : '' });
+      notes = [...notes, { level: 'info', code: 'long-cylinder', text: full ? 'no stiffenedLength: external pressure checked as a long cylinder' : '' }];
     }
     if (cp.Ey !== undefined && cp.Sy !== undefined) external = { L, longCylinder, Ey: cp.Ey, Sy: cp.Sy };
   }
@@ -444,8 +458,8 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
   if (S === undefined && !issues.some((i) => i.path.endsWith('material') || i.path.endsWith('temperature'))) {
     issues.push({ path: conditionPath(el, index, 'material'), message: 'give material or allowableStress' });
   }
-  if (D === undefined && issues.length === 0) issues.push({ path: at('nps'), message: 'outside diameter could not be found' });
-  if (T === undefined && issues.length === 0) issues.push({ path: at('schedule'), message: 'nominal wall could not be found' });
+  if (D === undefined && issues.length === 0) issues.push({ path: elementPath(index, 'nps'), message: 'outside diameter could not be found' });
+  if (T === undefined && issues.length === 0) issues.push({ path: elementPath(index, 'schedule'), message: 'nominal wall could not be found' });
   if (issues.length > 0 || D === undefined || T === undefined || S === undefined) return { ok: false, issues };
 
   // Own standard: the schedule's; for a bare wall, stainless materials read B36.19M.
@@ -455,7 +469,7 @@ export function resolveElement(doc: SpoolDocument, el: SpoolElement, index: numb
   const { P, Pext, tempF, E, W, Y, yOverridden, tolFraction, tolLength } = cp;
   return {
     ok: true,
-    value: { element: el, index, nps, schedule, standard, stainless, D, T, P, Pext, tempF, S, E, W, Y, yOverridden, c, tolFraction, tolLength, external, d, bend, material, inputs, notes, memorySymbols },
+    value: { element: el, index, nps, schedule, standard, stainless, D, T, P, Pext, tempF, S, E, W, Y, yOverridden, c, tolFraction, tolLength, external, d, bend, material, inputs, notes, memorySymbols, externalWalls: cp.externalWalls },
   };
 }
 
