@@ -145,17 +145,23 @@ export function minimumExternalWall(Do: number, Pext: number, L: number, Ey: num
   const tMax = Do / 2;
   if (!(externalAllowablePressure(Do, tMax, L, Ey, Sy, S) >= Pext)) return tMax;
   const lnP = Math.log(Pext);
+  // Sides are decided by Pa ≥ Pext itself; ln Pa − ln P only steers the interpolation.
+  const g = (t: number): number => {
+    const pa = externalAllowablePressure(Do, t, L, Ey, Sy, S);
+    const f = Math.log(pa) - lnP;
+    return pa >= Pext ? Math.max(f, 0) : Math.min(f, -Number.MIN_VALUE);
+  };
   // Long-cylinder elastic estimate: Pa = 2.2·E/(3·(Do/t)³).
   let tHi = Math.min(tMax, Do / Math.cbrt((2.2 * Ey) / (3 * Pext)));
   if (!(tHi > 0)) tHi = tMax;
-  let fHi = Math.log(externalAllowablePressure(Do, tHi, L, Ey, Sy, S)) - lnP;
+  let fHi = g(tHi);
   let tLo = tHi;
   let fLo = fHi;
   if (fHi >= 0) {
     // Walk down until Pa < Pext.
     for (let k = 0; k < 200; k++) {
       tLo = tHi / 2;
-      fLo = Math.log(externalAllowablePressure(Do, tLo, L, Ey, Sy, S)) - lnP;
+      fLo = g(tLo);
       if (fLo < 0) break;
       tHi = tLo;
       fHi = fLo;
@@ -167,7 +173,7 @@ export function minimumExternalWall(Do: number, Pext: number, L: number, Ey: num
       tLo = tHi;
       fLo = fHi;
       tHi = Math.min(tMax, tHi * 2);
-      fHi = Math.log(externalAllowablePressure(Do, tHi, L, Ey, Sy, S)) - lnP;
+      fHi = g(tHi);
       if (fHi >= 0) break;
     }
   }
@@ -179,7 +185,7 @@ export function minimumExternalWall(Do: number, Pext: number, L: number, Ey: num
     let x = xHi - (fHi * (xHi - xLo)) / (fHi - fLo);
     if (!(x > xLo && x < xHi)) x = (xLo + xHi) / 2;
     const t = Math.exp(x);
-    const f = Math.log(externalAllowablePressure(Do, t, L, Ey, Sy, S)) - lnP;
+    const f = g(t);
     if (f >= 0) {
       xHi = x;
       tHi = t;
