@@ -154,6 +154,14 @@ export function minimumExternalWall(Do: number, Pext: number, L: number, Ey: num
   // Long-cylinder elastic estimate: Pa = 2.2·E/(3·(Do/t)³).
   let tHi = Math.min(tMax, Do / Math.cbrt((2.2 * Ey) / (3 * Pext)));
   if (!(tHi > 0)) tHi = tMax;
+  // Where that branch (UG-28 elastic, long cylinder, Do/t ≥ 10) is the lowest at its own root, the
+  // root is the answer: below it that branch, and so the minimum, is under Pext.
+  const r0 = Do / tHi;
+  if (tHi < tMax && r0 >= 10 && factorA(Do, tHi, L) === 1.1 / (r0 * r0) && ug28Elastic(r0, 1.1 / (r0 * r0), Ey) <= viii2(Do, tHi, L, Ey, Sy, null)) {
+    let t = tHi;
+    for (let k = 0; k < 8 && externalAllowablePressure(Do, t, L, Ey, Sy, S) < Pext; k++) t *= 1 + 4e-16;
+    if (externalAllowablePressure(Do, t, L, Ey, Sy, S) >= Pext) return t;
+  }
   let fHi = g(tHi);
   let tLo = tHi;
   let fLo = fHi;
