@@ -9,7 +9,7 @@ import { parseCsv, receiveCsv } from '../csv';
 import { readMaterialsCsv, type TeamMaterials } from '../materials/team-materials';
 import { MATERIALS } from '../../shared/data/materials';
 import { refreshTeamSummaries } from '../spools/repo';
-import { runCheck, summarizeCheck } from '../spools/check';
+import { summarizeDocument } from '../spools/check';
 import { NPS_SIZES, PIPE_DIMENSION_SOURCES, SCHEDULES, getPipeSize, listPipeWalls } from '../../shared/data/pipe-dimensions';
 
 /** Pickers' data: built once, it never changes while the process runs. */
@@ -36,7 +36,7 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
   const refresh = async (teamId: string) => {
     materials.invalidate(teamId);
     const find = await materials.finder(teamId);
-    return refreshTeamSummaries(db, teamId, (doc) => summarizeCheck(runCheck(doc, find)));
+    return refreshTeamSummaries(db, teamId, (doc) => summarizeDocument(doc, find));
   };
 
   /** Library rows (`origin: 'library'`) and the team's own (`origin: 'team'`, with `sourceNote`), team first. */

@@ -12,7 +12,7 @@ import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
 import { parseBody, parseDocument } from '../validation';
 import { can, findTransition, SPOOL_STATUSES, type Action, type Role, type SpoolStatus } from '../../shared/model/permissions';
-import { runCheck, summarizeCheck } from '../spools/check';
+import { summarizeDocument } from '../spools/check';
 import type { SpoolDocument } from '../../shared/model/spool';
 import {
   SORTS,
@@ -93,7 +93,7 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
   const r = Router();
 
   /** Check with the team's materials and keep what the list shows. */
-  const checkDocument = async (teamId: string, doc: SpoolDocument) => summarizeCheck(runCheck(doc, await deps.materials.finder(teamId)));
+  const checkDocument = async (teamId: string, doc: SpoolDocument) => summarizeDocument(doc, await deps.materials.finder(teamId));
 
   r.get('/', requirePermission('spool:view'), async (req, res) => {
     const q = parseBody(listQuerySchema, req.query, ['query']);
