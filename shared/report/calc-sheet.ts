@@ -3,8 +3,16 @@
  * ready to print, in the document's units) shared by the PDF renderer, the browser print view
  * and the headless checker, so every copy of the record says the same thing.
  */
-import type { CaseResult, CheckStatus, ElementCheck, SourcedValue, SpoolCheck, TrailStep } from '../engine/types';
+import type {
+  CaseResult,
+  CheckStatus,
+  ElementCheck,
+  SourcedValue,
+  SpoolCheck,
+  TrailStep,
+} from '../engine/types';
 import { fmt } from '../engine/format';
+import { EXTERNAL_BASIS_LABEL } from '../engine';
 import { CAUTION } from '../model/caution';
 import type { Conditions, SpoolDocument, SpoolElement } from '../model/spool';
 import { UNIT_LABELS } from '../units/units';
@@ -163,7 +171,8 @@ const CASE_LABELS: Record<string, string> = {
 };
 
 /** Human label of a check case ("bend intrados"). */
-export const caseLabelOf = (c: string | null | undefined): string => (c ? (CASE_LABELS[c] ?? c) : DASH);
+export const caseLabelOf = (c: string | null | undefined): string =>
+  c ? (CASE_LABELS[c] ?? c) : DASH;
 
 const MOVE_LABELS: Record<string, string> = {
   'draft>submitted': 'submitted for check',
@@ -209,7 +218,11 @@ const CONDITION_FIELDS: readonly { key: ConditionKey; label: string; q: Quantity
   { key: 'allowableStress', label: 'Allowable stress S (given)', q: 'pressure' },
   { key: 'productForm', label: 'Product form / longitudinal joint', q: 'text' },
   { key: 'qualityFactor', label: 'Quality factor E (given)', q: 'ratio' },
-  { key: 'weldStrengthFactor', label: 'Weld joint strength reduction factor W (given)', q: 'ratio' },
+  {
+    key: 'weldStrengthFactor',
+    label: 'Weld joint strength reduction factor W (given)',
+    q: 'ratio',
+  },
   { key: 'coefficientY', label: 'Coefficient Y (given)', q: 'ratio' },
   { key: 'corrosionAllowance', label: 'Corrosion / erosion allowance c', q: 'length' },
   { key: 'millTolerance', label: 'Mill under-tolerance', q: 'fraction' },
@@ -221,7 +234,20 @@ const CONDITION_FIELDS: readonly { key: ConditionKey; label: string; q: Quantity
 ];
 
 /** Spool-wide values the engine looks up or defaults (shown once, with their sources). */
-const DERIVED_SYMBOLS = new Set(['S', 'E', 'W', 'Y', 'tol', 'c_a', 'S_y', 'E_y', 'L', 'P_ext', 'h', 'g']);
+const DERIVED_SYMBOLS = new Set([
+  'S',
+  'E',
+  'W',
+  'Y',
+  'tol',
+  'c_a',
+  'S_y',
+  'E_y',
+  'L',
+  'P_ext',
+  'h',
+  'g',
+]);
 
 const CONDITIONS_SOURCE = 'spool design conditions (as entered)';
 
@@ -244,18 +270,35 @@ function formatCondition(value: unknown, q: Quantity, units: SpoolDocument['unit
 
 function sizeOf(el: SpoolElement | undefined, e: ElementCheck, lengthUnit: string): string {
   if (!el) return DASH;
-  const size = el.nps !== undefined ? `NPS ${String(el.nps)}` : `D ${withUnit(el.outsideDiameter ?? el.insideDiameter ?? e.outsideDiameter, lengthUnit)}`;
-  const wall = el.schedule !== undefined ? `Sch ${String(el.schedule)}` : `T ${withUnit(el.nominalWall ?? e.nominalWall, lengthUnit)}`;
+  const size =
+    el.nps !== undefined
+      ? `NPS ${String(el.nps)}`
+      : `D ${withUnit(el.outsideDiameter ?? el.insideDiameter ?? e.outsideDiameter, lengthUnit)}`;
+  const wall =
+    el.schedule !== undefined
+      ? `Sch ${String(el.schedule)}`
+      : `T ${withUnit(el.nominalWall ?? e.nominalWall, lengthUnit)}`;
   return `${size} / ${wall}`;
 }
 
-function describeElement(el: SpoolElement | undefined, e: ElementCheck, lengthUnit: string): string {
+function describeElement(
+  el: SpoolElement | undefined,
+  e: ElementCheck,
+  lengthUnit: string,
+): string {
   const parts = [sizeOf(el, e, lengthUnit)];
-  if (e.outsideDiameter > 0) parts.push(`D ${withUnit(e.outsideDiameter, lengthUnit)}`, `T ${withUnit(e.nominalWall, lengthUnit)}`);
+  if (e.outsideDiameter > 0)
+    parts.push(
+      `D ${withUnit(e.outsideDiameter, lengthUnit)}`,
+      `T ${withUnit(e.nominalWall, lengthUnit)}`,
+    );
   if (el?.kind === 'bend') {
     const r = e.inputs.find((i) => i.symbol === 'R1');
     const given = typeof el.bendRadius === 'number' ? '' : ` (${fmt(el.bendRadius.multipleOfD)}D)`;
-    parts.push(`R1 ${r ? withUnit(r.value, r.unit) : typeof el.bendRadius === 'number' ? withUnit(el.bendRadius, lengthUnit) : DASH}${given}`, `${fmt(el.angle)}°`);
+    parts.push(
+      `R1 ${r ? withUnit(r.value, r.unit) : typeof el.bendRadius === 'number' ? withUnit(el.bendRadius, lengthUnit) : DASH}${given}`,
+      `${fmt(el.angle)}°`,
+    );
   } else if (el?.kind === 'straight') {
     parts.push(`length ${withUnit(el.length, lengthUnit)}`);
     if (el.endType) parts.push(`${el.endType} ends`);
@@ -265,10 +308,20 @@ function describeElement(el: SpoolElement | undefined, e: ElementCheck, lengthUn
 }
 
 function trailStep(s: TrailStep): SheetTrailStep {
-  return { label: s.label, equation: s.equation, formula: s.formula, substituted: s.substituted, result: `${s.symbol} = ${withUnit(s.value, s.unit)}` };
+  return {
+    label: s.label,
+    equation: s.equation,
+    formula: s.formula,
+    substituted: s.substituted,
+    result: `${s.symbol} = ${withUnit(s.value, s.unit)}`,
+  };
 }
 
-function sheetCase(c: CaseResult, governing: string | null, u: { length: string; pressure: string }): SheetCase {
+function sheetCase(
+  c: CaseResult,
+  governing: string | null,
+  u: { length: string; pressure: string },
+): SheetCase {
   return {
     location: caseLabelOf(c.case),
     equation: c.equation,
@@ -276,59 +329,134 @@ function sheetCase(c: CaseResult, governing: string | null, u: { length: string;
     t: withUnit(c.t, u.length),
     tm: withUnit(c.tm, u.length),
     orderedWall: withUnit(c.requiredNominalWall, u.length),
-    allowablePressure: c.allowablePressure === undefined ? DASH : withUnit(c.allowablePressure, u.pressure),
+    allowablePressure:
+      c.allowablePressure === undefined ? DASH : withUnit(c.allowablePressure, u.pressure),
     governing: c.case === governing,
   };
 }
 
 function sheetInput(i: SourcedValue): SheetInput {
-  return { symbol: i.symbol, label: i.label, value: withUnit(i.value, i.unit), source: i.source, fromMemory: i.fromMemory === true };
+  return {
+    symbol: i.symbol,
+    label: i.label,
+    value: withUnit(i.value, i.unit),
+    source: i.source,
+    fromMemory: i.fromMemory === true,
+  };
 }
 
-function buildElement(e: ElementCheck, el: SpoolElement | undefined, units: SpoolDocument['units']): SheetElement {
+function buildElement(
+  e: ElementCheck,
+  el: SpoolElement | undefined,
+  units: SpoolDocument['units'],
+): SheetElement {
   const u = UNIT_LABELS[units];
   const governingCase = e.cases.find((c) => c.case === e.governing);
   const figures: SheetRow[] = [
     { label: 'governing case', value: caseLabelOf(e.governing), source: governingCase?.equation },
-    { label: 'pressure design thickness t', value: withUnit(governingCase?.t, u.length), source: governingCase?.equation },
-    { label: 'minimum required thickness tm = t + c', value: withUnit(governingCase?.tm, u.length), source: 'B31.3 Eq. (2)' },
-    { label: 'ordered nominal wall needed', value: withUnit(e.requiredNominalWall, u.length), strong: true },
+    {
+      label: 'pressure design thickness t',
+      value: withUnit(governingCase?.t, u.length),
+      source: governingCase?.equation,
+    },
+    {
+      label: 'minimum required thickness tm = t + c',
+      value: withUnit(governingCase?.tm, u.length),
+      source: 'B31.3 Eq. (2)',
+    },
+    {
+      label: 'ordered nominal wall needed',
+      value: withUnit(e.requiredNominalWall, u.length),
+      strong: true,
+    },
     { label: 'chosen nominal wall', value: withUnit(e.nominalWall, u.length) },
-    { label: 'chosen minimum wall (after mill tolerance)', value: withUnit(e.minimumWall, u.length) },
+    {
+      label: 'chosen minimum wall (after mill tolerance)',
+      value: withUnit(e.minimumWall, u.length),
+    },
     { label: 'margin on the ordered wall', value: percent(e.margin) },
     { label: 'MAWP of the chosen wall', value: withUnit(e.mawp, u.pressure) },
   ];
-  if (governingCase?.allowablePressure !== undefined) figures.push({ label: 'allowable external pressure', value: withUnit(governingCase.allowablePressure, u.pressure) });
-  figures.push({ label: 'lightest passing schedule', value: e.lightestSchedule ?? 'none listed passes' });
-  if (e.preBendWall !== undefined) figures.push({ label: 'wall before bending (ordered)', value: withUnit(e.preBend?.requiredOrderedWall ?? e.preBendWall, u.length) });
+  const ext = e.cases.find((c) => c.allowablePressure !== undefined);
+  if (ext?.allowablePressure !== undefined) {
+    figures.push({
+      label: 'allowable external pressure (lower of the two below)',
+      value: withUnit(ext.allowablePressure, u.pressure),
+      source: ext.allowableBasis ? EXTERNAL_BASIS_LABEL[ext.allowableBasis] : undefined,
+    });
+    if (ext.allowableUg28 !== undefined)
+      figures.push({
+        label: 'by VIII-1 UG-28',
+        value: withUnit(ext.allowableUg28, u.pressure),
+        source: 'from memory',
+      });
+    if (ext.allowableVIII2 !== undefined)
+      figures.push({
+        label: 'by VIII-2 4.4.5.1',
+        value: withUnit(ext.allowableVIII2, u.pressure),
+        source: 'from memory',
+      });
+  }
+  figures.push({
+    label: 'lightest passing schedule',
+    value: e.lightest?.label ?? e.lightestSchedule ?? 'none listed passes',
+  });
+  if (e.preBendWall !== undefined)
+    figures.push({
+      label: 'wall before bending (ordered)',
+      value: withUnit(e.preBend?.requiredOrderedWall ?? e.preBendWall, u.length),
+    });
 
   const p = e.preBend;
   const preBend: SheetRow[] | null = p
     ? [
         { label: 'R1 / D (nominal size)', value: fmt(p.radiusRatio) },
-        { label: 'table factor', value: p.tableFactor === null ? 'outside table' : fmt(p.tableFactor), source: 'B31.1 Table 102.4.5' },
+        {
+          label: 'table factor',
+          value: p.tableFactor === null ? 'outside table' : fmt(p.tableFactor),
+          source: 'B31.1 Table 102.4.5',
+        },
         { label: 'wall by table factor', value: withUnit(p.tableWall, u.length) },
         { label: 'extrados thinning (geometric)', value: share(p.extradosThinning) },
         { label: 'intrados thickening (geometric)', value: share(p.intradosThickening) },
-        { label: 'expected wall after bending, extrados', value: withUnit(p.expectedExtradosWall, u.length) },
-        { label: 'expected wall after bending, intrados', value: withUnit(p.expectedIntradosWall, u.length) },
-        { label: 'wall by geometric estimate', value: withUnit(p.geometricWall, u.length), source: 'geometric estimate (common practice)' },
-        { label: 'ordered wall needed before bending', value: withUnit(p.requiredOrderedWall, u.length), strong: true },
+        {
+          label: 'expected wall after bending, extrados',
+          value: withUnit(p.expectedExtradosWall, u.length),
+        },
+        {
+          label: 'expected wall after bending, intrados',
+          value: withUnit(p.expectedIntradosWall, u.length),
+        },
+        {
+          label: 'wall by geometric estimate',
+          value: withUnit(p.geometricWall, u.length),
+          source: 'geometric estimate (common practice)',
+        },
+        {
+          label: 'ordered wall needed before bending',
+          value: withUnit(p.requiredOrderedWall, u.length),
+          strong: true,
+        },
         {
           label: 'order',
-          value: p.orderHeavier ? `ORDER HEAVIER: schedule ${p.orderSchedule ?? 'none listed'}` : 'chosen schedule is enough',
+          value: p.orderHeavier
+            ? `ORDER HEAVIER: schedule ${p.orderSchedule ?? 'none listed'}`
+            : 'chosen schedule is enough',
           strong: p.orderHeavier,
         },
       ]
     : null;
 
-  const ordered = governingCase ? [governingCase, ...e.cases.filter((c) => c !== governingCase)] : [...e.cases];
+  const ordered = governingCase
+    ? [governingCase, ...e.cases.filter((c) => c !== governingCase)]
+    : [...e.cases];
   const trail: SheetTrailGroup[] = ordered.map((c) => ({
     title: `${caseLabelOf(c.case)}${c === governingCase ? ' (governing)' : ''}`,
     governing: c === governingCase,
     steps: c.trail.map(trailStep),
   }));
-  if (p && p.trail.length > 0) trail.push({ title: 'wall before bending', governing: false, steps: p.trail.map(trailStep) });
+  if (p && p.trail.length > 0)
+    trail.push({ title: 'wall before bending', governing: false, steps: p.trail.map(trailStep) });
 
   const inputs = e.inputs.map(sheetInput);
   return {
@@ -355,7 +483,10 @@ export function buildCalcSheet(input: CalcSheetInput): CalcSheet {
   const { document: doc, check } = input;
   const u = UNIT_LABELS[doc.units];
   const spoolName = doc.name?.trim() || 'Unnamed spool';
-  const revisionLabel = input.revision === null ? 'no revision' : `rev. ${input.revision}${input.state ? ` · ${input.state}` : ''}`;
+  const revisionLabel =
+    input.revision === null
+      ? 'no revision'
+      : `rev. ${input.revision}${input.state ? ` · ${input.state}` : ''}`;
   const generated = formatUtc(input.generatedAt);
 
   const identity: SheetRow[] = [
@@ -374,19 +505,35 @@ export function buildCalcSheet(input: CalcSheetInput): CalcSheet {
   for (const f of CONDITION_FIELDS) {
     const v = doc.conditions[f.key];
     if (v === undefined) continue;
-    conditions.push({ label: f.label, value: formatCondition(v, f.q, doc.units), source: CONDITIONS_SOURCE });
+    conditions.push({
+      label: f.label,
+      value: formatCondition(v, f.q, doc.units),
+      source: CONDITIONS_SOURCE,
+    });
   }
 
   // Values the engine looked up or defaulted, taken from the first checked element that keeps
   // the spool conditions (elements with overrides list their own under their inputs).
-  const plain = check.elements.find((e) => e.status !== 'invalid' && !doc.elements[e.index]?.conditions);
+  const plain = check.elements.find(
+    (e) => e.status !== 'invalid' && !doc.elements[e.index]?.conditions,
+  );
   const derived: SheetRow[] = (plain?.inputs ?? [])
     .filter((i) => DERIVED_SYMBOLS.has(i.symbol) && !i.source.startsWith('spool conditions'))
-    .map((i) => ({ label: `${i.symbol}: ${i.label}`, value: withUnit(i.value, i.unit), source: i.source, fromMemory: i.fromMemory === true }));
+    .map((i) => ({
+      label: `${i.symbol}: ${i.label}`,
+      value: withUnit(i.value, i.unit),
+      source: i.source,
+      fromMemory: i.fromMemory === true,
+    }));
 
   const elements = check.elements.map((e) => buildElement(e, doc.elements[e.index], doc.units));
   const s = check.summary;
-  const parts = [`${s.pass} pass`, `${s.marginal} marginal`, `${s.fail} fail`, `${s.review} review`];
+  const parts = [
+    `${s.pass} pass`,
+    `${s.marginal} marginal`,
+    `${s.fail} fail`,
+    `${s.review} review`,
+  ];
   if (s.invalid > 0) parts.push(`${s.invalid} not checkable`);
   const summary = `${parts.join(' · ')}. Worst: ${check.worst ? check.worst.toUpperCase() : DASH}. Marginal = passing with less than 10 % margin on the ordered nominal wall.`;
 
@@ -410,7 +557,9 @@ export function buildCalcSheet(input: CalcSheetInput): CalcSheet {
       note: h.note ?? '',
     }));
 
-  const fromMemoryCount = elements.reduce((n, e) => n + e.fromMemoryCount, 0) + derived.filter((d) => d.fromMemory).length;
+  const fromMemoryCount =
+    elements.reduce((n, e) => n + e.fromMemoryCount, 0) +
+    derived.filter((d) => d.fromMemory).length;
   return {
     title: CALC_SHEET_TITLE,
     spoolName,
@@ -424,7 +573,10 @@ export function buildCalcSheet(input: CalcSheetInput): CalcSheet {
     elements,
     history,
     historyNote:
-      history.length > 0 ? '' : (input.historyNote ?? 'No submissions, checks or releases are recorded for this revision yet.'),
+      history.length > 0
+        ? ''
+        : (input.historyNote ??
+          'No submissions, checks or releases are recorded for this revision yet.'),
     fromMemoryCount,
     caution: check.caution || CAUTION,
     units: doc.units,

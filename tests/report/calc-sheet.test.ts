@@ -22,23 +22,80 @@ const doc = docOf({
   elements: [
     { id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 48, endType: 'bevel' },
     { id: 'B1', kind: 'bend', nps: '4', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90 },
-    { id: 'S2', kind: 'straight', nps: '4', schedule: '40', length: 36, conditions: { temperature: 800 } },
+    {
+      id: 'S2',
+      kind: 'straight',
+      nps: '4',
+      schedule: '40',
+      length: 36,
+      conditions: { temperature: 800 },
+    },
   ],
 });
 const check = checkSpool(doc);
 const history = [
-  { revision: 0, from: 'draft', to: 'submitted', note: 'first try', user: { name: 'A' }, createdAt: '2026-01-02T03:04:05Z' },
-  { revision: 0, from: 'submitted', to: 'draft', note: 'see B1', user: { name: 'B' }, createdAt: '2026-01-02T04:00:00Z' },
-  { revision: 1, from: 'draft', to: 'submitted', note: null, user: { name: 'A' }, createdAt: '2026-01-03T08:00:00Z' },
-  { revision: 1, from: 'submitted', to: 'checked', note: null, user: { name: 'B' }, createdAt: '2026-01-03T09:30:00Z' },
-  { revision: 1, from: 'checked', to: 'released', note: 'go', user: null, createdAt: '2026-01-03T10:00:00Z' },
+  {
+    revision: 0,
+    from: 'draft',
+    to: 'submitted',
+    note: 'first try',
+    user: { name: 'A' },
+    createdAt: '2026-01-02T03:04:05Z',
+  },
+  {
+    revision: 0,
+    from: 'submitted',
+    to: 'draft',
+    note: 'see B1',
+    user: { name: 'B' },
+    createdAt: '2026-01-02T04:00:00Z',
+  },
+  {
+    revision: 1,
+    from: 'draft',
+    to: 'submitted',
+    note: null,
+    user: { name: 'A' },
+    createdAt: '2026-01-03T08:00:00Z',
+  },
+  {
+    revision: 1,
+    from: 'submitted',
+    to: 'checked',
+    note: null,
+    user: { name: 'B' },
+    createdAt: '2026-01-03T09:30:00Z',
+  },
+  {
+    revision: 1,
+    from: 'checked',
+    to: 'released',
+    note: 'go',
+    user: null,
+    createdAt: '2026-01-03T10:00:00Z',
+  },
 ];
-const sheet = buildCalcSheet({ team: 'Team T', revision: 1, state: 'released', document: doc, check, history, generatedAt: '2026-01-04T00:00:00Z' });
+const sheet = buildCalcSheet({
+  team: 'Team T',
+  revision: 1,
+  state: 'released',
+  document: doc,
+  check,
+  history,
+  generatedAt: '2026-01-04T00:00:00Z',
+});
 
 describe('calc sheet model', () => {
   it('names the team, spool, line, revision, state and the caution', () => {
     const id = Object.fromEntries(sheet.identity.map((r) => [r.label, r.value]));
-    expect(id).toMatchObject({ Team: 'Team T', Spool: 'Model spool', Line: 'L-1', Revision: '1', State: 'released', 'Checked and generated': '2026-01-04 00:00 UTC' });
+    expect(id).toMatchObject({
+      Team: 'Team T',
+      Spool: 'Model spool',
+      Line: 'L-1',
+      Revision: '1',
+      State: 'released',
+      'Checked and generated': '2026-01-04 00:00 UTC',
+    });
     expect(sheet.revisionLabel).toBe('rev. 1 · released');
     expect(sheet.caution).toBe(CAUTION);
   });
@@ -50,7 +107,9 @@ describe('calc sheet model', () => {
       ['Material', 'A106-B'],
       ['Corrosion / erosion allowance c', '0.0625 in'],
     ]);
-    expect(sheet.conditions.every((c) => c.source === 'spool design conditions (as entered)')).toBe(true);
+    expect(sheet.conditions.every((c) => c.source === 'spool design conditions (as entered)')).toBe(
+      true,
+    );
     const s = sheet.derived.find((d) => d.label.startsWith('S:'));
     // ASME B31.3 Table A-1: A106 Gr. B at 100 °F, 20.0 ksi.
     expect(s?.value).toBe('20000 psi');
@@ -70,15 +129,22 @@ describe('calc sheet model', () => {
     expect(fig['minimum required thickness tm = t + c']).toBe('0.09804 in');
     expect(fig['chosen nominal wall']).toBe('0.237 in');
     expect(fig['margin on the ordered wall']).toBe('+111.5 %');
-    expect(fig['lightest passing schedule']).toBe(engine.lightestSchedule);
+    expect(fig['lightest passing schedule']).toBe(engine.lightest?.label);
     expect(fig['wall before bending (ordered)']).toBe('0.1348 in');
     expect(b1.cases.map((c) => [c.location, c.governing])).toEqual([
       ['bend intrados', true],
       ['bend extrados', false],
       ['bend sidewall', false],
     ]);
-    expect(b1.trail.map((g) => g.title)).toEqual(['bend intrados (governing)', 'bend extrados', 'bend sidewall', 'wall before bending']);
-    expect(b1.trail[0]!.steps.map((s) => s.substituted)).toEqual(engine.cases[0]!.trail.map((s) => s.substituted));
+    expect(b1.trail.map((g) => g.title)).toEqual([
+      'bend intrados (governing)',
+      'bend extrados',
+      'bend sidewall',
+      'wall before bending',
+    ]);
+    expect(b1.trail[0]!.steps.map((s) => s.substituted)).toEqual(
+      engine.cases[0]!.trail.map((s) => s.substituted),
+    );
     expect(b1.trail[0]!.steps[1]!.result).toBe('t = 0.03554 in');
     expect(b1.inputs.map((i) => i.symbol)).toEqual(engine.inputs.map((i) => i.symbol));
     expect(b1.inputs.every((i) => i.source.length > 0)).toBe(true);
@@ -86,8 +152,12 @@ describe('calc sheet model', () => {
   });
 
   it('carries the from-memory flags of the engine inputs', () => {
-    const engineFlags = check.elements.flatMap((e) => e.inputs.filter((i) => i.fromMemory === true).map((i) => `${e.id}:${i.symbol}`));
-    const sheetFlags = sheet.elements.flatMap((e) => e.inputs.filter((i) => i.fromMemory).map((i) => `${e.id}:${i.symbol}`));
+    const engineFlags = check.elements.flatMap((e) =>
+      e.inputs.filter((i) => i.fromMemory === true).map((i) => `${e.id}:${i.symbol}`),
+    );
+    const sheetFlags = sheet.elements.flatMap((e) =>
+      e.inputs.filter((i) => i.fromMemory).map((i) => `${e.id}:${i.symbol}`),
+    );
     expect(sheetFlags).toEqual(engineFlags);
     // A106-B above 700 °F is tabulated from memory in the materials library (S2 runs at 800 °F).
     expect(sheetFlags).toContain('S2:S');
@@ -100,9 +170,29 @@ describe('calc sheet model', () => {
       { when: '2026-01-03 09:30 UTC', move: 'checked', who: 'B', note: '' },
       { when: '2026-01-03 10:00 UTC', move: 'released for fabrication', who: '—', note: 'go' },
     ]);
-    const rev0 = buildCalcSheet({ team: null, revision: 0, state: 'draft', document: doc, check, history, generatedAt: '2026-01-04T00:00:00Z' });
-    expect(rev0.history.map((h) => h.move)).toEqual(['submitted for check', 'returned to designer']);
-    const none = buildCalcSheet({ team: null, revision: 2, state: 'draft', document: doc, check, history, generatedAt: '2026-01-04T00:00:00Z', historyNote: 'nothing yet' });
+    const rev0 = buildCalcSheet({
+      team: null,
+      revision: 0,
+      state: 'draft',
+      document: doc,
+      check,
+      history,
+      generatedAt: '2026-01-04T00:00:00Z',
+    });
+    expect(rev0.history.map((h) => h.move)).toEqual([
+      'submitted for check',
+      'returned to designer',
+    ]);
+    const none = buildCalcSheet({
+      team: null,
+      revision: 2,
+      state: 'draft',
+      document: doc,
+      check,
+      history,
+      generatedAt: '2026-01-04T00:00:00Z',
+      historyNote: 'nothing yet',
+    });
     expect(none.history).toEqual([]);
     expect(none.historyNote).toBe('nothing yet');
     expect(none.identity[0]).toEqual({ label: 'Team', value: '—' });
@@ -125,15 +215,65 @@ describe('PDF text', () => {
 
 describe('WOFF to TrueType', () => {
   it('unwraps the Barlow WOFF into an SFNT with every table at its original length (W3C WOFF 1.0)', () => {
-    const woff = readFileSync(createRequire(import.meta.url).resolve('@fontsource/barlow/files/barlow-latin-400-normal.woff'));
+    const woff = readFileSync(
+      createRequire(import.meta.url).resolve(
+        '@fontsource/barlow/files/barlow-latin-400-normal.woff',
+      ),
+    );
     const ttf = woffToSfnt(woff);
     const numTables = woff.readUInt16BE(12);
     expect(ttf.readUInt32BE(0)).toBe(woff.readUInt32BE(4));
     expect(ttf.readUInt16BE(4)).toBe(numTables);
     // totalSfntSize in the WOFF header is the size of the decoded font.
     expect(ttf.length).toBe(woff.readUInt32BE(16));
-    const tags = Array.from({ length: numTables }, (_, i) => ttf.toString('latin1', 12 + i * 16, 16 + i * 16));
+    const tags = Array.from({ length: numTables }, (_, i) =>
+      ttf.toString('latin1', 12 + i * 16, 16 + i * 16),
+    );
     expect(tags).toEqual(expect.arrayContaining(['cmap', 'glyf', 'head', 'hmtx', 'loca', 'name']));
-    expect(() => woffToSfnt(Buffer.from('not a font at all, clearly not one'.repeat(2)))).toThrow('not a WOFF 1.0 font');
+    expect(() => woffToSfnt(Buffer.from('not a font at all, clearly not one'.repeat(2)))).toThrow(
+      'not a WOFF 1.0 font',
+    );
+  });
+});
+
+describe('calc sheet model, external pressure', () => {
+  // NPS 24 Sch 10, L = 1,200 in, c = 0, 14.7 psi external: in the long elastic range the VIII-2
+  // closed form (from memory) is about 20 % above UG-28's elastic 2AE/(3·Do/t) (from memory), so
+  // UG-28 governs. (The engine tests pin the figures; here the sheet must show both and the basis.)
+  const ext = docOf({
+    units: 'imperial',
+    name: 'Vacuum spool',
+    conditions: {
+      pressure: 0,
+      externalPressure: 14.7,
+      temperature: 100,
+      material: 'A106-B',
+      corrosionAllowance: 0,
+      stiffenedLength: 1200,
+    },
+    elements: [{ id: 'S1', kind: 'straight', nps: '24', schedule: '10', length: 120 }],
+  });
+  const s = buildCalcSheet({
+    team: 'T',
+    revision: 0,
+    state: 'draft',
+    document: ext,
+    check: checkSpool(ext),
+    history: [],
+    generatedAt: '2026-01-04T00:00:00Z',
+  });
+
+  it('shows the UG-28 and VIII-2 allowables and which governs, each marked from memory', () => {
+    const rows = s.elements[0]!.figures;
+    const by = Object.fromEntries(rows.map((r) => [r.label, r]));
+    const ug28 = parseFloat(by['by VIII-1 UG-28']?.value ?? '');
+    const viii2 = parseFloat(by['by VIII-2 4.4.5.1']?.value ?? '');
+    expect(viii2 / ug28).toBeCloseTo(1.2, 1);
+    expect(
+      parseFloat(by['allowable external pressure (lower of the two below)']?.value ?? ''),
+    ).toBe(ug28);
+    expect(by['allowable external pressure (lower of the two below)']?.source).toMatch(
+      /UG-28.*from memory/,
+    );
   });
 });
