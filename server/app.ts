@@ -1,7 +1,6 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import express, { type RequestHandler } from 'express';
-import { toNodeHandler } from 'better-auth/node';
 import type { Db } from './db/client';
 import type { Auth } from './auth/auth';
 import { MembershipCache, loadSession } from './auth/member';
@@ -18,7 +17,8 @@ import { publicShareRouter, spoolSharesRouter } from './routes/shares';
 import { teamRouter } from './routes/team';
 import { TeamMaterials } from './materials/team-materials';
 import { commentsRouter } from './routes/comments';
-import { calcSheetRouter, publicCalcSheetRouter } from './routes/calc-sheet';
+import { authHandler } from './auth/handler';
+import { guardBody, guardPath, guardQuery } from './validation';
 
 export interface AppDeps {
   db: Db;
@@ -63,12 +63,15 @@ export function createApp(deps: AppDeps) {
   app.set('trust proxy', false);
   app.use(securityHeaders);
 
+  // The validation layer's URL gates run before any route, better-auth's included.
+  app.use('/api', guardPath, guardQuery);
+
   // better-auth reads the raw body itself, so it is mounted before the JSON parser. Its rate
   // limiter keys on x-forwarded-for: set it from the socket so clients cannot pick their key.
-  const authHandler = toNodeHandler(deps.auth);
+  const handleAuth = authHandler(deps.auth);
   app.all('/api/auth{/*any}', (req, res, next) => {
     req.headers['x-forwarded-for'] = req.socket.remoteAddress ?? '127.0.0.1';
-    authHandler(req, res).catch(next);
+    handleAuth(req, res, next);
   });
 
   app.use('/api', (_req, res, next) => {
@@ -76,7 +79,7 @@ export function createApp(deps: AppDeps) {
     next();
   });
   if (deps.config.originCheck) app.use('/api', refuseForeignOrigins(deps.config.trustedOrigins));
-  app.use('/api', express.json({ limit: JSON_LIMIT }));
+  app.use('/api', express.json({ limit: JSON_LIMIT }), guardBody);
 
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });

@@ -2,6 +2,7 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import Papa from 'papaparse';
 import { HttpError } from './errors';
+import { findTextProblem } from '../shared/model/fields';
 
 /** Largest CSV upload accepted. */
 export const CSV_LIMIT_BYTES = 1024 * 1024;
@@ -69,5 +70,16 @@ export function parseCsv(text: string): { headers: string[]; rows: CsvRow[]; err
   // With header: true, data row i sits on file line i + 2 (ignoring quoted newlines).
   const rows = out.data.map((values, i) => ({ line: i + 2, values }));
   const errors = out.errors.map((e) => ({ line: (e.row ?? 0) + 2, message: e.message }));
+  // Text PostgreSQL cannot store (U+0000) is refused here, with its line and column.
+  for (const h of headers) {
+    const problem = findTextProblem(h);
+    if (problem) errors.push({ line: 1, message: `a column name ${problem}` });
+  }
+  for (const row of rows) {
+    for (const [h, v] of Object.entries(row.values)) {
+      const problem = typeof v === 'string' ? findTextProblem(v) : undefined;
+      if (problem) errors.push({ line: row.line, message: `column "${findTextProblem(h) ? '?' : h}" ${problem}` });
+    }
+  }
   return { headers, rows, errors };
 }

@@ -7,6 +7,7 @@ import type { MaterialFinder } from '../../shared/engine/index';
 import { PRODUCT_FORMS } from '../../shared/model/spool';
 import type { CsvRow } from '../csv';
 import type { CsvIssue } from '../spools/line-list';
+import { TEXT_LIMITS, text } from '../../shared/model/fields';
 
 /**
  * Per-team material lookups (team rows first, then the library), built once per team and
@@ -77,9 +78,9 @@ const num = (label: string) =>
     .regex(/^[-+]?(\d+\.?\d*|\.\d+)$/, `${label} must be a number`)
     .transform(Number);
 const materialColumns = z.object({
-  spec: z.string().min(1, 'is required'),
-  grade: z.string().min(1, 'is required'),
-  name: z.string().optional(),
+  spec: text(TEXT_LIMITS.id, { min: 1 }),
+  grade: text(TEXT_LIMITS.id, { min: 1 }),
+  name: text(TEXT_LIMITS.name).optional(),
   category: z.enum(['carbon', 'low-temp-carbon', 'cr-mo', 'austenitic', 'other']).optional().default('other'),
   yfamily: z.enum(['ferritic', 'austenitic', 'nickel', 'gray-iron', 'other']).optional().default('ferritic'),
   wfamily: z.enum(['carbon', 'cr-mo', 'csef', 'austenitic', 'nickel', 'none']).optional().default('carbon'),
@@ -135,6 +136,10 @@ export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvR
     const id = get(row, 'id');
     if (!id) {
       issues.push(issue(row.line, 'id', 'is required'));
+      continue;
+    }
+    if (id.length > TEXT_LIMITS.id) {
+      issues.push(issue(row.line, 'id', `must be at most ${TEXT_LIMITS.id} characters`));
       continue;
     }
     const g = byId.get(id);

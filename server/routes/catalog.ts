@@ -6,6 +6,8 @@ import { teamMaterials } from '../db/schema';
 import { getContext, getTeamId, requirePermission, requireSignedIn } from '../auth/member';
 import { notFound, validationError } from '../errors';
 import { parseCsv, receiveCsv } from '../csv';
+import { textParam } from '../validation';
+import { TEXT_LIMITS, text } from '../../shared/model/fields';
 import { readMaterialsCsv, type TeamMaterials } from '../materials/team-materials';
 import { MATERIALS } from '../../shared/data/materials';
 import { refreshTeamSummaries } from '../spools/repo';
@@ -48,8 +50,11 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
   // Materials CSV with a source note (multipart field `source`, or ?source= with text/csv); all rows or none.
   r.post('/materials/import', requirePermission('materials:manage'), receiveCsv, async (req, res) => {
     const fromBody = (req.body as Record<string, unknown> | undefined)?.source;
-    const source = z.string().trim().min(3).max(500).safeParse(typeof fromBody === 'string' ? fromBody : req.query.source);
-    if (!source.success) throw validationError([{ path: 'source', message: 'give the source of the values (table, edition, document), at least 3 characters' }]);
+    const source = text(500, { trim: true, min: 3 }).safeParse(typeof fromBody === 'string' ? fromBody : req.query.source);
+    if (!source.success) {
+      const problem = source.error.issues[0]?.message ?? '';
+      throw validationError([{ path: 'source', message: /U\+0000|surrogate|at most/.test(problem) ? problem : 'give the source of the values (table, edition, document), at least 3 characters' }]);
+    }
     const csv = parseCsv(String(res.locals.csv ?? ''));
     if (csv.errors.length > 0) throw validationError(csv.errors.map((e) => ({ path: `line ${e.line}`, message: e.message })), 'The CSV could not be read');
     const out = readMaterialsCsv(csv.headers, csv.rows, source.data);
@@ -72,7 +77,7 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
     const teamId = getTeamId(res);
     const gone = await db
       .delete(teamMaterials)
-      .where(and(eq(teamMaterials.teamId, teamId), eq(teamMaterials.id, String(req.params.id))))
+      .where(and(eq(teamMaterials.teamId, teamId), eq(teamMaterials.id, textParam(req.params.id, 'The team has no material with this id', TEXT_LIMITS.id))))
       .returning({ id: teamMaterials.id });
     if (gone.length === 0) throw notFound('The team has no material with this id');
     await refresh(teamId);

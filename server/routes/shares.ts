@@ -6,15 +6,16 @@ import type { Db } from '../db/client';
 import { shareLinks, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, notFound } from '../errors';
-import { parseBody } from '../validation';
+import { parseBody, textParam } from '../validation';
+import { int } from '../../shared/model/fields';
 import { getRevision, getSpool } from '../spools/repo';
 import { runCheck } from '../spools/check';
 import type { TeamMaterials } from '../materials/team-materials';
 
 const createSchema = z.object({
   /** Revision to share; default the current one. */
-  revision: z.number().int().min(0).optional(),
-  expiresInDays: z.number().int().min(1).max(365).optional().default(30),
+  revision: int(0).optional(),
+  expiresInDays: int(1, 365).optional().default(30),
 });
 
 type ShareRow = typeof shareLinks.$inferSelect;
@@ -42,7 +43,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
   const r = Router({ mergeParams: true });
 
   r.get('/', requirePermission('share:manage'), async (req, res) => {
-    const params = req.params as { id: string };
+    const params = { id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100) };
     const teamId = getTeamId(res);
     if (!(await getSpool(db, teamId, params.id))) throw notFound('Spool not found');
     const rows = await db
@@ -55,7 +56,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
   });
 
   r.post('/', requirePermission('share:manage'), async (req, res) => {
-    const params = req.params as { id: string };
+    const params = { id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100) };
     const body = parseBody(createSchema, req.body ?? {});
     const teamId = getTeamId(res);
     const spool = await getSpool(db, teamId, params.id);
@@ -83,7 +84,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
   });
 
   r.delete('/:shareId', requirePermission('share:manage'), async (req, res) => {
-    const params = req.params as { id: string; shareId: string };
+    const params = { id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100), shareId: textParam((req.params as { shareId?: unknown }).shareId, 'Share link not found', 100) };
     const out = await db
       .update(shareLinks)
       .set({ revokedAt: new Date() })
@@ -110,7 +111,11 @@ export async function findActiveShare(db: Db, token: string): Promise<ShareRow> 
 export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
   const r = Router();
   r.get('/:token', async (req, res) => {
-    const row = await findActiveShare(deps.db, String(req.params.token));
+    const token = textParam(req.params.token, 'Share link not found', 100);
+    const [row] = await deps.db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
+    if (!row) throw notFound('Share link not found');
+    if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
+    if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
     res.json({
       spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
       check: runCheck(row.document, await deps.materials.finder(row.teamId)),

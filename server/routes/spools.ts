@@ -10,7 +10,8 @@ import { readLineList } from '../spools/line-list';
 import type { TeamMaterials } from '../materials/team-materials';
 import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
-import { parseBody, parseDocument } from '../validation';
+import { intParam, parseBody, parseDocument, textParam } from '../validation';
+import { int, ownKeyOf, text } from '../../shared/model/fields';
 import { can, findTransition, SPOOL_STATUSES, type Action, type Role, type SpoolStatus } from '../../shared/model/permissions';
 import { runCheck, summarizeCheck } from '../spools/check';
 import type { SpoolDocument } from '../../shared/model/spool';
@@ -31,9 +32,8 @@ import {
 const statusSchema = z.enum(SPOOL_STATUSES);
 
 const listQuerySchema = z.object({
-  search: z.string().trim().max(200).optional(),
-  status: z
-    .string()
+  search: text(200, { trim: true }).optional(),
+  status: text(200)
     .optional()
     .transform((s, ctx) => {
       if (!s) return undefined;
@@ -45,25 +45,22 @@ const listQuerySchema = z.object({
       }
       return parts as SpoolStatus[];
     }),
-  sort: z
-    .string()
-    .optional()
-    .default('-updatedAt')
-    .refine((s) => s in SORTS, { message: `use one of ${Object.keys(SORTS).join(', ')}` })
-    .transform((s) => s as SpoolSort),
+  // Own keys only: `__proto__`, `toString` and other inherited names are not sorts.
+  sort: ownKeyOf(SORTS).optional().default('-updatedAt') as z.ZodType<SpoolSort, string | undefined>,
   page: z.coerce.number().int().min(1).max(100_000).optional().default(1),
   pageSize: z.coerce.number().int().min(1).max(500).optional().default(50),
 });
 
 const saveBodySchema = z.object({
   document: z.unknown(),
-  baseVersion: z.number({ error: 'must be the version you loaded (a whole number)' }).int().min(1),
+  /** The version you loaded. */
+  baseVersion: int(1),
 });
 
 const transitionBodySchema = z.object({
   to: statusSchema,
-  note: z.string().trim().max(2000).optional(),
-  baseVersion: z.number().int().min(1).optional(),
+  note: text(2000, { trim: true }).optional(),
+  baseVersion: int(1).optional(),
 });
 
 /** The action a move to `to` needs (the permission table decides who holds it). */
@@ -82,11 +79,7 @@ const NEXT_ROLES: Partial<Record<SpoolStatus, Role[]>> = {
 };
 
 
-const idParam = (raw: unknown): string => {
-  const id = String(raw ?? '');
-  if (id.length === 0 || id.length > 100) throw notFound('Spool not found');
-  return id;
-};
+const idParam = (raw: unknown): string => textParam(raw, 'Spool not found', 100);
 
 export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string; materials: TeamMaterials }) {
   const { db, mailer, logger } = deps;
@@ -203,8 +196,7 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
   });
 
   r.get('/:id/revisions/:rev', requirePermission('spool:view'), async (req, res) => {
-    const rev = Number(req.params.rev);
-    if (!Number.isInteger(rev) || rev < 0) throw notFound('Revision not found');
+    const rev = intParam(req.params.rev, 'Revision not found');
     const out = await getRevision(db, getTeamId(res), idParam(req.params.id), rev);
     if (!out) throw notFound('Revision not found');
     res.json(out);
