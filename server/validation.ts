@@ -110,20 +110,32 @@ const MAX_ISSUES = 50;
  * Iterative, so a deeply nested body cannot overflow the stack.
  */
 export function findBodyTextIssues(body: unknown, prefix: readonly PropertyKey[] = []): FieldIssue[] {
+  interface Node {
+    value: unknown;
+    parent: Node | null;
+    key: PropertyKey | null;
+  }
+  // Paths are rebuilt from parent links only for a problem, so a deep body costs O(size).
+  const pathOf = (n: Node, last?: PropertyKey): string => {
+    const keys: PropertyKey[] = last === undefined ? [] : [last];
+    for (let x: Node | null = n; x && x.key !== null; x = x.parent) keys.push(x.key);
+    return formatPath([...prefix, ...keys.reverse()]);
+  };
   const issues: FieldIssue[] = [];
-  const stack: { value: unknown; path: readonly PropertyKey[] }[] = [{ value: body, path: prefix }];
+  const stack: Node[] = [{ value: body, parent: null, key: null }];
   while (stack.length > 0 && issues.length < MAX_ISSUES) {
-    const { value, path } = stack.pop()!;
+    const node = stack.pop()!;
+    const { value } = node;
     if (typeof value === 'string') {
       const problem = findTextProblem(value);
-      if (problem) issues.push({ path: formatPath(path), message: problem });
+      if (problem) issues.push({ path: pathOf(node), message: problem });
     } else if (Array.isArray(value)) {
-      for (let i = value.length - 1; i >= 0; i--) stack.push({ value: value[i], path: [...path, i] });
+      for (let i = value.length - 1; i >= 0; i--) stack.push({ value: value[i], parent: node, key: i });
     } else if (value !== null && typeof value === 'object') {
       for (const [k, v] of Object.entries(value)) {
         const problem = findTextProblem(k);
-        if (problem) issues.push({ path: formatPath([...path, '(key)']), message: `a field name ${problem}` });
-        else stack.push({ value: v, path: [...path, k] });
+        if (problem) issues.push({ path: pathOf(node, '(key)'), message: `a field name ${problem}` });
+        else stack.push({ value: v, parent: node, key: k });
       }
     }
   }
