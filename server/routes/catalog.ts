@@ -1,6 +1,5 @@
 import { Router } from 'express';
 import { and, eq, sql } from 'drizzle-orm';
-import { z } from 'zod';
 import type { Db } from '../db/client';
 import { teamMaterials } from '../db/schema';
 import { getContext, getTeamId, requirePermission, requireSignedIn } from '../auth/member';

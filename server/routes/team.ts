@@ -6,7 +6,7 @@ import { teamMembers, user } from '../db/schema';
 import { getTeamId, requirePermission, type MembershipCache } from '../auth/member';
 import { HttpError, notFound } from '../errors';
 import { parseBody, textParam } from '../validation';
-import { TEXT_LIMITS, isStorableText, text } from '../../shared/model/fields';
+import { isStorableText, text } from '../../shared/model/fields';
 import { createUserWithPassword } from '../db/seed';
 import { MIN_PASSWORD_LENGTH } from '../auth/auth';
 import { ROLES } from '../../shared/model/permissions';

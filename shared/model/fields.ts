@@ -23,6 +23,7 @@ export const TEXT_LIMITS = {
 } as const;
 
 // U+0000, a high surrogate not followed by a low one, or a low surrogate not preceded by a high one.
+// eslint-disable-next-line no-control-regex -- U+0000 is exactly what this rule refuses
 const BAD_TEXT = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;
 
 /** Why a string cannot be stored, or undefined when it can. */
