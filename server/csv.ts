@@ -83,3 +83,15 @@ export function parseCsv(text: string): { headers: string[]; rows: CsvRow[]; err
   }
   return { headers, rows, errors };
 }
+
+/**
+ * Data rows of a CSV with a header, counted only as far as `cap + 1`: a cheap newline count
+ * first, and a parse that stops early (quoted newlines) only when that count is over the cap.
+ */
+export function countCsvRows(text: string, cap: number): number {
+  let lines = 0;
+  for (let i = text.indexOf('\n'); i !== -1 && lines <= cap + 1; i = text.indexOf('\n', i + 1)) lines++;
+  if (lines <= cap + 1) return Math.min(lines, cap);
+  const out = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { preview: cap + 2, skipEmptyLines: 'greedy' });
+  return Math.max(0, out.data.length - 1);
+}

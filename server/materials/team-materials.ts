@@ -7,6 +7,7 @@ import type { MaterialFinder } from '../../shared/engine/index';
 import { PRODUCT_FORMS } from '../../shared/model/spool';
 import type { CsvRow } from '../csv';
 import type { CsvIssue } from '../spools/line-list';
+import type { MaterialsRef } from '../checks/check-task';
 import { TEXT_LIMITS, text } from '../../shared/model/fields';
 
 /**
@@ -14,12 +15,14 @@ import { TEXT_LIMITS, text } from '../../shared/model/fields';
  * rebuilt after an upload or delete in this process.
  */
 export class TeamMaterials {
-  private readonly cache = new Map<string, Promise<{ rows: TeamMaterialRow[]; find: MaterialFinder }>>();
+  private readonly cache = new Map<string, Promise<{ rows: TeamMaterialRow[]; find: MaterialFinder; ref: MaterialsRef }>>();
+  private loads = 0;
   constructor(private readonly db: Db) {}
 
   private load(teamId: string) {
     let p = this.cache.get(teamId);
     if (!p) {
+      const key = `${teamId}#${++this.loads}`;
       p = this.db
         .select()
         .from(teamMaterials)
@@ -27,6 +30,7 @@ export class TeamMaterials {
         .then((rows) => ({
           rows: rows.map((r) => ({ ...r.material, origin: 'team' as const, sourceNote: r.sourceNote, updatedAt: r.updatedAt.toISOString() })),
           find: rows.length === 0 ? findMaterial : createMaterialLookup(rows.map((r) => r.material)),
+          ref: { key, rows: rows.length === 0 ? null : rows.map((r) => r.material) },
         }));
       p.catch(() => this.cache.delete(teamId));
       this.cache.set(teamId, p);
@@ -37,6 +41,12 @@ export class TeamMaterials {
   async finder(teamId: string | null | undefined): Promise<MaterialFinder> {
     if (!teamId) return findMaterial;
     return (await this.load(teamId)).find;
+  }
+
+  /** The team's materials as the check pool's workers take them (null team: the library alone). */
+  async ref(teamId: string | null | undefined): Promise<MaterialsRef> {
+    if (!teamId) return { key: 'library', rows: null };
+    return (await this.load(teamId)).ref;
   }
 
   /** Team rows (marked `origin: 'team'`), then library rows they do not replace. */

@@ -9,8 +9,7 @@ import { textParam } from '../validation';
 import { TEXT_LIMITS, text } from '../../shared/model/fields';
 import { readMaterialsCsv, type TeamMaterials } from '../materials/team-materials';
 import { MATERIALS } from '../../shared/data/materials';
-import { refreshTeamSummaries } from '../spools/repo';
-import { runCheck, summarizeCheck } from '../spools/check';
+import type { RecheckJobs } from '../jobs/recheck-jobs';
 import { NPS_SIZES, PIPE_DIMENSION_SOURCES, SCHEDULES, getPipeSize, listPipeWalls } from '../../shared/data/pipe-dimensions';
 
 /** Pickers' data: built once, it never changes while the process runs. */
@@ -29,15 +28,15 @@ function buildDimensions() {
   return { schedules: SCHEDULES, sizes, sources: PIPE_DIMENSION_SOURCES };
 }
 
-export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
+export function catalogRouter(deps: { db: Db; materials: TeamMaterials; jobs: RecheckJobs }) {
   const { db, materials } = deps;
   const r = Router();
   let dimensions: ReturnType<typeof buildDimensions> | undefined;
 
-  const refresh = async (teamId: string) => {
+  /** New materials apply to checks at once; stored summaries follow in a background job. */
+  const refresh = (teamId: string, reason: string, userId: string) => {
     materials.invalidate(teamId);
-    const find = await materials.finder(teamId);
-    return refreshTeamSummaries(db, teamId, (doc) => summarizeCheck(runCheck(doc, find)));
+    return deps.jobs.start(teamId, reason, userId);
   };
 
   /** Library rows (`origin: 'library'`) and the team's own (`origin: 'team'`, with `sourceNote`), team first. */
@@ -68,8 +67,8 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
           .onConflictDoUpdate({ target: [teamMaterials.teamId, teamMaterials.id], set: { material: m, sourceNote: source.data, updatedAt: sql`now()` } });
       }
     });
-    const rechecked = await refresh(teamId);
-    res.status(201).json({ imported: out.materials.length, items: out.materials, rechecked });
+    const job = await refresh(teamId, `materials import (${out.materials.length} material${out.materials.length === 1 ? '' : 's'})`, userId);
+    res.status(201).json({ imported: out.materials.length, items: out.materials, job });
   });
 
   r.delete('/materials/:id', requirePermission('materials:manage'), async (req, res) => {
@@ -79,7 +78,7 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
       .where(and(eq(teamMaterials.teamId, teamId), eq(teamMaterials.id, textParam(req.params.id, 'The team has no material with this id', TEXT_LIMITS.id))))
       .returning({ id: teamMaterials.id });
     if (gone.length === 0) throw notFound('The team has no material with this id');
-    await refresh(teamId);
+    await refresh(teamId, `material ${gone[0]!.id} deleted`, getContext(res).user.id);
     res.status(204).end();
   });
   r.get('/dimensions', requireSignedIn, (_req, res) => {

@@ -9,8 +9,8 @@ import { HttpError, notFound } from '../errors';
 import { parseBody, textParam } from '../validation';
 import { int } from '../../shared/model/fields';
 import { getRevision, getSpool } from '../spools/repo';
-import { runCheck } from '../spools/check';
 import type { TeamMaterials } from '../materials/team-materials';
+import type { CheckPool } from '../checks/pool';
 
 const createSchema = z.object({
   /** Revision to share; default the current one. */
@@ -18,7 +18,18 @@ const createSchema = z.object({
   expiresInDays: int(1, 365).optional().default(30),
 });
 
-type ShareRow = typeof shareLinks.$inferSelect;
+/** What the list of a spool's links reads (not the stored document or check). */
+const shareListColumns = {
+  id: shareLinks.id,
+  spoolId: shareLinks.spoolId,
+  revision: shareLinks.revision,
+  status: shareLinks.status,
+  name: shareLinks.name,
+  createdAt: shareLinks.createdAt,
+  expiresAt: shareLinks.expiresAt,
+  revokedAt: shareLinks.revokedAt,
+};
+type ShareRow = Pick<typeof shareLinks.$inferSelect, keyof typeof shareListColumns>;
 
 function toShare(r: ShareRow, publicUrl: string, by: { id: string | null; name: string | null }) {
   const now = Date.now();
@@ -38,7 +49,7 @@ function toShare(r: ShareRow, publicUrl: string, by: { id: string | null; name: 
 }
 
 /** Share links of a spool: /api/spools/:id/shares (lead, admin). */
-export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
+export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: TeamMaterials; checks: CheckPool }) {
   const { db } = deps;
   const r = Router({ mergeParams: true });
 
@@ -47,7 +58,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
     const teamId = getTeamId(res);
     if (!(await getSpool(db, teamId, params.id))) throw notFound('Spool not found');
     const rows = await db
-      .select({ s: shareLinks, byId: user.id, byName: user.name })
+      .select({ s: shareListColumns, byId: user.id, byName: user.name })
       .from(shareLinks)
       .leftJoin(user, eq(user.id, shareLinks.createdBy))
       .where(and(eq(shareLinks.spoolId, params.id), eq(shareLinks.teamId, teamId)))
@@ -64,6 +75,8 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
     const rev = await getRevision(db, teamId, params.id, body.revision ?? spool.revision);
     if (!rev) throw notFound('Revision not found');
     const ctx = getContext(res);
+    // The shared revision is frozen, so its check is made once, here, and served as stored.
+    const check = await deps.checks.checkDocument(rev.document, await deps.materials.ref(teamId));
     const [row] = await db
       .insert(shareLinks)
       .values({
@@ -76,10 +89,20 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
         line: rev.line,
         // The link shows the revision as it is now, even if its draft is edited later.
         document: rev.document,
+        check,
         createdBy: ctx.user.id,
         expiresAt: new Date(Date.now() + body.expiresInDays * 86_400_000),
       })
-      .returning();
+      .returning({
+        id: shareLinks.id,
+        spoolId: shareLinks.spoolId,
+        revision: shareLinks.revision,
+        status: shareLinks.status,
+        name: shareLinks.name,
+        createdAt: shareLinks.createdAt,
+        expiresAt: shareLinks.expiresAt,
+        revokedAt: shareLinks.revokedAt,
+      });
     res.status(201).json(toShare(row!, deps.publicUrl, { id: ctx.user.id, name: ctx.user.name }));
   });
 
@@ -108,7 +131,7 @@ export async function findActiveShare(db: Db, token: string): Promise<ShareRow> 
 }
 
 /** GET /api/share/:token — the public read-only view; no account needed. */
-export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
+export function publicShareRouter(deps: { db: Db; materials: TeamMaterials; checks: CheckPool }) {
   const r = Router();
   r.get('/:token', async (req, res) => {
     const token = textParam(req.params.token, 'Share link not found', 100);
@@ -116,12 +139,16 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
     if (!row) throw notFound('Share link not found');
     if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
     if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
-    res.json({
-      spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
-      check: runCheck(row.document, await deps.materials.finder(row.teamId)),
-      sharedAt: row.createdAt.toISOString(),
-      expiresAt: row.expiresAt.toISOString(),
-    });
+    let check = row.check;
+    if (check === null) {
+      // A link made before checks were stored: check once in the pool and keep the result.
+      check = await deps.checks.checkDocument(row.document, await deps.materials.ref(row.teamId));
+      await deps.db.update(shareLinks).set({ check }).where(eq(shareLinks.id, row.id));
+    }
+    // The stored check is JSON text already: it is spliced in, not parsed and re-serialised.
+    const head = JSON.stringify({ spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document } });
+    const tail = JSON.stringify({ sharedAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString() });
+    res.type('application/json').send(`${head.slice(0, -1)},"check":${check},${tail.slice(1)}`);
   });
   return r;
 }

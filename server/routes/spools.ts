@@ -5,20 +5,21 @@ import type { Db } from '../db/client';
 import { teamMembers, user, type StoredCheckSummary } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, forbidden, notFound, validationError } from '../errors';
-import { parseCsv, receiveCsv } from '../csv';
-import { readLineList } from '../spools/line-list';
+import { countCsvRows, parseCsv, receiveCsv } from '../csv';
+import { LINE_LIST_MAX_ROWS, readLineList } from '../spools/line-list';
 import type { TeamMaterials } from '../materials/team-materials';
 import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
 import { intParam, parseBody, parseDocument, textParam } from '../validation';
 import { int, ownKeyOf, text } from '../../shared/model/fields';
 import { can, findTransition, SPOOL_STATUSES, type Action, type Role, type SpoolStatus } from '../../shared/model/permissions';
-import { runCheck, summarizeCheck } from '../spools/check';
+import type { CheckPool } from '../checks/pool';
 import type { SpoolDocument } from '../../shared/model/spool';
 import {
   SORTS,
   getRevision,
   getSpool,
+  getSpools,
   insertSpool,
   listEvents,
   listRevisions,
@@ -81,12 +82,12 @@ const NEXT_ROLES: Partial<Record<SpoolStatus, Role[]>> = {
 
 const idParam = (raw: unknown): string => textParam(raw, 'Spool not found', 100);
 
-export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string; materials: TeamMaterials }) {
+export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string; materials: TeamMaterials; checks: CheckPool }) {
   const { db, mailer, logger } = deps;
   const r = Router();
 
   /** Check with the team's materials and keep what the list shows. */
-  const checkDocument = async (teamId: string, doc: SpoolDocument) => summarizeCheck(runCheck(doc, await deps.materials.finder(teamId)));
+  const checkDocument = async (teamId: string, doc: SpoolDocument) => (await deps.checks.summaries([doc], await deps.materials.ref(teamId)))[0]!;
 
   r.get('/', requirePermission('spool:view'), async (req, res) => {
     const q = parseBody(listQuerySchema, req.query, ['query']);
@@ -103,25 +104,32 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
   });
 
   // Line-list CSV: one spool per row with its design conditions; all rows or none.
+  // At most LINE_LIST_MAX_ROWS rows, refused before parsing; reading and validating yield to
+  // the event loop every few milliseconds, so an import never stalls other requests.
   r.post('/import', requirePermission('spool:edit'), receiveCsv, async (_req, res) => {
-    const csv = parseCsv(String(res.locals.csv ?? ''));
+    const text = String(res.locals.csv ?? '');
+    const rowCount = countCsvRows(text, LINE_LIST_MAX_ROWS);
+    if (rowCount > LINE_LIST_MAX_ROWS) {
+      throw validationError(
+        [{ path: 'file', message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows` }],
+        `A line list may hold at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows per import; nothing was imported`,
+      );
+    }
+    const csv = parseCsv(text);
     if (csv.errors.length > 0) {
       throw validationError(csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), 'The CSV could not be read');
     }
-    const { docs, issues } = readLineList(csv.headers, csv.rows);
+    const { docs, issues } = await readLineList(csv.headers, csv.rows);
     if (issues.length > 0) throw validationError(issues, `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`);
     const teamId = getTeamId(res);
     const userId = getContext(res).user.id;
-    const summaries: StoredCheckSummary[] = [];
-    for (const document of docs) summaries.push(await checkDocument(teamId, document));
+    const summaries: StoredCheckSummary[] = await deps.checks.summaries(docs, await deps.materials.ref(teamId));
     const ids = await db.transaction(async (tx) => {
       const out: string[] = [];
       for (const [i, document] of docs.entries()) out.push(await insertSpool(tx as unknown as Db, { teamId, userId, document, checkSummary: summaries[i] ?? null }));
       return out;
     });
-    const items = [];
-    for (const id of ids) items.push(await getSpool(db, teamId, id));
-    res.status(201).json({ created: ids.length, items });
+    res.status(201).json({ created: ids.length, items: await getSpools(db, teamId, ids) });
   });
 
   r.get('/:id', requirePermission('spool:view'), async (req, res) => {

@@ -10,6 +10,13 @@ export interface CsvIssue {
   message: string;
 }
 
+/** Most data rows one line-list import may hold. */
+export const LINE_LIST_MAX_ROWS = 2_000;
+
+/** Give the event loop a turn when this much time has passed since the last one. */
+const SLICE_MS = 10;
+const turn = () => new Promise<void>((resolve) => setImmediate(resolve));
+
 const key = (h: string) => h.toLowerCase().replace(/[\s_\-()]/g, '');
 
 /** Line-list columns and where each goes in the document. */
@@ -42,7 +49,7 @@ const issue = (line: number, column: string | null, message: string): CsvIssue =
  * Turn line-list rows into spool documents holding design conditions (no elements yet).
  * Every problem is reported with its line; callers write nothing unless `issues` is empty.
  */
-export function readLineList(headers: readonly string[], rows: readonly CsvRow[]): { docs: SpoolDocument[]; issues: CsvIssue[] } {
+export async function readLineList(headers: readonly string[], rows: readonly CsvRow[]): Promise<{ docs: SpoolDocument[]; issues: CsvIssue[] }> {
   const issues: CsvIssue[] = [];
   const known = new Map<string, string>();
   for (const h of headers) {
@@ -55,7 +62,12 @@ export function readLineList(headers: readonly string[], rows: readonly CsvRow[]
   if (issues.length > 0) return { docs: [], issues };
 
   const docs: SpoolDocument[] = [];
+  let slice = performance.now();
   for (const row of rows) {
+    if (performance.now() - slice > SLICE_MS) {
+      await turn();
+      slice = performance.now();
+    }
     const doc: Record<string, unknown> = { units: 'imperial', elements: [] };
     const conditions: Record<string, unknown> = {};
     for (const [header, raw] of Object.entries(row.values)) {
