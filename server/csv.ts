@@ -86,12 +86,28 @@ export function parseCsv(text: string): { headers: string[]; rows: CsvRow[]; err
 
 /**
  * Data rows of a CSV with a header, counted only as far as `cap + 1`: a cheap newline count
- * first, and a parse that stops early (quoted newlines) only when that count is over the cap.
+ * first; when that is over the cap, only a prefix of the text is parsed (quoted newlines make
+ * rows span lines, so the prefix grows until it holds cap + 1 rows or is the whole text).
  */
 export function countCsvRows(text: string, cap: number): number {
-  let lines = 0;
-  for (let i = text.indexOf('\n'); i !== -1 && lines <= cap + 1; i = text.indexOf('\n', i + 1)) lines++;
-  if (lines <= cap + 1) return Math.min(lines, cap);
-  const out = Papa.parse<string[]>(text.replace(/^\uFEFF/, ''), { preview: cap + 2, skipEmptyLines: 'greedy' });
-  return Math.max(0, out.data.length - 1);
+  const endOfLine = (n: number) => {
+    let at = -1;
+    for (let k = 0; k < n; k++) {
+      at = text.indexOf('\n', at + 1);
+      if (at === -1) return text.length;
+    }
+    return at;
+  };
+  let newlines = 0;
+  for (let i = text.indexOf('\n'); i !== -1 && newlines <= cap + 1; i = text.indexOf('\n', i + 1)) newlines++;
+  // Data rows are at most the newlines (header, then one per row; the last may lack its own).
+  if (newlines <= cap) return newlines;
+  let lines = cap + 2;
+  for (;;) {
+    const end = endOfLine(lines);
+    const prefix = text.slice(0, end).replace(/^\uFEFF/, '');
+    const rows = Math.max(0, Papa.parse<string[]>(prefix, { skipEmptyLines: 'greedy' }).data.length - 1);
+    if (rows > cap || end >= text.length) return Math.min(rows, cap + 1);
+    lines *= 2;
+  }
 }

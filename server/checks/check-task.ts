@@ -3,6 +3,8 @@ import { createMaterialLookup, findMaterial, type Material } from '../../shared/
 import { formatPath, spoolDocumentSchema, type FieldIssue, type SpoolDocument } from '../../shared/model/spool';
 import { findBodyTextIssues } from '../validation';
 import { summarizeCheck } from '../spools/check';
+import { parseCsv } from '../csv';
+import { readLineList } from '../spools/line-list';
 import type { StoredCheckSummary } from '../db/schema';
 
 /**
@@ -24,12 +26,15 @@ export type CheckTask =
   /** Check a validated document; the full result as JSON text (stored with a share link). */
   | { kind: 'check-document'; document: SpoolDocument; materials: MaterialsRef }
   /** Check validated documents and keep what the spool list shows. */
-  | { kind: 'summaries'; documents: readonly SpoolDocument[]; materials: MaterialsRef };
+  | { kind: 'summaries'; documents: readonly SpoolDocument[]; materials: MaterialsRef }
+  /** Read a line-list CSV (text already within the row cap) into checked documents, or its problems. */
+  | { kind: 'line-list'; text: string; materials: MaterialsRef };
 
 export type CheckAnswer =
   | { kind: 'json'; bytes: Uint8Array }
   | { kind: 'invalid'; status: 400 | 422; message: string; issues: FieldIssue[] }
-  | { kind: 'summaries'; summaries: StoredCheckSummary[] };
+  | { kind: 'summaries'; summaries: StoredCheckSummary[] }
+  | { kind: 'line-list'; documents: SpoolDocument[]; summaries: StoredCheckSummary[] };
 
 const lookups = new Map<string, MaterialFinder>();
 
@@ -47,8 +52,17 @@ function finderFor(ref: MaterialsRef): MaterialFinder {
 const encoder = new TextEncoder();
 
 /** Run one task (the pool's worker calls this; tests may call it directly). */
-export function runCheckTask(task: CheckTask): CheckAnswer {
+export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
   const find = finderFor(task.materials);
+  if (task.kind === 'line-list') {
+    const csv = parseCsv(task.text);
+    if (csv.errors.length > 0) {
+      return { kind: 'invalid', status: 422, message: 'The CSV could not be read', issues: csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message }) as FieldIssue) };
+    }
+    const { docs, issues } = await readLineList(csv.headers, csv.rows);
+    if (issues.length > 0) return { kind: 'invalid', status: 422, message: `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`, issues };
+    return { kind: 'line-list', documents: docs, summaries: docs.map((d) => summarizeCheck(checkSpool(d, { findMaterial: find }))) };
+  }
   if (task.kind === 'summaries') {
     return { kind: 'summaries', summaries: task.documents.map((d) => summarizeCheck(checkSpool(d, { findMaterial: find }))) };
   }

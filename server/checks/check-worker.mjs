@@ -8,7 +8,7 @@ register();
 const { runCheckTask } = await import('./check-task.ts');
 
 /** JSON results travel back as bytes moved (not copied) to the main thread. */
-export default function run(task) {
-  const answer = runCheckTask(task);
+export default async function run(task) {
+  const answer = await runCheckTask(task);
   return answer.kind === 'json' ? Piscina.move(answer.bytes) : answer;
 }

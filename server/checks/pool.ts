@@ -68,7 +68,7 @@ export class CheckPool {
   /** The full check of a validated document as JSON text. */
   async checkDocument(document: SpoolDocument, materials: MaterialsRef): Promise<string> {
     const small = document.elements.length <= INLINE_ELEMENTS;
-    const out = small ? runCheckTask({ kind: 'check-document', document, materials }) : await this.run({ kind: 'check-document', document, materials });
+    const out = small ? await runCheckTask({ kind: 'check-document', document, materials }) : await this.run({ kind: 'check-document', document, materials });
     const bytes = out instanceof Uint8Array ? out : out.kind === 'json' ? out.bytes : undefined;
     if (!bytes) throw new Error('check pool: unexpected answer');
     return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('utf8');
@@ -77,9 +77,18 @@ export class CheckPool {
   /** Check summaries of validated documents (small ones inline, the rest in the pool). */
   async summaries(documents: readonly SpoolDocument[], materials: MaterialsRef): Promise<StoredCheckSummary[]> {
     const elements = documents.reduce((n, d) => n + d.elements.length, 0);
-    const out = elements <= INLINE_ELEMENTS ? runCheckTask({ kind: 'summaries', documents, materials }) : await this.run({ kind: 'summaries', documents, materials });
+    const out = elements <= INLINE_ELEMENTS && documents.length <= INLINE_ELEMENTS ? await runCheckTask({ kind: 'summaries', documents, materials }) : await this.run({ kind: 'summaries', documents, materials });
     if (out instanceof Uint8Array || out.kind !== 'summaries') throw new Error('check pool: unexpected answer');
     return out.summaries;
+  }
+
+  /** Read and check a line-list CSV in the pool: the documents with their summaries, or a 422. */
+  async lineList(text: string, materials: MaterialsRef): Promise<{ documents: SpoolDocument[]; summaries: StoredCheckSummary[] }> {
+    const out = await this.run({ kind: 'line-list', text, materials });
+    if (out instanceof Uint8Array) throw new Error('check pool: unexpected answer');
+    if (out.kind === 'invalid') throw new HttpError(out.status, 'validation', out.message, out.issues);
+    if (out.kind !== 'line-list') throw new Error('check pool: unexpected answer');
+    return out;
   }
 
   async close() {

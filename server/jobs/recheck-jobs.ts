@@ -4,6 +4,7 @@ import { jobs, spools, type StoredCheckSummary } from '../db/schema';
 import type { TeamMaterials } from '../materials/team-materials';
 import type { CheckPool } from '../checks/pool';
 import type { Logger } from '../logger';
+import { createSlicer } from '../yield';
 import type { SpoolDocument } from '../../shared/model/spool';
 
 /** Spools read, checked and written per step; the event loop gets a turn between steps. */
@@ -137,6 +138,7 @@ export class RecheckJobs {
       const [{ n } = { n: 0 }] = await db.select({ n: sql<number>`count(*)::int` }).from(spools).where(live);
       await db.update(jobs).set({ status: 'running', startedAt: new Date(), total: n, done: 0, changed: 0, error: null }).where(eq(jobs.id, jobId));
       const ref = await materials.ref(teamId);
+      const slice = createSlicer();
       let last = '';
       let done = 0;
       let changed = 0;
@@ -151,6 +153,7 @@ export class RecheckJobs {
         if (rows.length === 0) break;
         const summaries = await checks.summaries(rows.map((r) => r.document as SpoolDocument), ref);
         for (const [i, r] of rows.entries()) {
+          await slice();
           const s = summaries[i]!;
           if (sameSummary(r.checkSummary, s)) continue;
           // Derived data: the version does not move, and a newer save keeps its own summary.

@@ -19,7 +19,7 @@ export function checkRouter(deps: { materials: TeamMaterials; checks: CheckPool 
     const materials = await deps.materials.ref(getContext(res).team?.id);
     let bytes: Uint8Array;
     if (raw.length <= INLINE_BYTES) {
-      const out = runCheckTask({ kind: 'check-json', text, materials });
+      const out = await runCheckTask({ kind: 'check-json', text, materials });
       if (out.kind === 'invalid') throw new HttpError(out.status, out.status === 400 ? 'bad_request' : 'validation', out.message, out.issues);
       if (out.kind !== 'json') throw new Error('unexpected check answer');
       bytes = out.bytes;

@@ -2,11 +2,11 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { and, eq, inArray } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { teamMembers, user, type StoredCheckSummary } from '../db/schema';
+import { teamMembers, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, forbidden, notFound, validationError } from '../errors';
-import { countCsvRows, parseCsv, receiveCsv } from '../csv';
-import { LINE_LIST_MAX_ROWS, readLineList } from '../spools/line-list';
+import { countCsvRows, receiveCsv } from '../csv';
+import { LINE_LIST_MAX_ROWS } from '../spools/line-list';
 import type { TeamMaterials } from '../materials/team-materials';
 import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
@@ -21,6 +21,7 @@ import {
   getSpool,
   getSpools,
   insertSpool,
+  insertSpools,
   listEvents,
   listRevisions,
   listSpools,
@@ -115,21 +116,13 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
         `A line list may hold at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows per import; nothing was imported`,
       );
     }
-    const csv = parseCsv(text);
-    if (csv.errors.length > 0) {
-      throw validationError(csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), 'The CSV could not be read');
-    }
-    const { docs, issues } = await readLineList(csv.headers, csv.rows);
-    if (issues.length > 0) throw validationError(issues, `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`);
     const teamId = getTeamId(res);
     const userId = getContext(res).user.id;
-    const summaries: StoredCheckSummary[] = await deps.checks.summaries(docs, await deps.materials.ref(teamId));
-    const ids = await db.transaction(async (tx) => {
-      const out: string[] = [];
-      for (const [i, document] of docs.entries()) out.push(await insertSpool(tx as unknown as Db, { teamId, userId, document, checkSummary: summaries[i] ?? null }));
-      return out;
-    });
-    res.status(201).json({ created: ids.length, items: await getSpools(db, teamId, ids) });
+    // Parsing, validating and checking the rows happen in the check pool.
+    const { documents: docs, summaries } = await deps.checks.lineList(text, await deps.materials.ref(teamId));
+    const items = docs.map((document, i) => ({ document, checkSummary: summaries[i] ?? null }));
+    const ids = await db.transaction((tx) => insertSpools(tx as unknown as Db, { teamId, userId, items }, 25));
+    res.status(201).json({ created: ids.length, items: await getSpools(db, teamId, ids, 50) });
   });
 
   r.get('/:id', requirePermission('spool:view'), async (req, res) => {

@@ -1,5 +1,6 @@
 import { formatPath, spoolDocumentSchema, type SpoolDocument } from '../../shared/model/spool';
 import type { CsvRow } from '../csv';
+import { createSlicer } from '../yield';
 
 /** A problem in an uploaded CSV: the file line (header = 1), the column and what is wrong. */
 export interface CsvIssue {
@@ -13,9 +14,6 @@ export interface CsvIssue {
 /** Most data rows one line-list import may hold. */
 export const LINE_LIST_MAX_ROWS = 2_000;
 
-/** Give the event loop a turn when this much time has passed since the last one. */
-const SLICE_MS = 10;
-const turn = () => new Promise<void>((resolve) => setImmediate(resolve));
 
 const key = (h: string) => h.toLowerCase().replace(/[\s_\-()]/g, '');
 
@@ -62,12 +60,9 @@ export async function readLineList(headers: readonly string[], rows: readonly Cs
   if (issues.length > 0) return { docs: [], issues };
 
   const docs: SpoolDocument[] = [];
-  let slice = performance.now();
+  const slice = createSlicer();
   for (const row of rows) {
-    if (performance.now() - slice > SLICE_MS) {
-      await turn();
-      slice = performance.now();
-    }
+    await slice();
     const doc: Record<string, unknown> = { units: 'imperial', elements: [] };
     const conditions: Record<string, unknown> = {};
     for (const [header, raw] of Object.entries(row.values)) {

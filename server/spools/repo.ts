@@ -149,8 +149,16 @@ export async function getSpool(db: Db, teamId: string, id: string): Promise<Spoo
 }
 
 /** Several spools by id, in the order given (missing ones left out); one query. */
-export async function getSpools(db: Db, teamId: string, ids: readonly string[]): Promise<Spool[]> {
+export async function getSpools(db: Db, teamId: string, ids: readonly string[], chunk = 200): Promise<Spool[]> {
   if (ids.length === 0) return [];
+  if (ids.length > chunk) {
+    const out: Spool[] = [];
+    for (let i = 0; i < ids.length; i += chunk) {
+      out.push(...(await getSpools(db, teamId, ids.slice(i, i + chunk), chunk)));
+      await new Promise<void>((resolve) => setImmediate(resolve));
+    }
+    return out;
+  }
   const rows = await db
     .select({
       ...summaryColumns,
@@ -193,6 +201,25 @@ export async function insertSpool(
     updatedBy: v.userId,
   });
   return id;
+}
+
+/** Insert many new spools with multi-row INSERTs of `chunk` rows, yielding between chunks; ids in order. */
+export async function insertSpools(
+  db: Db,
+  v: { teamId: string; userId: string; items: readonly { document: SpoolDocument; checkSummary: StoredCheckSummary | null }[] },
+  chunk = 250,
+): Promise<string[]> {
+  const ids: string[] = [];
+  for (let i = 0; i < v.items.length; i += chunk) {
+    const rows = v.items.slice(i, i + chunk).map((it) => {
+      const id = randomUUID();
+      ids.push(id);
+      return { id, teamId: v.teamId, ...describeDocument(it.document), document: it.document, checkSummary: it.checkSummary, createdBy: v.userId, updatedBy: v.userId };
+    });
+    await db.insert(spools).values(rows);
+    await new Promise<void>((resolve) => setImmediate(resolve));
+  }
+  return ids;
 }
 
 export type SaveOutcome = { kind: 'saved' } | { kind: 'not_found' } | { kind: 'conflict' };
