@@ -14,6 +14,7 @@ import { spawn } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
+import { Worker } from 'node:worker_threads';
 import { freePort } from '../scripts/lib/tooling';
 import { buildLongSpool } from '../server/db/demo-spools';
 
@@ -62,8 +63,10 @@ async function call(method: string, p: string, body?: string, type = 'applicatio
   const t0 = performance.now();
   try {
     const r = await fetch(`${url}${p}`, { method, headers: { ...headers, 'content-type': type }, body, signal: ctrl.signal });
-    const text = await r.text();
-    return { status: r.status, ms: performance.now() - t0, bytes: text.length, text };
+    // Large answers are only counted, not decoded (keeps this process light).
+    const buf = await r.arrayBuffer();
+    const text = buf.byteLength < 5e6 ? Buffer.from(buf).toString('utf8') : '';
+    return { status: r.status, ms: performance.now() - t0, bytes: buf.byteLength, text };
   } catch {
     return { status: 0, ms: performance.now() - t0, bytes: 0, text: 'timed out' };
   } finally {
@@ -71,23 +74,35 @@ async function call(method: string, p: string, body?: string, type = 'applicatio
   }
 }
 
+// The prober runs on its own thread, so the hostile clients' work in this process (receiving
+// 100 MB answers) cannot delay its measurements.
+const PROBER = `
+const { parentPort, workerData } = require('node:worker_threads');
+let running = true;
+const latencies = [];
+parentPort.on('message', () => { running = false; });
+(async () => {
+  while (running) {
+    const t0 = performance.now();
+    await fetch(workerData.url + '/api/health').then((r) => r.text());
+    latencies.push(performance.now() - t0);
+    await new Promise((r) => setTimeout(r, 5));
+  }
+  parentPort.postMessage(latencies);
+})();
+`;
+
 /** Probe /api/health every 5 ms until `work` settles; latencies in ms. */
 async function probeDuring(work: () => Promise<string>): Promise<{ latencies: number[]; note: string; ms: number }> {
-  const latencies: number[] = [];
-  let running = true;
-  const prober = (async () => {
-    while (running) {
-      const t0 = performance.now();
-      await fetch(`${url}/api/health`).then((r) => r.text());
-      latencies.push(performance.now() - t0);
-      await new Promise((r) => setTimeout(r, 5));
-    }
-  })();
+  const prober = new Worker(PROBER, { eval: true, workerData: { url } });
+  const done = new Promise<number[]>((resolve) => prober.once('message', resolve));
+  await new Promise((r) => setTimeout(r, 50));
   const t0 = performance.now();
   const note = await work();
   const ms = performance.now() - t0;
-  running = false;
-  await prober;
+  prober.postMessage('stop');
+  const latencies = await done;
+  await prober.terminate();
   return { latencies, note, ms };
 }
 

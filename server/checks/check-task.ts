@@ -1,3 +1,4 @@
+import { gunzipSync, gzipSync } from 'node:zlib';
 import { checkSpool, type MaterialFinder } from '../../shared/engine/index';
 import { createMaterialLookup, findMaterial, type Material } from '../../shared/data/materials';
 import { formatPath, spoolDocumentSchema, type FieldIssue, type SpoolDocument } from '../../shared/model/spool';
@@ -23,8 +24,10 @@ export interface MaterialsRef {
 export type CheckTask =
   /** Validate raw JSON text as a spool document and check it: the answer of POST /api/check. */
   | { kind: 'check-json'; text: string; materials: MaterialsRef }
-  /** Check a validated document; the full result as JSON text (stored with a share link). */
+  /** Check a validated document; the full result as gzip'd JSON (stored with a share link). */
   | { kind: 'check-document'; document: SpoolDocument; materials: MaterialsRef }
+  /** The public share answer: `head` + the stored check (gunzipped) + `tail`, as bytes. */
+  | { kind: 'share-view'; head: string; checkGz: Uint8Array; tail: string; materials: MaterialsRef }
   /** Check validated documents and keep what the spool list shows. */
   | { kind: 'summaries'; documents: readonly SpoolDocument[]; materials: MaterialsRef }
   /** Read a line-list CSV (text already within the row cap) into checked documents, or its problems. */
@@ -32,6 +35,7 @@ export type CheckTask =
 
 export type CheckAnswer =
   | { kind: 'json'; bytes: Uint8Array }
+  | { kind: 'gzip'; bytes: Uint8Array }
   | { kind: 'invalid'; status: 400 | 422; message: string; issues: FieldIssue[] }
   | { kind: 'summaries'; summaries: StoredCheckSummary[] }
   | { kind: 'line-list'; documents: SpoolDocument[]; summaries: StoredCheckSummary[] };
@@ -54,6 +58,10 @@ const encoder = new TextEncoder();
 /** Run one task (the pool's worker calls this; tests may call it directly). */
 export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
   const find = finderFor(task.materials);
+  if (task.kind === 'share-view') {
+    const check = gunzipSync(task.checkGz);
+    return { kind: 'json', bytes: Buffer.concat([Buffer.from(task.head), check, Buffer.from(task.tail)]) };
+  }
   if (task.kind === 'line-list') {
     const csv = parseCsv(task.text);
     if (csv.errors.length > 0) {
@@ -83,5 +91,6 @@ export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
     document = r.data as SpoolDocument;
   } else document = task.document;
   const json = JSON.stringify(checkSpool(document, { findMaterial: find }));
+  if (task.kind === 'check-document') return { kind: 'gzip', bytes: gzipSync(json, { level: 6 }) };
   return { kind: 'json', bytes: encoder.encode(json) };
 }

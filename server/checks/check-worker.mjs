@@ -10,5 +10,6 @@ const { runCheckTask } = await import('./check-task.ts');
 /** JSON results travel back as bytes moved (not copied) to the main thread. */
 export default async function run(task) {
   const answer = await runCheckTask(task);
+  // (Only a top-level value can be moved; gzip'd checks are small enough to copy.)
   return answer.kind === 'json' ? Piscina.move(answer.bytes) : answer;
 }

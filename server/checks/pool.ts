@@ -65,13 +65,21 @@ export class CheckPool {
     throw new Error('check pool: unexpected answer');
   }
 
-  /** The full check of a validated document as JSON text. */
-  async checkDocument(document: SpoolDocument, materials: MaterialsRef): Promise<string> {
+  /** The full check of a validated document, gzip'd JSON (kept with a share link). */
+  async checkDocumentGz(document: SpoolDocument, materials: MaterialsRef): Promise<Uint8Array> {
     const small = document.elements.length <= INLINE_ELEMENTS;
     const out = small ? await runCheckTask({ kind: 'check-document', document, materials }) : await this.run({ kind: 'check-document', document, materials });
-    const bytes = out instanceof Uint8Array ? out : out.kind === 'json' ? out.bytes : undefined;
-    if (!bytes) throw new Error('check pool: unexpected answer');
-    return Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('utf8');
+    if (out instanceof Uint8Array || out.kind !== 'gzip') throw new Error('check pool: unexpected answer');
+    return out.bytes;
+  }
+
+  /** The public share answer: `head` + the stored check + `tail` as JSON bytes, assembled off the event loop. */
+  async shareView(head: string, checkGz: Uint8Array, tail: string): Promise<Uint8Array> {
+    const task: CheckTask = { kind: 'share-view', head, checkGz, tail, materials: { key: 'library', rows: null } };
+    const out = checkGz.byteLength < 16 * 1024 ? await runCheckTask(task) : await this.run(task);
+    if (out instanceof Uint8Array) return out;
+    if (out.kind !== 'json') throw new Error('check pool: unexpected answer');
+    return out.bytes;
   }
 
   /** Check summaries of validated documents (small ones inline, the rest in the pool). */

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { customType, index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 import type { SpoolDocument } from '../../shared/model/spool';
 import type { CheckSummary, CheckStatus } from '../../shared/engine/types';
 import type { Material } from '../../shared/data/materials';
@@ -12,6 +12,9 @@ export interface StoredCheckSummary {
   summary: CheckSummary;
   worst: { elementId: string; status: CheckStatus } | null;
 }
+
+/** Raw bytes (PostgreSQL bytea). */
+const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({ dataType: () => 'bytea' });
 
 const timestamps = {
   createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
@@ -128,8 +131,8 @@ export const shareLinks = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
     expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
     revokedAt: timestamp('revoked_at', { withTimezone: true }),
-    /** The check of the shared revision as JSON text, made once when the link is created (the revision is frozen). */
-    check: text('check'),
+    /** The check of the shared revision as gzip'd JSON, made once when the link is created (the revision is frozen). */
+    checkGz: bytea('check_gz'),
   },
   (t) => [index('share_links_spool_idx').on(t.spoolId)],
 );

@@ -76,7 +76,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: 
     if (!rev) throw notFound('Revision not found');
     const ctx = getContext(res);
     // The shared revision is frozen, so its check is made once, here, and served as stored.
-    const check = await deps.checks.checkDocument(rev.document, await deps.materials.ref(teamId));
+    const checkGz = await deps.checks.checkDocumentGz(rev.document, await deps.materials.ref(teamId));
     const [row] = await db
       .insert(shareLinks)
       .values({
@@ -89,7 +89,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: 
         line: rev.line,
         // The link shows the revision as it is now, even if its draft is edited later.
         document: rev.document,
-        check,
+        checkGz,
         createdBy: ctx.user.id,
         expiresAt: new Date(Date.now() + body.expiresInDays * 86_400_000),
       })
@@ -139,16 +139,17 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials; chec
     if (!row) throw notFound('Share link not found');
     if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
     if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
-    let check = row.check;
-    if (check === null) {
+    let checkGz = row.checkGz;
+    if (checkGz === null) {
       // A link made before checks were stored: check once in the pool and keep the result.
-      check = await deps.checks.checkDocument(row.document, await deps.materials.ref(row.teamId));
-      await deps.db.update(shareLinks).set({ check }).where(eq(shareLinks.id, row.id));
+      checkGz = await deps.checks.checkDocumentGz(row.document, await deps.materials.ref(row.teamId));
+      await deps.db.update(shareLinks).set({ checkGz }).where(eq(shareLinks.id, row.id));
     }
-    // The stored check is JSON text already: it is spliced in, not parsed and re-serialised.
+    // The stored check is JSON already: it is spliced in (in the pool), not parsed and re-serialised.
     const head = JSON.stringify({ spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document } });
     const tail = JSON.stringify({ sharedAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString() });
-    res.type('application/json').send(`${head.slice(0, -1)},"check":${check},${tail.slice(1)}`);
+    const bytes = await deps.checks.shareView(`${head.slice(0, -1)},"check":`, checkGz, `,${tail.slice(1)}`);
+    res.type('application/json').send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   });
   return r;
 }

@@ -14,7 +14,7 @@ CREATE TABLE "jobs" (
 	"finished_at" timestamp with time zone
 );
 --> statement-breakpoint
-ALTER TABLE "share_links" ADD COLUMN "check" text;--> statement-breakpoint
+ALTER TABLE "share_links" ADD COLUMN "check_gz" "bytea";--> statement-breakpoint
 ALTER TABLE "jobs" ADD CONSTRAINT "jobs_team_id_teams_id_fk" FOREIGN KEY ("team_id") REFERENCES "public"."teams"("id") ON DELETE cascade ON UPDATE no action;--> statement-breakpoint
 ALTER TABLE "jobs" ADD CONSTRAINT "jobs_created_by_user_id_fk" FOREIGN KEY ("created_by") REFERENCES "public"."user"("id") ON DELETE set null ON UPDATE no action;--> statement-breakpoint
 CREATE INDEX "jobs_team_idx" ON "jobs" USING btree ("team_id","id");--> statement-breakpoint
