@@ -26,7 +26,15 @@ const port = await freePort();
 const url = `http://127.0.0.1:${port}`;
 const child = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server/index.ts')], {
   cwd: ROOT,
-  env: { ...process.env, NODE_ENV: 'production', DATA_DIR: dataDir, PORT: String(port), HOST: '127.0.0.1', SPOOLWRIGHT_QUIET: '1', RATE_LIMIT: 'off' },
+  env: {
+    ...process.env,
+    NODE_ENV: 'production',
+    DATA_DIR: dataDir,
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    SPOOLWRIGHT_QUIET: '1',
+    RATE_LIMIT: 'off',
+  },
   stdio: ['ignore', 'pipe', 'inherit'],
 });
 await new Promise<void>((resolve, reject) => {
@@ -62,7 +70,12 @@ async function call(method: string, p: string, body?: string, type = 'applicatio
   const timer = setTimeout(() => ctrl.abort(), TIMEOUT_MS);
   const t0 = performance.now();
   try {
-    const r = await fetch(`${url}${p}`, { method, headers: { ...headers, 'content-type': type }, body, signal: ctrl.signal });
+    const r = await fetch(`${url}${p}`, {
+      method,
+      headers: { ...headers, 'content-type': type },
+      body,
+      signal: ctrl.signal,
+    });
     // Large answers are only counted, not decoded (keeps this process light).
     const buf = await r.arrayBuffer();
     const text = buf.byteLength < 5e6 ? Buffer.from(buf).toString('utf8') : '';
@@ -84,16 +97,19 @@ parentPort.on('message', () => { running = false; });
 (async () => {
   while (running) {
     const t0 = performance.now();
-    await fetch(workerData.url + '/api/health').then((r) => r.text());
-    latencies.push(performance.now() - t0);
-    await new Promise((r) => setTimeout(r, 5));
+    // A failed probe (server gone) counts as an infinite latency.
+    const ok = await fetch(workerData.url + '/api/health').then((r) => r.text()).then(() => true, () => false);
+    latencies.push(ok ? performance.now() - t0 : Infinity);
+    await new Promise((r) => setTimeout(r, ok ? 5 : 200));
   }
   parentPort.postMessage(latencies);
 })();
 `;
 
 /** Probe /api/health every 5 ms until `work` settles; latencies in ms. */
-async function probeDuring(work: () => Promise<string>): Promise<{ latencies: number[]; note: string; ms: number }> {
+async function probeDuring(
+  work: () => Promise<string>,
+): Promise<{ latencies: number[]; note: string; ms: number }> {
   const prober = new Worker(PROBER, { eval: true, workerData: { url } });
   const done = new Promise<number[]>((resolve) => prober.once('message', resolve));
   await new Promise((r) => setTimeout(r, 50));
@@ -121,7 +137,14 @@ const rows: Row[] = [];
 async function scenario(name: string, work: () => Promise<string>) {
   const r = await probeDuring(work);
   rows.push({ scenario: name, ...r });
-  console.log(`${name}: ${r.note} (${(r.ms / 1000).toFixed(1)} s), health p99 ${pct(r.latencies, 99).toFixed(1)} ms over ${r.latencies.length} probes`);
+  if (child.exitCode !== null || child.signalCode !== null) {
+    r.note += ` — the server process exited (${child.exitCode ?? child.signalCode})`;
+    report();
+    process.exit(1);
+  }
+  console.log(
+    `${name}: ${r.note} (${(r.ms / 1000).toFixed(1)} s), health p99 ${pct(r.latencies, 99).toFixed(1)} ms over ${r.latencies.length} probes`,
+  );
 }
 
 // Directions dropped (optional, sketch only) so the 20,000 elements fit the 2 MB JSON limit.
@@ -130,17 +153,28 @@ const big = { ...long, elements: long.elements.map(({ direction: _direction, ...
 const bigJson = JSON.stringify(big);
 console.log(`20,000-element document: ${(bigJson.length / 1024).toFixed(0)} kB of JSON`);
 const statuses = (rs: { status: number; ms: number; bytes: number }[]) =>
-  rs.map((r) => `${r.status || 'timeout'} in ${(r.ms / 1000).toFixed(1)} s${r.bytes ? `, ${(r.bytes / 1e6).toFixed(1)} MB` : ''}`).join('; ');
+  rs
+    .map(
+      (r) =>
+        `${r.status || 'timeout'} in ${(r.ms / 1000).toFixed(1)} s${r.bytes ? `, ${(r.bytes / 1e6).toFixed(1)} MB` : ''}`,
+    )
+    .join('; ');
 
 await scenario('quiet (nothing else running)', async () => {
   await new Promise((r) => setTimeout(r, 3000));
   return '3 s idle';
 });
-await scenario('4 × POST /api/check, 20,000 elements', async () => statuses(await Promise.all([1, 2, 3, 4].map(() => call('POST', '/api/check', bigJson)))));
+await scenario('4 × POST /api/check, 20,000 elements', async () =>
+  statuses(await Promise.all([1, 2, 3, 4].map(() => call('POST', '/api/check', bigJson)))),
+);
 const hugeCsv = `name,pressure,temperature\n${Array.from({ length: 60_000 }, (_, i) => `H${i},150,100`).join('\n')}`;
-await scenario('POST /api/spools/import, 60,000 rows', async () => statuses([await call('POST', '/api/spools/import', hugeCsv, 'text/csv')]));
+await scenario('POST /api/spools/import, 60,000 rows', async () =>
+  statuses([await call('POST', '/api/spools/import', hugeCsv, 'text/csv')]),
+);
 const capCsv = `name,pressure,temperature,material\n${Array.from({ length: 2_000 }, (_, i) => `Cap-${i},150,100,A106-B`).join('\n')}`;
-await scenario('POST /api/spools/import, 2,000 rows', async () => statuses([await call('POST', '/api/spools/import', capCsv, 'text/csv')]));
+await scenario('POST /api/spools/import, 2,000 rows', async () =>
+  statuses([await call('POST', '/api/spools/import', capCsv, 'text/csv')]),
+);
 const created = await call('POST', '/api/spools', JSON.stringify({ document: big }));
 const spoolId = (JSON.parse(created.text) as { id?: string }).id;
 let token = '';
@@ -150,19 +184,37 @@ await scenario('POST shares of a 20,000-element spool', async () => {
   token = (body.url ?? '').split('/').pop() || body.id || '';
   return statuses([r]);
 });
-await scenario('4 × GET /api/share/:token (public, 20,000 elements)', async () => statuses(await Promise.all([1, 2, 3, 4].map(() => call('GET', `/api/share/${token}`)))));
+await scenario('4 × GET /api/share/:token (public, 20,000 elements)', async () =>
+  statuses(await Promise.all([1, 2, 3, 4].map(() => call('GET', `/api/share/${token}`)))),
+);
 
-console.log(`\nSpoolwright /api/health under hostile requests, ${os.cpus().length} cores, load average ${os.loadavg()[0]!.toFixed(1)}, server ${path.relative(process.cwd(), ROOT) || '.'}`);
-console.log('scenario'.padEnd(52), 'hostile s'.padStart(10), 'probes'.padStart(7), 'p50 ms'.padStart(8), 'p99 ms'.padStart(8), 'max ms'.padStart(8));
-for (const r of rows) {
+function report() {
   console.log(
-    r.scenario.padEnd(52),
-    (r.ms / 1000).toFixed(1).padStart(10),
-    String(r.latencies.length).padStart(7),
-    pct(r.latencies, 50).toFixed(1).padStart(8),
-    pct(r.latencies, 99).toFixed(1).padStart(8),
-    Math.max(...r.latencies).toFixed(1).padStart(8),
+    `\nSpoolwright /api/health under hostile requests, ${os.cpus().length} cores, load average ${os.loadavg()[0]!.toFixed(1)}, server ${path.relative(process.cwd(), ROOT) || '.'}`,
   );
+  console.log(
+    'scenario'.padEnd(52),
+    'hostile s'.padStart(10),
+    'probes'.padStart(7),
+    'p50 ms'.padStart(8),
+    'p99 ms'.padStart(8),
+    'max ms'.padStart(8),
+    ' answers',
+  );
+  for (const r of rows) {
+    console.log(
+      r.scenario.padEnd(52),
+      (r.ms / 1000).toFixed(1).padStart(10),
+      String(r.latencies.length).padStart(7),
+      pct(r.latencies, 50).toFixed(1).padStart(8),
+      pct(r.latencies, 99).toFixed(1).padStart(8),
+      Math.max(...r.latencies)
+        .toFixed(1)
+        .padStart(8),
+      r.note,
+    );
+  }
 }
+report();
 cleanup();
 process.exit(0);

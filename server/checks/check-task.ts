@@ -26,8 +26,8 @@ export type CheckTask =
   | { kind: 'check-json'; text: string; materials: MaterialsRef }
   /** Check a validated document; the full result as gzip'd JSON (stored with a share link). */
   | { kind: 'check-document'; document: SpoolDocument; materials: MaterialsRef }
-  /** The public share answer: `head` + the stored check (gunzipped) + `tail`, as bytes. */
-  | { kind: 'share-view'; head: string; checkGz: Uint8Array; tail: string; materials: MaterialsRef }
+  /** The public share answer: `head` + the stored check (gzip bytes, or their base64) gunzipped + `tail`, as bytes. */
+  | { kind: 'share-view'; head: string; checkGz: Uint8Array | string; tail: string; materials: MaterialsRef }
   /** Check validated documents and keep what the spool list shows. */
   | { kind: 'summaries'; documents: readonly SpoolDocument[]; materials: MaterialsRef }
   /** Read a line-list CSV (text already within the row cap) into checked documents, or its problems. */
@@ -59,7 +59,7 @@ const encoder = new TextEncoder();
 export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
   const find = finderFor(task.materials);
   if (task.kind === 'share-view') {
-    const check = gunzipSync(task.checkGz);
+    const check = gunzipSync(typeof task.checkGz === 'string' ? Buffer.from(task.checkGz, 'base64') : task.checkGz);
     return { kind: 'json', bytes: Buffer.concat([Buffer.from(task.head), check, Buffer.from(task.tail)]) };
   }
   if (task.kind === 'line-list') {

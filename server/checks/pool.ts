@@ -74,9 +74,10 @@ export class CheckPool {
   }
 
   /** The public share answer: `head` + the stored check + `tail` as JSON bytes, assembled off the event loop. */
-  async shareView(head: string, checkGz: Uint8Array, tail: string): Promise<Uint8Array> {
+  async shareView(head: string, checkGz: Uint8Array | string, tail: string): Promise<Uint8Array> {
     const task: CheckTask = { kind: 'share-view', head, checkGz, tail, materials: { key: 'library', rows: null } };
-    const out = checkGz.byteLength < 16 * 1024 ? await runCheckTask(task) : await this.run(task);
+    const size = typeof checkGz === 'string' ? checkGz.length : checkGz.byteLength;
+    const out = size < 16 * 1024 ? await runCheckTask(task) : await this.run(task);
     if (out instanceof Uint8Array) return out;
     if (out.kind !== 'json') throw new Error('check pool: unexpected answer');
     return out.bytes;

@@ -1,6 +1,6 @@
 import { randomBytes } from 'node:crypto';
 import { Router } from 'express';
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
 import { shareLinks, user } from '../db/schema';
@@ -135,20 +135,38 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials; chec
   const r = Router();
   r.get('/:token', async (req, res) => {
     const token = textParam(req.params.token, 'Share link not found', 100);
-    const [row] = await deps.db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
+    // The document comes as PostgreSQL's JSON text and the check as base64 of its gzip: neither
+    // is parsed on the event loop; the pool unpacks the check and joins the answer.
+    const [row] = await deps.db
+      .select({
+        id: shareLinks.id,
+        teamId: shareLinks.teamId,
+        name: shareLinks.name,
+        line: shareLinks.line,
+        revision: shareLinks.revision,
+        status: shareLinks.status,
+        createdAt: shareLinks.createdAt,
+        expiresAt: shareLinks.expiresAt,
+        revokedAt: shareLinks.revokedAt,
+        documentJson: sql<string>`${shareLinks.document}::text`,
+        checkB64: sql<string | null>`encode(${shareLinks.checkGz}, 'base64')`,
+      })
+      .from(shareLinks)
+      .where(eq(shareLinks.id, token))
+      .limit(1);
     if (!row) throw notFound('Share link not found');
     if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
     if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
-    let checkGz = row.checkGz;
-    if (checkGz === null) {
+    let check: Uint8Array | string | null = row.checkB64;
+    if (check === null) {
       // A link made before checks were stored: check once in the pool and keep the result.
-      checkGz = await deps.checks.checkDocumentGz(row.document, await deps.materials.ref(row.teamId));
-      await deps.db.update(shareLinks).set({ checkGz }).where(eq(shareLinks.id, row.id));
+      const [full] = await deps.db.select({ document: shareLinks.document }).from(shareLinks).where(eq(shareLinks.id, row.id)).limit(1);
+      check = await deps.checks.checkDocumentGz(full!.document, await deps.materials.ref(row.teamId));
+      await deps.db.update(shareLinks).set({ checkGz: check }).where(eq(shareLinks.id, row.id));
     }
-    // The stored check is JSON already: it is spliced in (in the pool), not parsed and re-serialised.
-    const head = JSON.stringify({ spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document } });
+    const meta = JSON.stringify({ name: row.name, line: row.line, revision: row.revision, status: row.status });
     const tail = JSON.stringify({ sharedAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString() });
-    const bytes = await deps.checks.shareView(`${head.slice(0, -1)},"check":`, checkGz, `,${tail.slice(1)}`);
+    const bytes = await deps.checks.shareView(`{"spool":${meta.slice(0, -1)},"document":${row.documentJson}},"check":`, check, `,${tail.slice(1)}`);
     res.type('application/json').send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   });
   return r;
