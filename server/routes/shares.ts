@@ -121,8 +121,8 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: 
 }
 
 /** The share link of a public token: 404 when unknown, 410 when revoked or expired. */
-export async function findActiveShare(db: Db, token: string): Promise<ShareRow> {
-  if (token.length > 100) throw notFound('Share link not found');
+export async function findActiveShare(db: Db, rawToken: string): Promise<typeof shareLinks.$inferSelect> {
+  const token = textParam(rawToken, 'Share link not found', 100);
   const [row] = await db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
   if (!row) throw notFound('Share link not found');
   if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
