@@ -24,6 +24,7 @@ import { CheckPool } from './checks/pool';
 import { RecheckJobs } from './jobs/recheck-jobs';
 import { jobsRouter } from './routes/jobs';
 import { shareRateLimit } from './rate-limit';
+import { waitingRouter } from './routes/waiting';
 
 export interface AppDeps {
   db: Db;
@@ -119,6 +120,7 @@ export function createApp(deps: AppDeps) {
   const memberships = new MembershipCache(deps.db);
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
+  app.use('/api/waiting', waitingRouter({ db: deps.db }));
   app.use('/api/spools/:id/comments', commentsRouter({ db: deps.db }));
   app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl, materials, checks }));
   app.use('/api/spools', calcSheetRouter({ db: deps.db, materials }));

@@ -10,6 +10,7 @@ export type ErrorCode =
   | 'conflict'
   | 'invalid_transition'
   | 'check_failed'
+  | 'open_comments'
   | 'gone'
   | 'payload_too_large'
   | 'validation'

@@ -3,7 +3,7 @@ import { checkSpool, type MaterialFinder } from '../../shared/engine/index';
 import { createMaterialLookup, findMaterial, type Material } from '../../shared/data/materials';
 import { formatPath, spoolDocumentSchema, type FieldIssue, type SpoolDocument } from '../../shared/model/spool';
 import { findBodyTextIssues } from '../validation';
-import { summarizeCheck } from '../spools/check';
+import { summarizeDocument } from '../spools/check';
 import { parseCsv } from '../csv';
 import { readLineList } from '../spools/line-list';
 import type { StoredCheckSummary } from '../db/schema';
@@ -69,10 +69,10 @@ export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
     }
     const { docs, issues } = await readLineList(csv.headers, csv.rows);
     if (issues.length > 0) return { kind: 'invalid', status: 422, message: `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`, issues };
-    return { kind: 'line-list', documents: docs, summaries: docs.map((d) => summarizeCheck(checkSpool(d, { findMaterial: find }))) };
+    return { kind: 'line-list', documents: docs, summaries: docs.map((d) => summarizeDocument(d, find)) };
   }
   if (task.kind === 'summaries') {
-    return { kind: 'summaries', summaries: task.documents.map((d) => summarizeCheck(checkSpool(d, { findMaterial: find }))) };
+    return { kind: 'summaries', summaries: task.documents.map((d) => summarizeDocument(d, find)) };
   }
   let document: SpoolDocument;
   if (task.kind === 'check-json') {

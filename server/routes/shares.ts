@@ -148,6 +148,7 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials; chec
         createdAt: shareLinks.createdAt,
         expiresAt: shareLinks.expiresAt,
         revokedAt: shareLinks.revokedAt,
+        createdBy: shareLinks.createdBy,
         documentJson: sql<string>`${shareLinks.document}::text`,
         checkB64: sql<string | null>`encode(${shareLinks.checkGz}, 'base64')`,
       })
@@ -165,7 +166,9 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials; chec
       await deps.db.update(shareLinks).set({ checkGz: check }).where(eq(shareLinks.id, row.id));
     }
     const meta = JSON.stringify({ name: row.name, line: row.line, revision: row.revision, status: row.status });
-    const tail = JSON.stringify({ sharedAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString() });
+    // The name of who made the link (no e-mail, no other team data).
+    const [by] = row.createdBy ? await deps.db.select({ name: user.name }).from(user).where(eq(user.id, row.createdBy)).limit(1) : [];
+    const tail = JSON.stringify({ sharedAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString(), sharedBy: by?.name ?? null });
     const bytes = await deps.checks.shareView(`{"spool":${meta.slice(0, -1)},"document":${row.documentJson}},"check":`, check, `,${tail.slice(1)}`);
     res.type('application/json').send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   });

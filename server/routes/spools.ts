@@ -1,8 +1,8 @@
 import { Router } from 'express';
 import { z } from 'zod';
-import { and, eq, inArray } from 'drizzle-orm';
+import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { teamMembers, user } from '../db/schema';
+import { spoolComments, teamMembers, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, forbidden, notFound, validationError } from '../errors';
 import { countCsvRows, receiveCsv } from '../csv';
@@ -165,6 +165,25 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const ctx = getContext(res);
     if (!can(ctx.role, ACTION_FOR_TARGET[body.to])) throw forbidden(`Your role (${ctx.role ?? 'none'}) cannot move a spool to ${body.to}`);
     const teamId = getTeamId(res);
+    if (body.to === 'checked') {
+      // A spool is not checked while a comment of the revision under check is still open.
+      const before = await getSpool(db, teamId, id);
+      if (!before) throw notFound('Spool not found');
+      const open = await db
+        .select({ id: spoolComments.id, elementId: spoolComments.elementId, body: spoolComments.body })
+        .from(spoolComments)
+        .where(and(eq(spoolComments.spoolId, id), eq(spoolComments.revision, before.revision), isNull(spoolComments.resolvedAt)))
+        .orderBy(asc(spoolComments.id));
+      if (open.length > 0) {
+        const where = open.map((c) => `${c.elementId ?? 'spool'} (“${c.body.length > 40 ? `${c.body.slice(0, 40)}…` : c.body}”)`).join(', ');
+        throw new HttpError(
+          409,
+          'open_comments',
+          `${open.length} comment${open.length === 1 ? ' is' : 's are'} still open on revision ${before.revision}: ${where}. Resolve ${open.length === 1 ? 'it' : 'them'} first.`,
+          { revision: before.revision, comments: open },
+        );
+      }
+    }
     const out = await transitionSpool(db, {
       teamId,
       id,
@@ -183,6 +202,10 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     }
     if (out.kind === 'check_failed') {
       throw new HttpError(409, 'check_failed', 'A spool with failing or invalid elements cannot be released', { summary: out.summary });
+    }
+    if (body.to === 'draft' && body.note) {
+      // The reason for a return is the first comment the designer reads on the revision.
+      await db.insert(spoolComments).values({ spoolId: id, revision: out.revision, elementId: null, body: body.note, userId: ctx.user.id });
     }
     const spool = await getSpool(db, teamId, id);
     if (!spool) throw notFound('Spool not found');

@@ -7,7 +7,7 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { parseSpoolDocument, type FieldIssue } from '../model/spool';
 import { CAUTION } from '../model/caution';
-import { checkSpool, fmt, type ElementCheck, type SpoolCheck } from '../engine/index';
+import { checkSpool, EXTERNAL_BASIS_LABEL, fmt, type ElementCheck, type SpoolCheck } from '../engine/index';
 import { UNIT_LABELS } from '../units/units';
 import { buildCalcSheet, type CalcSheet } from '../report/calc-sheet';
 
@@ -55,7 +55,7 @@ export function formatTable(check: SpoolCheck, doc: { elements: readonly { nps?:
     e.governing ?? '-',
     e.margin === null ? '-' : `${(e.margin * 100).toFixed(1)} %`,
     fmt(e.mawp),
-    e.lightestSchedule ?? '-',
+    e.lightest ? `${e.lightest.names.join(' / ')} (${e.lightest.standard})` : '-',
     e.status.toUpperCase(),
   ]);
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
@@ -64,7 +64,11 @@ export function formatTable(check: SpoolCheck, doc: { elements: readonly { nps?:
   check.elements.forEach((e, i) => {
     out.push(line(rows[i] ?? []));
     if (e.preBend) {
-      out.push(`    before bending: ${fmt(e.preBend.requiredOrderedWall)} ${u.length} ordered wall${e.preBend.orderHeavier ? ` — ORDER HEAVIER${e.preBend.orderSchedule ? ` (schedule ${e.preBend.orderSchedule})` : ''}` : ''}`);
+      out.push(`    before bending: ${fmt(e.preBend.requiredOrderedWall)} ${u.length} ordered wall${e.preBend.orderHeavier ? ` — ORDER HEAVIER${e.preBend.order ? ` (schedule ${e.preBend.order.label})` : ''}` : ''}`);
+    }
+    const ext = e.cases.find((c) => c.case === 'external');
+    if (ext?.allowablePressure !== undefined) {
+      out.push(`    external: allowable ${fmt(ext.allowablePressure)} ${u.pressure} = min(UG-28 ${fmt(ext.allowableUg28 ?? 0)}, VIII-2 4.4.5.1 ${fmt(ext.allowableVIII2 ?? 0)}) — ${EXTERNAL_BASIS_LABEL[ext.allowableBasis ?? 'ug28-elastic']} governs`);
     }
     for (const m of e.messages) if (m.level !== 'info') out.push(`    ${m.level}: ${m.text}`);
   });

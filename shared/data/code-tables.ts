@@ -240,17 +240,49 @@ export const PRE_BEND_SOURCE =
 /** B31.1 Table 102.4.5: bend radius as a multiple of nominal pipe size → factor on tm. "6D or greater": 1.06. */
 export const PRE_BEND_TABLE: readonly TablePoint[] = pts([[3, 1.25], [4, 1.14], [5, 1.08], [6, 1.06]]);
 
+/**
+ * Ratios within this relative distance of a tabulated radius are that radius: R1/NPS computed in
+ * millimetres (3 × 203.2 / 203.2 = 2.9999999999999996) must read the 3D row, not fall off the table.
+ */
+export const PRE_BEND_RATIO_TOLERANCE = 1e-9;
+
 export function preBendFactor(radiusOverNps: number): { value: number | null; source: string; note: string } {
   const first = PRE_BEND_TABLE[0]!;
   const last = PRE_BEND_TABLE[PRE_BEND_TABLE.length - 1]!;
   if (!Number.isFinite(radiusOverNps)) return { value: null, source: PRE_BEND_SOURCE, note: 'bend radius ratio is not a number' };
-  if (radiusOverNps < first.x) {
+  // Snap to a tabulated radius within the tolerance (unit round-off is not a different bend).
+  let x = radiusOverNps;
+  for (const p of PRE_BEND_TABLE) if (Math.abs(x - p.x) <= PRE_BEND_RATIO_TOLERANCE * p.x) x = p.x;
+  if (x < first.x) {
     return { value: null, source: PRE_BEND_SOURCE, note: `below table range: R/NPS ${fmt(radiusOverNps)} is under 3D, the table's tightest radius` };
   }
-  if (radiusOverNps >= last.x) return { value: last.y, source: PRE_BEND_SOURCE, note: '6D or greater' };
-  const r = interpolate(PRE_BEND_TABLE, radiusOverNps)!;
-  const exact = PRE_BEND_TABLE.some((p) => p.x === radiusOverNps);
-  return { value: r.value, source: PRE_BEND_SOURCE, note: exact ? `${fmt(radiusOverNps)}D tabulated` : `interpolated at ${fmt(radiusOverNps)}D` };
+  if (x >= last.x) return { value: last.y, source: PRE_BEND_SOURCE, note: '6D or greater' };
+  const r = interpolate(PRE_BEND_TABLE, x)!;
+  const exact = PRE_BEND_TABLE.some((p) => p.x === x);
+  return { value: r.value, source: PRE_BEND_SOURCE, note: exact ? `${fmt(x)}D tabulated` : `interpolated at ${fmt(radiusOverNps)}D` };
+}
+
+/** Numbers-only form of `preBendFactor` (no strings, no objects): the factor, or null below 3D. */
+export function preBendFactorValue(radiusOverNps: number): number | null {
+  if (!Number.isFinite(radiusOverNps)) return null;
+  const table = PRE_BEND_TABLE;
+  let x = radiusOverNps;
+  for (let i = 0; i < table.length; i++) {
+    const p = table[i]!;
+    if (Math.abs(x - p.x) <= PRE_BEND_RATIO_TOLERANCE * p.x) x = p.x;
+  }
+  if (x < table[0]!.x) return null;
+  const last = table[table.length - 1]!;
+  if (x >= last.x) return last.y;
+  for (let i = 1; i < table.length; i++) {
+    const hi = table[i]!;
+    if (x > hi.x) continue;
+    if (x === hi.x) return hi.y;
+    const lo = table[i - 1]!;
+    // Same arithmetic as interpolate(), so both forms give the same number.
+    return lo.y + (hi.y - lo.y) * ((x - lo.x) / (hi.x - lo.x));
+  }
+  return null;
 }
 
 export const GEOMETRIC_THINNING_SOURCE =

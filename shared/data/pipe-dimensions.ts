@@ -444,8 +444,19 @@ export function getPipeSize(
 export function getPipeWall(nps: string, schedule: string): PipeWall | undefined {
   const n = canonicalNps(nps);
   const s = canonicalSchedule(schedule);
-  return n === undefined || s === undefined ? undefined : WALLS.get(key(n, s));
+  return n === undefined || s === undefined ? undefined : WALLS_BY_NPS.get(n)?.get(s);
 }
+
+/** NPS → schedule → wall, so a lookup builds no key string. */
+const WALLS_BY_NPS: ReadonlyMap<string, ReadonlyMap<string, PipeWall>> = (() => {
+  const out = new Map<string, Map<string, PipeWall>>();
+  for (const w of WALLS.values()) {
+    let m = out.get(w.nps);
+    if (!m) out.set(w.nps, (m = new Map()));
+    m.set(w.schedule, w);
+  }
+  return out;
+})();
 
 /**
  * Every schedule listed for this NPS (both standards), sorted by wall ascending; ties keep a
@@ -459,4 +470,89 @@ export function listPipeWalls(nps: string): PipeWall[] {
 /** NPS numeric value (e.g. 1.5) for a canonical string; NaN when it is not an NPS. */
 export function npsToNumber(nps: string): number {
   return NPS_VALUE.get(nps) ?? parseNpsNumber(nps);
+}
+
+// ---------------------------------------------------------------------------------------
+// Standards and schedule choices
+
+const STAINLESS_SET = new Set(STAINLESS_SCHEDULES);
+
+/**
+ * The dimension standard that lists a schedule: the "S" schedules 5S, 10S, 40S, 80S are
+ * ASME B36.19M; every other designation (10…160, STD, XS, XXS) is ASME B36.10M. A trailing
+ * "S" alone says nothing: XS and XXS are B36.10M weights.
+ */
+export function scheduleStandard(schedule: string): PipeStandard {
+  return STAINLESS_SET.has(schedule) ? 'B36.19M' : 'B36.10M';
+}
+
+/**
+ * One wall of one standard for an NPS, with every schedule name that gives exactly that wall
+ * (e.g. NPS 2 "80" and "XS" in B36.10M). Shared, frozen objects: no allocation per lookup.
+ */
+export interface ScheduleChoice {
+  /** The first name, in the tables' order (numbered before STD/XS/XXS): what "use it" sets. */
+  readonly schedule: string;
+  /** Every name with this wall in this standard, e.g. ["80", "XS"]. */
+  readonly names: readonly string[];
+  readonly standard: PipeStandard;
+  readonly odIn: number;
+  readonly odMm: number;
+  readonly wallIn: number;
+  readonly wallMm: number;
+  /** "80 / XS (ASME B36.10M)". */
+  readonly label: string;
+}
+
+function buildChoices(): Record<PipeStandard, Map<string, readonly ScheduleChoice[]>> {
+  const out: Record<PipeStandard, Map<string, readonly ScheduleChoice[]>> = { 'B36.10M': new Map(), 'B36.19M': new Map() };
+  for (const [nps, walls] of WALL_LISTS) {
+    for (const standard of ['B36.10M', 'B36.19M'] as const) {
+      const own = walls.filter((w) => w.standard === standard);
+      const choices: ScheduleChoice[] = [];
+      for (let i = 0; i < own.length; ) {
+        const first = own[i]!;
+        const names: string[] = [];
+        let j = i;
+        while (j < own.length && own[j]!.wallIn === first.wallIn) names.push(own[j++]!.schedule);
+        choices.push(
+          Object.freeze({
+            schedule: first.schedule,
+            names: Object.freeze(names),
+            standard,
+            odIn: first.odIn,
+            odMm: first.odMm,
+            wallIn: first.wallIn,
+            wallMm: first.wallMm,
+            label: `${names.join(' / ')} (ASME ${standard})`,
+          }),
+        );
+        i = j;
+      }
+      out[standard].set(nps, Object.freeze(choices));
+    }
+  }
+  return out;
+}
+
+const CHOICES = buildChoices();
+const NO_CHOICES: readonly ScheduleChoice[] = Object.freeze([]);
+
+/**
+ * The walls one standard lists for a canonical NPS, lightest first, equal walls merged into one
+ * choice that names them all. Empty when the standard does not list the size. Scope
+ * [ASME B36.10M / B36.19M]: B36.10M lists 10…160, STD, XS, XXS; B36.19M lists 5S, 10S, 40S, 80S.
+ */
+export function listScheduleChoices(nps: string, standard: PipeStandard): readonly ScheduleChoice[] {
+  return CHOICES[standard].get(nps) ?? NO_CHOICES;
+}
+
+/** True when the string is already a canonical NPS (a fast check before `normalizeNps`). */
+export function isCanonicalNps(nps: string): boolean {
+  return NPS_VALUE.has(nps);
+}
+
+/** True when the string is already a canonical schedule (a fast check before `normalizeSchedule`). */
+export function isCanonicalSchedule(schedule: string): boolean {
+  return SCHEDULE_SET.has(schedule);
 }

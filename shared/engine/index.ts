@@ -1,9 +1,9 @@
 /** The check engine's public surface: the only barrel of shared/engine. */
-export { checkSpool, createSpoolChecker, worseStatus } from './check-spool';
-export type { CheckOptions } from './check-spool';
-export { checkElement, MARGINAL_LIMIT } from './check-element';
-export { resolveElement } from './resolve';
-export type { MaterialFinder, ResolvedElement } from './resolve';
+export { checkSpool, checkSpoolFigures, createSpoolChecker, explainElement, visitSpoolFigures, worseStatus } from './check-spool';
+export type { CheckOptions, SpoolFiguresSummary } from './check-spool';
+export { checkElement, checkElementFigures, figuresOf, MARGINAL_LIMIT } from './check-element';
+export { resolveElement, SPOOL_STRESS_CODE } from './resolve';
+export type { MaterialFinder, ResolveCache, ResolvedElement } from './resolve';
 export {
   bendThickness,
   extradosFactor,
@@ -14,6 +14,6 @@ export {
   straightThicknessFromId,
   thickWallY,
 } from './equations';
-export { externalAllowable, factorA, minimumExternalWall } from './external';
+export { EXTERNAL_BASIS_LABEL, externalAllowable, externalAllowablePressure, factorA, minimumExternalWall } from './external';
 export { fmt } from './format';
 export * from './types';

@@ -1,4 +1,9 @@
 import type { ElementKind, FieldIssue, UnitSystem } from '../model/spool';
+import type { ScheduleChoice } from '../data/pipe-dimensions';
+import type { ExternalBasis } from './external';
+
+export type { ScheduleChoice } from '../data/pipe-dimensions';
+export type { ExternalBasis } from './external';
 
 /** Result status of one element. `invalid`: inputs could not be resolved (see `inputIssues`). */
 export type CheckStatus = 'pass' | 'marginal' | 'fail' | 'review' | 'invalid';
@@ -43,8 +48,16 @@ export interface CaseResult {
   readonly tm: number;
   /** Ordered nominal wall needed for this case: tm / (1 − tol) or tm + fixed under-tolerance. */
   readonly requiredNominalWall: number;
-  /** External case: allowable external pressure of the chosen wall (pressure units). */
+  /** External case: allowable external pressure of the chosen wall (pressure units): min(UG-28, VIII-2). */
   readonly allowablePressure?: number;
+  /** External case: the chosen wall's UG-28 value (elastic 2·A·E/(3·Do/t); Do/t < 10 the UG-28(c)(2) rules) [from memory]. */
+  readonly allowableUg28?: number;
+  /** External case: the chosen wall's VIII-2 4.4.5.1 closed-form value [from memory]. */
+  readonly allowableVIII2?: number;
+  /** External case: which relation gives the chosen wall's allowable. */
+  readonly allowableBasis?: ExternalBasis;
+  /** External case: which relation governs at the minimum wall t. */
+  readonly minimumWallBasis?: ExternalBasis;
   /** Equation id of the governing equation for t. */
   readonly equation: string;
   readonly trail: readonly TrailStep[];
@@ -78,6 +91,8 @@ export interface PreBendResult {
   readonly orderHeavier: boolean;
   /** Lightest schedule whose nominal wall meets requiredOrderedWall (null if none). */
   readonly orderSchedule: string | null;
+  /** The same choice with every name of that wall and its standard (null if none). */
+  readonly order: ScheduleChoice | null;
   readonly trail: readonly TrailStep[];
 }
 
@@ -96,7 +111,14 @@ export interface ElementCheck {
   /** (nominalWall − requiredNominalWall) / requiredNominalWall; negative when failing; null when nothing is required. */
   readonly margin: number | null;
   readonly governing: CaseName | null;
+  /**
+   * Lightest passing schedule of the element's own standard (B36.10M: 10…160, STD, XS, XXS;
+   * B36.19M: 5S, 10S, 40S, 80S; stainless falls back to B36.10M walls). The first name only:
+   * what "use it" sets. Offered for `review` elements too.
+   */
   readonly lightestSchedule: string | null;
+  /** The same choice with every name of that wall ("80 / XS") and its standard. */
+  readonly lightest: ScheduleChoice | null;
   /** Maximum allowable internal working pressure of the chosen wall (pressure units). */
   readonly mawp: number;
   readonly preBendWall?: number;
@@ -122,6 +144,42 @@ export interface SpoolCheck {
   readonly elements: readonly ElementCheck[];
   readonly summary: CheckSummary;
   /** Worst status over the elements (invalid > fail > review > marginal > pass). */
+  readonly worst: CheckStatus | null;
+  readonly caution: string;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Numbers-only results (the fast path): the same numbers as the full results, no trail, no text.
+// ---------------------------------------------------------------------------------------------
+
+export type CaseFigures = Omit<CaseResult, 'trail'>;
+export type PreBendFigures = Omit<PreBendResult, 'trail'>;
+
+export interface ElementFigures {
+  readonly id: string;
+  readonly kind: ElementKind;
+  readonly index: number;
+  readonly status: CheckStatus;
+  readonly outsideDiameter: number;
+  readonly nominalWall: number;
+  readonly minimumWall: number;
+  readonly requiredNominalWall: number;
+  readonly margin: number | null;
+  readonly governing: CaseName | null;
+  readonly lightestSchedule: string | null;
+  readonly lightest: ScheduleChoice | null;
+  readonly mawp: number;
+  readonly preBendWall?: number;
+  readonly preBend?: PreBendFigures;
+  readonly cases: readonly CaseFigures[];
+  /** The message codes of the full result, each once, in order of first appearance. */
+  readonly codes: readonly string[];
+}
+
+export interface SpoolFigures {
+  readonly units: UnitSystem;
+  readonly elements: readonly ElementFigures[];
+  readonly summary: CheckSummary;
   readonly worst: CheckStatus | null;
   readonly caution: string;
 }

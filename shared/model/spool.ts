@@ -173,6 +173,21 @@ export const ABSOLUTE_ZERO: Readonly<Record<UnitSystem, { value: number; label: 
   metric: { value: -273.15, label: '−273.15 °C' },
 };
 
+/** Hydrotest temperature when the spool gives none: 70 °F / 21 °C (ambient shop test, common practice). */
+export const DEFAULT_TEST_TEMPERATURE = { imperial: 70, metric: 21 } as const;
+
+/**
+ * Shop settings of the spool (fabrication sheet): both optional, with defaults.
+ * `testTemperature`: metal temperature at the hydrotest (°F | °C), default 70 °F / 21 °C;
+ * `bendTangent`: straight pipe the shop adds at each end of a bend for the bending machine
+ * (in | mm), cut off after bending, default 0.
+ */
+export const shopSettingsSchema = z.object({
+  testTemperature: finite().optional(),
+  bendTangent: nonNegative().optional(),
+});
+export type ShopSettings = z.infer<typeof shopSettingsSchema>;
+
 export const spoolDocumentSchema = z
   .object({
     units: unitSystemSchema,
@@ -184,6 +199,8 @@ export const spoolDocumentSchema = z
     origin: pointSchema.optional(),
     /** Default bend radius for new bends in the sketcher. */
     defaultBendRadius: bendRadiusSchema.optional(),
+    /** Shop settings for the fabrication sheet (test temperature, bending tangent). */
+    shop: shopSettingsSchema.optional(),
     elements: z.array(spoolElementSchema).max(20_000, 'at most 20,000 elements'),
   })
   .superRefine((doc, ctx) => {
@@ -216,6 +233,7 @@ export interface SpoolDocument {
   readonly conditions: Conditions;
   readonly origin?: { x: number; y: number; z: number };
   readonly defaultBendRadius?: BendRadius;
+  readonly shop?: ShopSettings;
   readonly elements: readonly SpoolElement[];
 }
 

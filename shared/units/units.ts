@@ -59,3 +59,39 @@ export function convert(value: number, quantity: Quantity, from: UnitSystem, to:
       return temperatureFromF(temperatureToF(value, from), to);
   }
 }
+
+/** kg per lb (exact, by definition of the international pound). */
+export const KG_PER_LB = 0.45359237;
+/** mm per ft and mm per m, for masses per length. */
+export const MM_PER_FT = 12 * MM_PER_IN;
+
+export interface MassLabels {
+  /** Mass unit: lb | kg. */
+  readonly mass: string;
+  /** Long length unit for runs of pipe: ft | m. */
+  readonly run: string;
+  /** Mass per long length: lb/ft | kg/m. */
+  readonly massPerRun: string;
+}
+
+export const MASS_LABELS: Record<UnitSystem, MassLabels> = {
+  imperial: { mass: 'lb', run: 'ft', massPerRun: 'lb/ft' },
+  metric: { mass: 'kg', run: 'm', massPerRun: 'kg/m' },
+};
+
+/** Mass in kg → document units (lb | kg). */
+export function massFromKg(kg: number, units: UnitSystem): number {
+  return units === 'imperial' ? kg / KG_PER_LB : kg;
+}
+/** Length in document units → millimetres. */
+export function lengthToMm(value: number, units: UnitSystem): number {
+  return lengthToInches(value, units) * MM_PER_IN;
+}
+/** Document length units (in | mm) per long run unit (ft | m). */
+export function lengthPerRun(units: UnitSystem): number {
+  return units === 'imperial' ? 12 : 1000;
+}
+/** Density in kg/m³ → lb/in³. */
+export function densityToLbPerIn3(kgPerM3: number): number {
+  return (kgPerM3 / KG_PER_LB) * (MM_PER_IN / 1000) ** 3;
+}

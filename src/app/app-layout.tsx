@@ -1,6 +1,10 @@
+import { lazy, Suspense } from 'react';
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { useMe } from '@/features/auth/api/get-me';
 import { cn } from '@/lib/cn';
+
+// The count's query and schemas load with their own chunk, not with the shell.
+const WaitingCount = lazy(() => import('@/features/review/components/waiting-list').then((m) => ({ default: m.WaitingCount })));
 
 const roleLabel: Record<string, string> = {
   designer: 'Designer',
@@ -15,8 +19,8 @@ export function AppLayout() {
   const { data: me } = useMe();
   const navigate = useNavigate();
   return (
-    <div className="flex h-screen flex-col font-sans">
-      <header className="flex h-11 shrink-0 items-center gap-4 border-b border-steel-700 bg-steel-800 px-4 text-steel-100">
+    <div className="flex h-screen flex-col font-sans print:block print:h-auto">
+      <header className="flex h-11 shrink-0 print:hidden items-center gap-4 border-b border-steel-700 bg-steel-800 px-4 text-steel-100">
         <Link to="/spools" className="flex items-center gap-2 text-base font-semibold tracking-wide text-white">
           <span aria-hidden className="inline-block h-3 w-3 rotate-45 border-2 border-copper-400" />
           Spoolwright
@@ -29,6 +33,11 @@ export function AppLayout() {
           >
             Spool register
           </NavLink>
+          {me?.role ? (
+            <Suspense fallback={null}>
+              <WaitingCount />
+            </Suspense>
+          ) : null}
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm" data-testid="whoami">
           {me ? (
@@ -49,7 +58,7 @@ export function AppLayout() {
           </button>
         </div>
       </header>
-      <div className="min-h-0 flex-1">
+      <div className="min-h-0 flex-1 print:min-h-fit">
         <Outlet />
       </div>
     </div>

@@ -46,6 +46,15 @@ export function createAppRouter() {
       errorElement: <RouteErrorView />,
     },
     {
+      // Public: a share link opens without an account (outside RequireSignedIn).
+      path: '/share/:token',
+      lazy: page(
+        () => import('@/features/share/components/public-share-page'),
+        (m) => m.PublicSharePage,
+      ),
+      errorElement: <RouteErrorView />,
+    },
+    {
       path: '/sign-out',
       lazy: page(
         () => import('@/features/auth/components/sign-out-page'),
@@ -82,6 +91,20 @@ export function createAppRouter() {
                 <Suspense fallback={<LoadingLine label="Opening the calc sheet…" />}>
                   <CalcSheetPage />
                 </Suspense>
+              ),
+            },
+            {
+              path: '/spools/:spoolId/fabrication',
+              lazy: page(
+                () => import('@/features/fabrication/components/fabrication-page'),
+                (m) => m.FabricationPage,
+              ),
+            },
+            {
+              path: '/spools/:spoolId/revisions/:rev',
+              lazy: page(
+                () => import('@/features/review/components/revision-page'),
+                (m) => m.RevisionPage,
               ),
             },
             { path: '*', element: <Navigate to="/spools" replace /> },

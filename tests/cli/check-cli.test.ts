@@ -112,3 +112,41 @@ describe('headless checker contract (in process)', () => {
     expect(runCheck(['--yaml', 'a.json'], () => '').code).toBe(2);
   });
 });
+
+describe('checker table: lightest schedule, external pressure, material vs spool stress (in-process)', () => {
+  const doc = {
+    units: 'imperial',
+    conditions: { pressure: 2800, temperature: 100, material: 'A106-B', allowableStress: 20000, externalPressure: 14.7, elasticModulus: 29e6, yieldStrength: 35000 },
+    elements: [
+      { id: 'S1', kind: 'straight', nps: '2', schedule: '10', length: 40 },
+      { id: 'S2', kind: 'straight', nps: '2', schedule: '80', length: 40, conditions: { material: 'A312-TP316L' } },
+    ],
+  };
+  const result = runCheck(['spool.json'], () => JSON.stringify(doc));
+
+  it('names both schedule names of an equal wall and the standard (ASME B36.10M: NPS 2 Sch 80 = XS)', () => {
+    expect(result.stdout).toMatch(/S1 .*80 \/ XS \(B36\.10M\)/);
+  });
+  it('prints both external-pressure values and which governs, labelled from memory (UG-28 / VIII-2 4.4.5.1)', () => {
+    expect(result.stdout).toContain('min(UG-28');
+    expect(result.stdout).toContain('VIII-2 4.4.5.1');
+    expect(result.stdout).toMatch(/governs/);
+    expect(result.stdout).toContain('from memory');
+  });
+  it('prints the material-vs-spool-stress warning under the element that overrides its material', () => {
+    const lines = result.stdout.split('\n');
+    const at = lines.findIndex((l) => l.startsWith('S2 '));
+    const below = lines.slice(at + 1, at + 8).join('\n');
+    expect(below).toContain('warning: this element\'s material A312-TP316L differs from the spool\'s');
+  });
+  it('the JSON carries the structured choice and the message code', () => {
+    const json = runCheck(['--json', 'spool.json'], () => JSON.stringify(doc));
+    const check = JSON.parse(json.stdout) as { elements: { lightest: { names: string[]; standard: string }; messages: { code: string }[]; cases: { case: string; allowableUg28?: number; allowableVIII2?: number; allowableBasis?: string }[] }[] };
+    expect(check.elements[0]?.lightest).toMatchObject({ names: ['80', 'XS'], standard: 'B36.10M' });
+    expect(check.elements[1]?.messages.map((m) => m.code)).toContain('material-vs-spool-stress');
+    const ext = check.elements[0]?.cases.find((c) => c.case === 'external');
+    expect(ext?.allowableUg28).toBeGreaterThan(0);
+    expect(ext?.allowableVIII2).toBeGreaterThan(0);
+    expect(ext?.allowableBasis).toMatch(/ug28|viii2/);
+  });
+});

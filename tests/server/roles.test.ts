@@ -91,6 +91,7 @@ const ROUTES: RouteCase[] = [
   { name: 'GET /api/spools/:id/revisions/:rev', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/revisions/0` }) },
   { name: 'GET /api/spools/:id/events', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/events` }) },
   { name: 'GET /api/spools/:id/calc-sheet.pdf', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/calc-sheet.pdf?revision=0` }) },
+  { name: 'GET /api/waiting (waiting on me)', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/waiting' }) },
   { name: 'GET /api/spools/:id/comments', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: `/api/spools/${fixed.spoolId}/comments` }) },
   {
     name: 'POST /api/spools/:id/comments (comment on elements)',

@@ -38,7 +38,7 @@ export async function spawnServer(dataDir: string, opts: { port?: number; env?: 
           reject(new Error(`server exited (${code}) before it was ready: ${out}`));
         });
       }),
-      new Promise<void>((_, reject) => setTimeout(() => reject(new Error(`server not ready in 30 s: ${out}`)), 30_000)),
+      new Promise<void>((_, reject) => setTimeout(() => reject(new Error(`server not ready in 120 s: ${out}`)), 120_000)),
     ]);
   }
   return proc;

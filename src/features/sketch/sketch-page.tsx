@@ -1,4 +1,4 @@
-import { useEffect, useMemo, useState } from 'react';
+import { useCallback, useEffect, useMemo, useState } from 'react';
 import { useParams, useSearchParams } from 'react-router-dom';
 import { useQueryClient } from '@tanstack/react-query';
 import { createMaterialLookup } from '@shared/data/materials';
@@ -25,25 +25,50 @@ import { ElementTable } from './components/element-table';
 import { LeaveGuard, useDocumentTitle } from './components/leave-guard';
 import { MaterialChoicesProvider, toMaterialChoices } from './components/material-choices';
 import { SpoolBar } from './components/spool-bar';
+import { CommentBadgesProvider } from './canvas/comment-badges-context';
+import { Button } from '@/components/ui/button';
+import { useComments } from '@/features/review/api/get-comments';
+import { HistoryPanel } from '@/features/review/components/history-panel';
+import { countOpenByElement, ReviewPanel } from '@/features/review/components/review-panel';
+import { ShareDialog } from '@/features/share/components/share-dialog';
+import type { CheckOptions } from '@shared/engine';
 
-function SketchScreen({ spool }: { spool: Spool }) {
+type InspectorTab = 'element' | 'conditions' | 'review' | 'history';
+
+function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initialTab: InspectorTab; checkOptions: CheckOptions | undefined }) {
   const api = useSpoolStoreApi();
   const qc = useQueryClient();
   const role = useRole();
   const canEdit = can(role, 'spool:edit');
+  const canComment = can(role, 'spool:comment');
+  const canShare = can(role, 'share:manage');
+  const [sharing, setSharing] = useState(false);
+  const comments = useComments(spool.id);
+  const openByElement = useMemo(() => countOpenByElement(comments.data ?? []), [comments.data]);
+  const openCount = useMemo(() => (comments.data ?? []).filter((c) => c.resolvedAt === null).length, [comments.data]);
   const doc = useSpoolStore((s) => s.doc);
   const isDirty = useSpoolStore((s) => s.isDirty);
   const selectedId = useSpoolStore((s) => s.selectedId);
   const check = useSpoolCheck();
   const [displayUnits, setDisplayUnits] = useState<UnitSystem>(() => readStoredDisplayUnits() ?? spool.document.units);
-  const [tab, setTab] = useState<'element' | 'conditions'>('element');
+  const [tab, setTab] = useState<InspectorTab>(initialTab);
+  // Stable, so the element list keeps its columns between renders.
+  const selectElement = useCallback((id: string) => api.getState().select(id), [api]);
+  const openThread = useCallback(
+    (id: string) => {
+      api.getState().select(id);
+      setTab('review');
+    },
+    [api],
+  );
   const [conflict, setConflict] = useState<{ mine: SpoolDocument; current: Spool } | null>(null);
   const [importIssues, setImportIssues] = useState<FieldIssue[] | null>(null);
   const update = useUpdateSpool();
   useDocumentTitle(`${doc.name || 'Spool'}${isDirty ? ' (unsaved)' : ''} · Spoolwright`);
 
   useEffect(() => {
-    if (selectedId) setTab('element');
+    // Selecting shows the element, except while reading its review thread.
+    if (selectedId) setTab((t) => (t === 'conditions' ? 'element' : t));
   }, [selectedId]);
 
   const save = () => {
@@ -98,7 +123,15 @@ function SketchScreen({ spool }: { spool: Spool }) {
           onSave={save}
           saving={update.isPending}
           onImportIssues={setImportIssues}
+          actions={
+            canShare ? (
+              <Button size="sm" onClick={() => setSharing(true)} title="Read-only links for people without an account">
+                Share…
+              </Button>
+            ) : null
+          }
         />
+        {sharing ? <ShareDialog spoolId={spool.id} spoolName={spool.name || doc.name || 'spool'} currentRevision={spool.revision} onClose={() => setSharing(false)} /> : null}
         {conflict ? <ConflictPanel mine={conflict.mine} current={conflict.current} onReload={reloadTheirs} onKeepEditing={keepMine} /> : null}
         {saveError ? (
           <div className="px-3 py-1">
@@ -124,12 +157,14 @@ function SketchScreen({ spool }: { spool: Spool }) {
         <div className="flex min-h-0 flex-1">
           <div className="flex min-w-0 flex-1 flex-col">
             <div className="relative min-h-0 flex-1">
-              <CanvasSlot />
+              <CommentBadgesProvider counts={openByElement} onOpen={openThread}>
+                <CanvasSlot />
+              </CommentBadgesProvider>
               <CanvasTools />
             </div>
             <CautionNote className="shrink-0 rounded-none border-t border-steel-200" />
             <div className="h-56 shrink-0 border-t border-steel-200 bg-white">
-              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={(id) => api.getState().select(id)} />
+              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={selectElement} markers={openByElement} onMarker={openThread} />
             </div>
           </div>
           <aside className="flex w-[26rem] shrink-0 flex-col border-l border-steel-200 bg-white" aria-label="Inspector">
@@ -138,6 +173,8 @@ function SketchScreen({ spool }: { spool: Spool }) {
                 [
                   ['element', 'Selected element'],
                   ['conditions', 'Design conditions'],
+                  ['review', openCount > 0 ? `Review (${openCount})` : 'Review'],
+                  ['history', 'History'],
                 ] as const
               ).map(([id, label]) => (
                 <button
@@ -146,13 +183,27 @@ function SketchScreen({ spool }: { spool: Spool }) {
                   role="tab"
                   aria-selected={tab === id}
                   onClick={() => setTab(id)}
-                  className={cn('flex-1 px-3 py-2', tab === id ? 'border-b-2 border-copper-500 font-semibold text-steel-900' : 'text-steel-500 hover:text-steel-800')}
+                  className={cn('flex-1 px-1.5 py-2 text-[13px]', tab === id ? 'border-b-2 border-copper-500 font-semibold text-steel-900' : 'text-steel-500 hover:text-steel-800')}
                 >
                   {label}
                 </button>
               ))}
             </div>
-            <div role="tabpanel" aria-label={tab === 'element' ? 'Selected element' : 'Design conditions'} className="min-h-0 flex-1 overflow-auto">{tab === 'element' ? <ElementInspector readOnly={!canEdit} /> : <ConditionsPanel readOnly={!canEdit} />}</div>
+            <div role="tabpanel" aria-label={TAB_LABELS[tab]} className="min-h-0 flex-1 overflow-auto">
+              {tab === 'element' ? <ElementInspector readOnly={!canEdit} /> : null}
+              {tab === 'conditions' ? <ConditionsPanel readOnly={!canEdit} /> : null}
+              {tab === 'review' ? (
+                <ReviewPanel
+                  spoolId={spool.id}
+                  revision={spool.revision}
+                  elementIds={doc.elements.map((e) => e.id)}
+                  selectedId={selectedId}
+                  onSelectElement={(id) => api.getState().select(id)}
+                  canComment={canComment}
+                />
+              ) : null}
+              {tab === 'history' ? <HistoryPanel spoolId={spool.id} checkOptions={checkOptions} /> : null}
+            </div>
           </aside>
         </div>
       </div>
@@ -160,7 +211,9 @@ function SketchScreen({ spool }: { spool: Spool }) {
   );
 }
 
-function SketchWorkspace({ initial, selectId }: { initial: Spool; selectId: string | null }) {
+const TAB_LABELS: Record<InspectorTab, string> = { element: 'Selected element', conditions: 'Design conditions', review: 'Review', history: 'History' };
+
+function SketchWorkspace({ initial, selectId, initialTab }: { initial: Spool; selectId: string | null; initialTab: InspectorTab }) {
   const [store] = useState<SpoolStore>(() => {
     const s = createSpoolStore(initial.document);
     s.getState().load(initial.document, initial.version);
@@ -181,7 +234,7 @@ function SketchWorkspace({ initial, selectId }: { initial: Spool; selectId: stri
   return (
     <SpoolStoreProvider store={store} checkOptions={checkOptions}>
       <MaterialChoicesProvider choices={choices}>
-        <SketchScreen spool={spool} />
+        <SketchScreen spool={spool} initialTab={initialTab} checkOptions={checkOptions} />
       </MaterialChoicesProvider>
     </SpoolStoreProvider>
   );
@@ -199,5 +252,8 @@ export function SketchPage() {
         <ErrorLine error={query.error} />
       </div>
     );
-  return <SketchWorkspace key={query.data.id} initial={query.data} selectId={params.get('element')} />;
+  // `?panel=review` (from the waiting list) opens the review thread beside the inspector.
+  const panel = params.get('panel');
+  const initialTab: InspectorTab = panel === 'review' || panel === 'history' ? panel : 'element';
+  return <SketchWorkspace key={query.data.id} initial={query.data} selectId={params.get('element')} initialTab={initialTab} />;
 }

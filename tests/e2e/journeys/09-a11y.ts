@@ -26,7 +26,7 @@ interface AxeViolation {
 }
 
 /** Run axe on the page as it stands; returns the serious and critical violations, described. */
-async function seriousViolations(page: Page): Promise<string[]> {
+export async function seriousViolations(page: Page): Promise<string[]> {
   await page.addScriptTag({ path: AXE_PATH });
   const violations = await page.evaluate(async () => {
     const axe = (
@@ -91,11 +91,23 @@ async function signInByForm(page: Page, base: string, email: string): Promise<vo
 
 /** Pages each role can open, as paths with `:spool` standing for a demo spool's id. */
 export const ROLE_PAGES: Record<string, readonly string[]> = {
-  designer: ['/spools', '/spools/:spool'],
-  checker: ['/spools', '/spools/:spool', '/spools/:spool/calc-sheet'],
-  fabricator: ['/spools', '/spools/:spool'],
-  lead: ['/spools', '/spools/:spool'],
-  admin: ['/spools', '/spools/:spool'],
+  designer: [
+    '/spools',
+    '/spools/:spool',
+    '/spools/:spool?panel=history',
+    '/spools/:spool/revisions/0',
+    '/spools/:spool/fabrication',
+  ],
+  checker: [
+    '/spools',
+    '/spools/:spool',
+    '/spools/:spool/calc-sheet',
+    '/spools/:spool?panel=review',
+    '/spools/:spool/fabrication',
+  ],
+  fabricator: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
+  lead: ['/spools', '/spools/:spool', '/spools/:spool?panel=review', '/spools/:spool/fabrication'],
+  admin: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
 };
 
 const STEPS = [

@@ -8,6 +8,7 @@ import { useDisplayUnits } from '../components/display-units';
 import { LabelOverlay, LabelProjector, dimensionLabels } from './dimension-labels';
 import { CHUNK_SIZE, ElementChunk, itemKey, type ChunkItem } from './element-chunks';
 import { HighlightMesh, SelectionOutline } from './element-mesh';
+import { CommentBadgeOverlay, CommentBadgeProjector } from './comment-badges';
 import { EndMarkers } from './end-markers';
 import { GridAndAxes, axisLabels } from './grid-and-axes';
 import { meshSpecOf, sceneScale } from './scene-math';
@@ -180,11 +181,13 @@ export function SketchCanvas({
             <GridAndAxes bbox={path.bbox} />
           </group>
           <LabelProjector labels={labels} registry={registry} scale={scale} />
+          <CommentBadgeProjector path={path} scale={scale} />
           <AdaptiveDpr pixelated />
           <OrbitControls makeDefault enableDamping={false} regress />
           <ViewController path={path} scale={scale} fitRequest={view.fitRequest} focus={view.focus} store={store} />
         </Canvas>
         <LabelOverlay labels={labels} registry={registry} />
+        <CommentBadgeOverlay />
       </div>
     </div>
   );

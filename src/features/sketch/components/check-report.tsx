@@ -1,4 +1,5 @@
 import type { CaseResult, ElementCheck, TrailStep } from '@shared/engine/types';
+import { EXTERNAL_BASIS_LABEL } from '@shared/engine';
 import { Button } from '@/components/ui/button';
 import { CheckBadge } from '@/components/ui/status-badge';
 import { formatNumber, formatPercent } from '@/lib/format';
@@ -137,6 +138,7 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
   const units = useDisplayUnits();
   const len = useLen();
   const governingCase = check.cases.find((c) => c.case === check.governing);
+  const externalCase = check.cases.find((c) => c.case === 'external');
   const pressure = (v: number) => `${formatNumber(units.toDisplay(v, 'pressure'))} ${units.label('pressure')}`;
   const canUse = check.lightestSchedule !== null && check.lightestSchedule !== schedule;
   return (
@@ -168,7 +170,22 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
           {formatPercent(check.margin)}
         </Row>
         <Row label="MAWP of chosen wall">{pressure(check.mawp)}</Row>
-        {governingCase?.allowablePressure !== undefined ? <Row label="allowable external pressure">{pressure(governingCase.allowablePressure)}</Row> : null}
+        {externalCase?.allowablePressure !== undefined ? (
+          <>
+            <Row label="allowable external pressure (lower of the two)" testId="external-allowable" strong>
+              {pressure(externalCase.allowablePressure)}
+            </Row>
+            <Row label="UG-28 value (from memory)" testId="external-ug28">
+              {pressure(externalCase.allowableUg28 ?? 0)}
+            </Row>
+            <Row label="VIII-2 4.4.5.1 value (from memory)" testId="external-viii2">
+              {pressure(externalCase.allowableVIII2 ?? 0)}
+            </Row>
+            <Row label="governs" testId="external-basis">
+              {EXTERNAL_BASIS_LABEL[externalCase.allowableBasis ?? 'ug28-elastic']}
+            </Row>
+          </>
+        ) : null}
       </dl>
       <div className="flex items-center justify-between gap-2 rounded border border-steel-200 bg-white p-2">
         <div className="text-xs text-steel-600">
@@ -176,6 +193,11 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
           <strong data-testid="lightest-schedule" className="text-sm text-steel-900">
             {check.lightestSchedule ?? 'none listed passes'}
           </strong>
+          {check.lightest ? (
+            <span data-testid="lightest-standard" className="ml-1">
+              {check.lightest.names.length > 1 ? `(= ${check.lightest.names.slice(1).join(' / ')}) ` : ''}ASME {check.lightest.standard}
+            </span>
+          ) : null}
         </div>
         {onUseSchedule && !readOnly && check.lightestSchedule !== null ? (
           <Button size="sm" variant="primary" disabled={!canUse} onClick={() => onUseSchedule(check.lightestSchedule!)}>
@@ -199,7 +221,7 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
             </Row>
             <Row label="order">
               {check.preBend.orderHeavier ? (
-                <span className="font-semibold text-red-700">heavier: {check.preBend.orderSchedule ?? 'no listed schedule'}</span>
+                <span className="font-semibold text-red-700">heavier: {check.preBend.order?.label ?? check.preBend.orderSchedule ?? 'no listed schedule'}</span>
               ) : (
                 'chosen schedule is enough'
               )}
@@ -212,6 +234,7 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
           {check.messages.map((m, i) => (
             <li
               key={i}
+              data-code={m.code}
               className={cn(
                 'rounded px-2 py-1',
                 m.level === 'error' ? 'bg-red-50 text-red-800' : m.level === 'warning' ? 'bg-amber-50 text-amber-900' : 'bg-steel-100 text-steel-700',

@@ -3,11 +3,14 @@ import type { Conditions } from '@shared/model/spool';
 import { CautionNote } from '@/components/ui/caution-note';
 import { useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
 import { ConditionsForm } from './conditions-form';
+import { ShopSettingsForm } from './shop-settings-form';
 
 /** Spool-wide design conditions, applied as one undo step. */
 export function ConditionsPanel({ readOnly }: { readOnly: boolean }) {
   const api = useSpoolStoreApi();
   const conditions = useSpoolStore((s) => s.doc.conditions);
+  const shop = useSpoolStore((s) => s.doc.shop);
+  const docUnits = useSpoolStore((s) => s.doc.units);
   const [refusal, setRefusal] = useState<string | null>(null);
   const apply = (next: Conditions) => {
     const patch: Record<string, unknown> = {};
@@ -25,6 +28,15 @@ export function ConditionsPanel({ readOnly }: { readOnly: boolean }) {
         </p>
       ) : null}
       <ConditionsForm conditions={conditions} onApply={apply} readOnly={readOnly} />
+      <ShopSettingsForm
+        settings={shop}
+        docUnits={docUnits}
+        readOnly={readOnly}
+        onApply={(next) => {
+          const r = api.getState().setShopSettings(next);
+          return r.ok ? null : r.message;
+        }}
+      />
       <CautionNote />
     </div>
   );

@@ -45,3 +45,39 @@ export function diffDocuments(mine: SpoolDocument, theirs: SpoolDocument): Docum
   if (!same(commonMine, commonTheirs)) out.push({ target: 'spool', change: 'changed', fields: ['elements order'] });
   return out;
 }
+
+/** One field that differs: its path (nested fields joined by dots) and both values. */
+export interface FieldChange {
+  readonly field: string;
+  readonly before: unknown;
+  readonly after: unknown;
+}
+
+const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+
+/**
+ * Field-level differences from `before` to `after`: nested objects are walked (`conditions.pressure`,
+ * `bendRadius.multipleOfD`), arrays and scalars compared whole. A field missing on one side has
+ * `undefined` there. Sorted by path.
+ */
+export function diffFields(before: unknown, after: unknown, prefix = ''): FieldChange[] {
+  if (isPlainObject(before) && isPlainObject(after)) {
+    const out: FieldChange[] = [];
+    for (const k of [...new Set([...Object.keys(before), ...Object.keys(after)])].sort()) {
+      out.push(...diffFields(before[k], after[k], prefix ? `${prefix}.${k}` : k));
+    }
+    return out;
+  }
+  if (same(before, after)) return [];
+  if (isPlainObject(before) || isPlainObject(after)) {
+    // An object on one side only: list its fields against nothing, so each reads "— → value".
+    const obj = (isPlainObject(before) ? before : after) as Record<string, unknown>;
+    const other = isPlainObject(before) ? after : before;
+    if (other === undefined) {
+      return Object.keys(obj)
+        .sort()
+        .flatMap((k) => diffFields(isPlainObject(before) ? obj[k] : undefined, isPlainObject(after) ? obj[k] : undefined, prefix ? `${prefix}.${k}` : k));
+    }
+  }
+  return [{ field: prefix || '(value)', before, after }];
+}

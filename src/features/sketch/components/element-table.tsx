@@ -36,10 +36,14 @@ export interface ElementTableProps {
   readonly checks: readonly ElementCheck[];
   readonly selectedId: string | null;
   readonly onSelect: (id: string) => void;
+  /** Open review comments per element: a marker beside the element id. */
+  readonly markers?: ReadonlyMap<string, number> | undefined;
+  /** A marker was clicked (after the row is selected): open the element's thread. */
+  readonly onMarker?: ((id: string) => void) | undefined;
 }
 
 /** Every element of the spool with its check; follows and drives the canvas selection. */
-export function ElementTable({ elements, checks, selectedId, onSelect }: ElementTableProps) {
+export function ElementTable({ elements, checks, selectedId, onSelect, markers, onMarker }: ElementTableProps) {
   const units = useDisplayUnits();
   const [sorting, setSorting] = useState<SortingState>([]);
   const [statusFilter, setStatusFilter] = useState('');
@@ -51,7 +55,35 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
   const columns = useMemo<ColumnDef<Row>[]>(
     () => [
       { id: 'index', header: '#', accessorFn: (r) => r.index + 1 },
-      { id: 'id', header: 'Element', accessorFn: (r) => r.el.id, cell: ({ row }) => <code>{row.original.el.id}</code> },
+      {
+        id: 'id',
+        header: 'Element',
+        accessorFn: (r) => r.el.id,
+        cell: ({ row }) => {
+          const id = row.original.el.id;
+          const n = markers?.get(id) ?? 0;
+          return (
+            <span className="inline-flex items-center gap-1">
+              <code>{id}</code>
+              {n > 0 ? (
+                <button
+                  type="button"
+                  data-testid={`comment-marker-${id}`}
+                  aria-label={`${n} open comment${n === 1 ? '' : 's'} on ${id}`}
+                  className="rounded-full bg-violet-700 px-1.5 text-[10px] leading-4 font-semibold text-white hover:bg-violet-800"
+                  onClick={(e) => {
+                    e.stopPropagation();
+                    onSelect(id);
+                    onMarker?.(id);
+                  }}
+                >
+                  ✎{n}
+                </button>
+              ) : null}
+            </span>
+          );
+        },
+      },
       { id: 'kind', header: 'Kind', accessorFn: (r) => r.el.kind },
       { id: 'nps', header: 'NPS', accessorFn: (r) => String(r.el.nps ?? '—') },
       { id: 'schedule', header: 'Sch.', accessorFn: (r) => String(r.el.schedule ?? '—') },
@@ -80,7 +112,7 @@ export function ElementTable({ elements, checks, selectedId, onSelect }: Element
       },
       { id: 'governing', header: 'Governs', accessorFn: (r) => caseLabel(r.check?.governing) },
     ],
-    [units],
+    [units, markers, onMarker, onSelect],
   );
   const columnFilters = useMemo(() => (statusFilter ? [{ id: 'status', value: statusFilter }] : []), [statusFilter]);
   // The table instance is used only in this component's own render.

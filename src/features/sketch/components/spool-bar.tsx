@@ -1,4 +1,4 @@
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { can, findTransition, TRANSITIONS, type SpoolStatus } from '@shared/model/permissions';
 import { parseSpoolDocument, type FieldIssue, type SpoolDocument, type UnitSystem } from '@shared/model/spool';
@@ -8,6 +8,7 @@ import { CheckBadge, LifecycleBadge } from '@/components/ui/status-badge';
 import { ErrorLine } from '@/components/ui/spinner';
 import { useRole } from '@/features/auth/use-can';
 import { useTransitionSpool } from '@/features/spools/api/transition-spool';
+import { ReturnForm } from '@/features/review/components/return-form';
 import type { Spool } from '@/features/spools/api/spool-schemas';
 import { cn } from '@/lib/cn';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
@@ -87,6 +88,7 @@ export function SpoolBar({
   onSave,
   saving,
   onImportIssues,
+  actions,
 }: {
   spool: Spool;
   canEdit: boolean;
@@ -95,6 +97,8 @@ export function SpoolBar({
   onSave: () => void;
   saving: boolean;
   onImportIssues: (issues: FieldIssue[] | null) => void;
+  /** More buttons for the right-hand group (e.g. Share). */
+  actions?: ReactNode;
 }) {
   const api = useSpoolStoreApi();
   const doc = useSpoolStore((s) => s.doc);
@@ -105,13 +109,14 @@ export function SpoolBar({
   const fileRef = useRef<HTMLInputElement>(null);
   const moves = TRANSITIONS.filter((t) => t.from === spool.status && can(role, t.action));
 
-  const runTransition = (to: SpoolStatus) => {
+  const [returning, setReturning] = useState(false);
+  const runTransition = (to: SpoolStatus, note?: string) => {
     if (!findTransition(spool.status, to)) return;
-    let note: string | undefined;
-    if (spool.status === 'submitted' && to === 'draft') {
-      const n = window.prompt('Why is it returned? (the note goes to the designer)');
-      if (n === null) return;
-      note = n;
+    if (spool.status === 'submitted' && to === 'draft' && note === undefined) {
+      // The reason is asked for in the page (ReturnForm below), then sent with the move.
+      transition.reset();
+      setReturning(true);
+      return;
     }
     transition.mutate(
       { id: spool.id, to, note },
@@ -119,6 +124,7 @@ export function SpoolBar({
         onSuccess: (next) => {
           const s = api.getState();
           s.markSaved(next.version, s.savedDoc);
+          setReturning(false);
         },
       },
     );
@@ -167,6 +173,13 @@ export function SpoolBar({
         >
           Calc sheet
         </Link>
+        <Link
+          to={`/spools/${encodeURIComponent(spool.id)}/fabrication`}
+          className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100"
+          title={isDirty ? 'The fabrication sheet shows the saved spool: save first to include your changes' : 'Bend list, cut list, bill of materials, masses and hydrotest'}
+        >
+          Fabrication sheet
+        </Link>
         <Button size="sm" onClick={() => downloadJson(fileNameOf(doc), doc)} title="Download the spool document (JSON)">
           Export
         </Button>
@@ -206,6 +219,7 @@ export function SpoolBar({
             </Button>
           );
         })}
+        {actions}
         {canEdit ? (
           <Button size="sm" variant="primary" onClick={onSave} disabled={!isDirty || saving} title="Save (Ctrl+S)">
             {saving ? 'Saving…' : isDirty ? 'Save' : 'Saved'}
@@ -217,6 +231,9 @@ export function SpoolBar({
           </span>
         ) : null}
       </div>
+      {returning && spool.status === 'submitted' ? (
+        <ReturnForm busy={transition.isPending} onCancel={() => setReturning(false)} onReturn={(note) => runTransition('draft', note)} />
+      ) : null}
       {transition.isError ? (
         <div className="w-full">
           <ErrorLine error={transition.error} />

@@ -6,6 +6,7 @@ import { createSpoolStore, type SpoolStore, type SpoolStoreState } from './spool
 
 const SpoolStoreContext = createContext<SpoolStore | null>(null);
 export const CheckOptionsContext = createContext<CheckOptions | undefined>(undefined);
+const FixedCheckContext = createContext<SpoolCheck | undefined>(undefined);
 
 export interface SpoolStoreProviderProps {
   /** A store made by the caller (e.g. to load server data into it); else one is made from `initial` once. */
@@ -13,6 +14,8 @@ export interface SpoolStoreProviderProps {
   readonly initial?: SpoolDocument;
   /** Options of the derived check, e.g. `findMaterial` with the team's materials (keep the object stable). */
   readonly checkOptions?: CheckOptions;
+  /** A check computed elsewhere (e.g. the server's, for a read-only shared revision); used instead of checking here. */
+  readonly check?: SpoolCheck;
   readonly children: ReactNode;
 }
 
@@ -24,12 +27,15 @@ export function SpoolStoreProvider({
   store,
   initial,
   checkOptions,
+  check,
   children,
 }: SpoolStoreProviderProps) {
   const [own] = useState(() => store ?? createSpoolStore(initial));
   return (
     <SpoolStoreContext.Provider value={store ?? own}>
-      <CheckOptionsContext.Provider value={checkOptions}>{children}</CheckOptionsContext.Provider>
+      <CheckOptionsContext.Provider value={checkOptions}>
+        <FixedCheckContext.Provider value={check}>{children}</FixedCheckContext.Provider>
+      </CheckOptionsContext.Provider>
     </SpoolStoreContext.Provider>
   );
 }
@@ -84,6 +90,7 @@ export function checkWithStore(
 export function useSpoolCheck(): SpoolCheck {
   const store = useSpoolStoreApi();
   const options = useContext(CheckOptionsContext);
+  const fixed = useContext(FixedCheckContext);
   const doc = useSpoolStore((s) => s.doc);
-  return useMemo(() => checkWithStore(store, doc, options), [store, doc, options]);
+  return useMemo(() => fixed ?? checkWithStore(store, doc, options), [fixed, store, doc, options]);
 }

@@ -9,6 +9,7 @@ import {
   headingSchema,
   npsSchema,
   scheduleSchema,
+  shopSettingsSchema,
   spoolElementSchema,
   type BendRadius,
   type Conditions,
@@ -17,6 +18,7 @@ import {
   type EndType,
   type Heading,
   type NpsInput,
+  type ShopSettings,
   type SpoolDocument,
   type SpoolElement,
 } from '@shared/model/spool';
@@ -162,6 +164,8 @@ export interface SpoolStoreState {
   setMeta(meta: { name?: string; line?: string }, opts?: ChangeOptions): void;
   /** Default radius for bends created from now on (existing bends keep theirs). */
   setDefaultBendRadius(radius: BendRadius, opts?: ChangeOptions): EditResult;
+  /** Merge the shop settings (test temperature, bending tangent); a key set to undefined returns to its default. */
+  setShopSettings(patch: Partial<ShopSettings>, opts?: ChangeOptions): EditResult;
   /** Pipe size for the next legs (no document change). */
   setDrawingPipe(pipe: DrawingPipe): void;
   /**
@@ -566,6 +570,18 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
         const r = bendRadiusSchema.safeParse(radius);
         if (!r.success) return refuse(firstIssue(r, 'defaultBendRadius'));
         commit({ ...get().doc, defaultBendRadius: radius }, opts?.history);
+        return ok;
+      },
+
+      setShopSettings(patch, opts) {
+        const doc = get().doc;
+        const merged = compact({ ...doc.shop, ...patch });
+        const r = shopSettingsSchema.safeParse(merged);
+        if (!r.success) return refuse(firstIssue(r, 'shop'));
+        const next: { -readonly [K in keyof SpoolDocument]: SpoolDocument[K] } = { ...doc };
+        if (Object.keys(merged).length === 0) delete next.shop;
+        else next.shop = merged;
+        if (next.shop?.testTemperature !== doc.shop?.testTemperature || next.shop?.bendTangent !== doc.shop?.bendTangent) commit(next, opts?.history);
         return ok;
       },
 

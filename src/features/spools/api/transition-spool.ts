@@ -1,5 +1,6 @@
 import { useMutation, useQueryClient } from '@tanstack/react-query';
 import { apiRequest } from '@/lib/api';
+import { reviewKeys } from '@/features/review/api/review-schemas';
 import { spoolKeys, spoolSchema, type Spool, type SpoolStatus } from './spool-schemas';
 
 export interface TransitionInput {
@@ -20,6 +21,10 @@ export function useTransitionSpool() {
       qc.setQueryData(spoolKeys.detail(spool.id), spool);
       await qc.invalidateQueries({ queryKey: spoolKeys.lists() });
       await qc.invalidateQueries({ queryKey: spoolKeys.revisions(spool.id) });
+      // A return adds its note as a comment; every move adds an event and changes the queues.
+      await qc.invalidateQueries({ queryKey: reviewKeys.comments(spool.id) });
+      await qc.invalidateQueries({ queryKey: reviewKeys.events(spool.id) });
+      await qc.invalidateQueries({ queryKey: reviewKeys.waiting() });
     },
   });
 }

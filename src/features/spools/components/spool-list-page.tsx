@@ -5,9 +5,10 @@ import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { CheckBadge, LifecycleBadge } from '@/components/ui/status-badge';
 import { ErrorLine, LoadingLine } from '@/components/ui/spinner';
-import { useCan } from '@/features/auth/use-can';
+import { useCan, useRole } from '@/features/auth/use-can';
 import { formatDateTime } from '@/lib/format';
 import { cn } from '@/lib/cn';
+import { WaitingList } from '@/features/review/components/waiting-list';
 import { createBlankDocument, useCreateSpool } from '../api/create-spool';
 import { useSpools } from '../api/get-spools';
 import { SPOOL_STATUSES, type SpoolStatus, type SpoolSummary } from '../api/spool-schemas';
@@ -15,17 +16,28 @@ import { SPOOL_STATUSES, type SpoolStatus, type SpoolSummary } from '../api/spoo
 const PAGE_SIZE = 25;
 const SORTABLE = new Set(['name', 'line', 'status', 'revision', 'updatedAt']);
 
+/** The spool's name, linking to the sketch — or, for a fabricator, a released spool's fabrication sheet. */
+function SpoolNameLink({ spool }: { spool: SpoolSummary }) {
+  const role = useRole();
+  const toSheet = role === 'fabricator' && spool.status === 'released';
+  return (
+    <Link
+      to={toSheet ? `/spools/${spool.id}/fabrication` : `/spools/${spool.id}`}
+      title={toSheet ? 'Open the fabrication sheet' : undefined}
+      className="font-medium text-steel-900 underline-offset-2 hover:text-copper-600 hover:underline"
+    >
+      {spool.name || '(unnamed)'}
+    </Link>
+  );
+}
+
 const columns: ColumnDef<SpoolSummary>[] = [
   {
     id: 'name',
     header: 'Spool',
     // Sorting happens on the server; the accessors only make the columns sortable.
     accessorFn: (r) => r.name ?? '',
-    cell: ({ row }) => (
-      <Link to={`/spools/${row.original.id}`} className="font-medium text-steel-900 underline-offset-2 hover:text-copper-600 hover:underline">
-        {row.original.name || '(unnamed)'}
-      </Link>
-    ),
+    cell: ({ row }) => <SpoolNameLink spool={row.original} />,
   },
   { id: 'line', header: 'Line', accessorFn: (r) => r.line ?? '', cell: ({ row }) => row.original.line || <span className="text-steel-400">—</span> },
   { id: 'status', header: 'State', accessorFn: (r) => r.status, cell: ({ row }) => <LifecycleBadge status={row.original.status} /> },
@@ -131,6 +143,7 @@ export function SpoolListPage() {
 
   return (
     <main className="mx-auto flex h-full max-w-6xl flex-col gap-4 overflow-auto p-6 font-sans">
+      <WaitingList />
       <div className="flex items-end gap-4">
         <div>
           <h1 className="text-2xl font-semibold text-steel-800">Spool register</h1>
