@@ -2,6 +2,7 @@ import type { RequestHandler } from 'express';
 import multer from 'multer';
 import Papa from 'papaparse';
 import { HttpError } from './errors';
+import { findTextProblem } from '../shared/model/fields';
 
 /** Largest CSV upload accepted. */
 export const CSV_LIMIT_BYTES = 1024 * 1024;
@@ -69,5 +70,44 @@ export function parseCsv(text: string): { headers: string[]; rows: CsvRow[]; err
   // With header: true, data row i sits on file line i + 2 (ignoring quoted newlines).
   const rows = out.data.map((values, i) => ({ line: i + 2, values }));
   const errors = out.errors.map((e) => ({ line: (e.row ?? 0) + 2, message: e.message }));
+  // Text PostgreSQL cannot store (U+0000) is refused here, with its line and column.
+  for (const h of headers) {
+    const problem = findTextProblem(h);
+    if (problem) errors.push({ line: 1, message: `a column name ${problem}` });
+  }
+  for (const row of rows) {
+    for (const [h, v] of Object.entries(row.values)) {
+      const problem = typeof v === 'string' ? findTextProblem(v) : undefined;
+      if (problem) errors.push({ line: row.line, message: `column "${findTextProblem(h) ? '?' : h}" ${problem}` });
+    }
+  }
   return { headers, rows, errors };
+}
+
+/**
+ * Data rows of a CSV with a header, counted only as far as `cap + 1`: a cheap newline count
+ * first; when that is over the cap, only a prefix of the text is parsed (quoted newlines make
+ * rows span lines, so the prefix grows until it holds cap + 1 rows or is the whole text).
+ */
+export function countCsvRows(text: string, cap: number): number {
+  const endOfLine = (n: number) => {
+    let at = -1;
+    for (let k = 0; k < n; k++) {
+      at = text.indexOf('\n', at + 1);
+      if (at === -1) return text.length;
+    }
+    return at;
+  };
+  let newlines = 0;
+  for (let i = text.indexOf('\n'); i !== -1 && newlines <= cap + 1; i = text.indexOf('\n', i + 1)) newlines++;
+  // Data rows are at most the newlines (header, then one per row; the last may lack its own).
+  if (newlines <= cap) return newlines;
+  let lines = cap + 2;
+  for (;;) {
+    const end = endOfLine(lines);
+    const prefix = text.slice(0, end).replace(/^\uFEFF/, '');
+    const rows = Math.max(0, Papa.parse<string[]>(prefix, { skipEmptyLines: 'greedy' }).data.length - 1);
+    if (rows > cap || end >= text.length) return Math.min(rows, cap + 1);
+    lines *= 2;
+  }
 }

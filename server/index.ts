@@ -9,7 +9,7 @@ import { DataDirLockedError } from './db/lock';
 import { isDatabaseEmpty, seedDemo } from './db/seed';
 import { createAuth } from './auth/auth';
 import { createMailer } from './mail/mailer';
-import { createApp } from './app';
+import { closeAppServices, createApp, getAppServices } from './app';
 import { createLogger, type Logger } from './logger';
 
 export const DIST_DIR = fileURLToPath(new URL('../dist', import.meta.url));
@@ -55,6 +55,8 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
   const auth = createAuth({ db: database.db, config, mailer, logger });
   const serveClient = config.nodeEnv === 'production' || fs.existsSync(`${DIST_DIR}/index.html`);
   const app = createApp({ db: database.db, auth, mailer, config, logger, staticDir: serveClient ? DIST_DIR : undefined });
+  // Re-checks left unfinished by an earlier process run again (in the background).
+  getAppServices(app).jobs.resume().catch((err: unknown) => logger.error('could not resume background jobs', err));
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
@@ -75,7 +77,9 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
       closing ??= new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeAllConnections();
-      }).then(() => database.close());
+      })
+        .then(() => closeAppServices(app))
+        .then(() => database.close());
       return closing;
     },
   };

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { customType, index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 import type { SpoolDocument } from '../../shared/model/spool';
 import type { CheckSummary, CheckStatus } from '../../shared/engine/types';
 import type { Material } from '../../shared/data/materials';
@@ -12,6 +12,9 @@ export interface StoredCheckSummary {
   summary: CheckSummary;
   worst: { elementId: string; status: CheckStatus } | null;
 }
+
+/** Raw bytes (PostgreSQL bytea). */
+const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({ dataType: () => 'bytea' });
 
 const timestamps = {
   createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
@@ -128,6 +131,8 @@ export const shareLinks = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
     expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
     revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    /** The check of the shared revision as gzip'd JSON, made once when the link is created (the revision is frozen). */
+    checkGz: bytea('check_gz'),
   },
   (t) => [index('share_links_spool_idx').on(t.spoolId)],
 );
@@ -179,4 +184,35 @@ export const teamMaterials = pgTable(
     ...timestamps,
   },
   (t) => [primaryKey({ columns: [t.teamId, t.id] })],
+);
+
+/**
+ * Background work of a team, e.g. re-checking every spool after its materials changed. Rows
+ * outlive the process: a job found unfinished at start-up is run again (its work is idempotent).
+ */
+export const jobs = pgTable(
+  'jobs',
+  {
+    id: serial('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    /** `recheck`: refresh the stored check summaries of the team's spools. */
+    kind: text('kind').notNull(),
+    /** queued | running | done | failed */
+    status: text('status').notNull().default('queued'),
+    /** Why the job was started, e.g. "materials import (3 materials)". */
+    reason: text('reason').notNull().default(''),
+    /** Spools to process (known once the job starts) and processed so far. */
+    total: integer('total').notNull().default(0),
+    done: integer('done').notNull().default(0),
+    /** Spools whose stored summary changed. */
+    changed: integer('changed').notNull().default(0),
+    error: text('error'),
+    createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('jobs_team_idx').on(t.teamId, t.id), index('jobs_status_idx').on(t.status)],
 );

@@ -1,23 +1,35 @@
 import { randomBytes } from 'node:crypto';
 import { Router } from 'express';
-import { and, desc, eq } from 'drizzle-orm';
+import { and, desc, eq, sql } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
 import { shareLinks, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, notFound } from '../errors';
-import { parseBody } from '../validation';
+import { parseBody, textParam } from '../validation';
+import { int } from '../../shared/model/fields';
 import { getRevision, getSpool } from '../spools/repo';
-import { runCheck } from '../spools/check';
 import type { TeamMaterials } from '../materials/team-materials';
+import type { CheckPool } from '../checks/pool';
 
 const createSchema = z.object({
   /** Revision to share; default the current one. */
-  revision: z.number().int().min(0).optional(),
-  expiresInDays: z.number().int().min(1).max(365).optional().default(30),
+  revision: int(0).optional(),
+  expiresInDays: int(1, 365).optional().default(30),
 });
 
-type ShareRow = typeof shareLinks.$inferSelect;
+/** What the list of a spool's links reads (not the stored document or check). */
+const shareListColumns = {
+  id: shareLinks.id,
+  spoolId: shareLinks.spoolId,
+  revision: shareLinks.revision,
+  status: shareLinks.status,
+  name: shareLinks.name,
+  createdAt: shareLinks.createdAt,
+  expiresAt: shareLinks.expiresAt,
+  revokedAt: shareLinks.revokedAt,
+};
+type ShareRow = Pick<typeof shareLinks.$inferSelect, keyof typeof shareListColumns>;
 
 function toShare(r: ShareRow, publicUrl: string, by: { id: string | null; name: string | null }) {
   const now = Date.now();
@@ -37,16 +49,16 @@ function toShare(r: ShareRow, publicUrl: string, by: { id: string | null; name: 
 }
 
 /** Share links of a spool: /api/spools/:id/shares (lead, admin). */
-export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
+export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: TeamMaterials; checks: CheckPool }) {
   const { db } = deps;
   const r = Router({ mergeParams: true });
 
   r.get('/', requirePermission('share:manage'), async (req, res) => {
-    const params = req.params as { id: string };
+    const params = { id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100) };
     const teamId = getTeamId(res);
     if (!(await getSpool(db, teamId, params.id))) throw notFound('Spool not found');
     const rows = await db
-      .select({ s: shareLinks, byId: user.id, byName: user.name })
+      .select({ s: shareListColumns, byId: user.id, byName: user.name })
       .from(shareLinks)
       .leftJoin(user, eq(user.id, shareLinks.createdBy))
       .where(and(eq(shareLinks.spoolId, params.id), eq(shareLinks.teamId, teamId)))
@@ -55,7 +67,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
   });
 
   r.post('/', requirePermission('share:manage'), async (req, res) => {
-    const params = req.params as { id: string };
+    const params = { id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100) };
     const body = parseBody(createSchema, req.body ?? {});
     const teamId = getTeamId(res);
     const spool = await getSpool(db, teamId, params.id);
@@ -63,6 +75,8 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
     const rev = await getRevision(db, teamId, params.id, body.revision ?? spool.revision);
     if (!rev) throw notFound('Revision not found');
     const ctx = getContext(res);
+    // The shared revision is frozen, so its check is made once, here, and served as stored.
+    const checkGz = await deps.checks.checkDocumentGz(rev.document, await deps.materials.ref(teamId));
     const [row] = await db
       .insert(shareLinks)
       .values({
@@ -75,15 +89,25 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
         line: rev.line,
         // The link shows the revision as it is now, even if its draft is edited later.
         document: rev.document,
+        checkGz,
         createdBy: ctx.user.id,
         expiresAt: new Date(Date.now() + body.expiresInDays * 86_400_000),
       })
-      .returning();
+      .returning({
+        id: shareLinks.id,
+        spoolId: shareLinks.spoolId,
+        revision: shareLinks.revision,
+        status: shareLinks.status,
+        name: shareLinks.name,
+        createdAt: shareLinks.createdAt,
+        expiresAt: shareLinks.expiresAt,
+        revokedAt: shareLinks.revokedAt,
+      });
     res.status(201).json(toShare(row!, deps.publicUrl, { id: ctx.user.id, name: ctx.user.name }));
   });
 
   r.delete('/:shareId', requirePermission('share:manage'), async (req, res) => {
-    const params = req.params as { id: string; shareId: string };
+    const params = { id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100), shareId: textParam((req.params as { shareId?: unknown }).shareId, 'Share link not found', 100) };
     const out = await db
       .update(shareLinks)
       .set({ revokedAt: new Date() })
@@ -97,8 +121,8 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
 }
 
 /** The share link of a public token: 404 when unknown, 410 when revoked or expired. */
-export async function findActiveShare(db: Db, token: string): Promise<ShareRow> {
-  if (token.length > 100) throw notFound('Share link not found');
+export async function findActiveShare(db: Db, rawToken: string): Promise<typeof shareLinks.$inferSelect> {
+  const token = textParam(rawToken, 'Share link not found', 100);
   const [row] = await db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
   if (!row) throw notFound('Share link not found');
   if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
@@ -107,19 +131,46 @@ export async function findActiveShare(db: Db, token: string): Promise<ShareRow> 
 }
 
 /** GET /api/share/:token — the public read-only view; no account needed. */
-export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
+export function publicShareRouter(deps: { db: Db; materials: TeamMaterials; checks: CheckPool }) {
   const r = Router();
   r.get('/:token', async (req, res) => {
-    const row = await findActiveShare(deps.db, String(req.params.token));
+    const token = textParam(req.params.token, 'Share link not found', 100);
+    // The document comes as PostgreSQL's JSON text and the check as base64 of its gzip: neither
+    // is parsed on the event loop; the pool unpacks the check and joins the answer.
+    const [row] = await deps.db
+      .select({
+        id: shareLinks.id,
+        teamId: shareLinks.teamId,
+        name: shareLinks.name,
+        line: shareLinks.line,
+        revision: shareLinks.revision,
+        status: shareLinks.status,
+        createdAt: shareLinks.createdAt,
+        expiresAt: shareLinks.expiresAt,
+        revokedAt: shareLinks.revokedAt,
+        createdBy: shareLinks.createdBy,
+        documentJson: sql<string>`${shareLinks.document}::text`,
+        checkB64: sql<string | null>`encode(${shareLinks.checkGz}, 'base64')`,
+      })
+      .from(shareLinks)
+      .where(eq(shareLinks.id, token))
+      .limit(1);
+    if (!row) throw notFound('Share link not found');
+    if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
+    if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
+    let check: Uint8Array | string | null = row.checkB64;
+    if (check === null) {
+      // A link made before checks were stored: check once in the pool and keep the result.
+      const [full] = await deps.db.select({ document: shareLinks.document }).from(shareLinks).where(eq(shareLinks.id, row.id)).limit(1);
+      check = await deps.checks.checkDocumentGz(full!.document, await deps.materials.ref(row.teamId));
+      await deps.db.update(shareLinks).set({ checkGz: check }).where(eq(shareLinks.id, row.id));
+    }
+    const meta = JSON.stringify({ name: row.name, line: row.line, revision: row.revision, status: row.status });
     // The name of who made the link (no e-mail, no other team data).
     const [by] = row.createdBy ? await deps.db.select({ name: user.name }).from(user).where(eq(user.id, row.createdBy)).limit(1) : [];
-    res.json({
-      spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
-      check: runCheck(row.document, await deps.materials.finder(row.teamId)),
-      sharedAt: row.createdAt.toISOString(),
-      expiresAt: row.expiresAt.toISOString(),
-      sharedBy: by?.name ?? null,
-    });
+    const tail = JSON.stringify({ sharedAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString(), sharedBy: by?.name ?? null });
+    const bytes = await deps.checks.shareView(`{"spool":${meta.slice(0, -1)},"document":${row.documentJson}},"check":`, check, `,${tail.slice(1)}`);
+    res.type('application/json').send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   });
   return r;
 }

@@ -5,7 +5,8 @@ import type { Db } from '../db/client';
 import { teamMembers, user } from '../db/schema';
 import { getTeamId, requirePermission, type MembershipCache } from '../auth/member';
 import { HttpError, notFound } from '../errors';
-import { parseBody } from '../validation';
+import { parseBody, textParam } from '../validation';
+import { isStorableText, text } from '../../shared/model/fields';
 import { createUserWithPassword } from '../db/seed';
 import { MIN_PASSWORD_LENGTH } from '../auth/auth';
 import { ROLES } from '../../shared/model/permissions';
@@ -13,9 +14,13 @@ import { ROLES } from '../../shared/model/permissions';
 const roleSchema = z.enum(ROLES);
 const addSchema = z.object({
   email: z.email({ error: 'must be an e-mail address' }).max(200),
-  name: z.string().trim().min(1, 'must not be empty').max(120),
+  name: text(120, { trim: true, min: 1 }),
   role: roleSchema,
-  password: z.string().min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`).max(128),
+  password: z
+    .string()
+    .min(MIN_PASSWORD_LENGTH, `must be at least ${MIN_PASSWORD_LENGTH} characters`)
+    .max(128, 'must be at most 128 characters')
+    .refine(isStorableText, 'must not contain U+0000 or a lone surrogate'),
 });
 
 /** /api/team/members: everyone in the team may list; admins add, re-role and remove. */
@@ -56,7 +61,7 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache }) {
   r.patch('/members/:userId', requirePermission('team:manage'), async (req, res) => {
     const body = parseBody(z.object({ role: roleSchema }), req.body ?? {});
     const teamId = getTeamId(res);
-    const userId = String(req.params.userId);
+    const userId = textParam(req.params.userId, 'Member not found');
     const [m] = await db.select().from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId))).limit(1);
     if (!m) throw notFound('Member not found');
     if (m.role === 'admin' && body.role !== 'admin' && (await adminCount(teamId)) <= 1) {
@@ -70,7 +75,7 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache }) {
 
   r.delete('/members/:userId', requirePermission('team:manage'), async (req, res) => {
     const teamId = getTeamId(res);
-    const userId = String(req.params.userId);
+    const userId = textParam(req.params.userId, 'Member not found');
     const [m] = await db.select().from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId))).limit(1);
     if (!m) throw notFound('Member not found');
     if (m.role === 'admin' && (await adminCount(teamId)) <= 1) throw new HttpError(409, 'conflict', 'A team keeps at least one admin');

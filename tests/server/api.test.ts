@@ -367,7 +367,7 @@ describe('team materials library', () => {
     expect(before.body.summary.invalid).toBe(3);
     const up = await admin.post('/api/materials/import').field('source', 'Owner spec KX-1 rev B, table 4').attach('file', Buffer.from(csv), 'materials.csv');
     expect(up.status).toBe(201);
-    expect(up.body.rechecked).toBeGreaterThan(0);
+    expect(up.body.job).toMatchObject({ id: expect.any(Number), kind: 'recheck', status: expect.stringMatching(/queued|running|done/) });
     expect(up.body.items[0]).toMatchObject({ id: 'KX-CS-70', tensilePsi: 70_000, stress: [{ tempF: 100, value: 23_300 }, { tempF: 400 }, { tempF: 600, value: 20_000 }] });
     const after = await admin.post('/api/check').send(doc);
     expect(after.body.summary.invalid).toBe(0);
@@ -377,7 +377,12 @@ describe('team materials library', () => {
     const saved = await admin.post('/api/spools').send({ document: doc });
     expect(saved.body.summary.invalid).toBe(0);
     await admin.delete('/api/materials/KX-CS-70').expect(204);
-    // Stored summaries follow the library; the save counter does not move.
+    // Stored summaries follow the library (a background job); the save counter does not move.
+    await t.idle();
+    const jobs = await admin.get('/api/admin/jobs');
+    expect(jobs.body.items[0]).toMatchObject({ kind: 'recheck', status: 'done', reason: 'material KX-CS-70 deleted', total: expect.any(Number), done: expect.any(Number) });
+    expect(jobs.body.items[0].done).toBe(jobs.body.items[0].total);
+    expect((await admin.get(`/api/admin/jobs/${up.body.job.id}`)).body).toMatchObject({ status: 'done', changed: expect.any(Number) });
     const reread = await admin.get(`/api/spools/${saved.body.id}`);
     expect(reread.body).toMatchObject({ version: 1, summary: { invalid: 3 } });
     expect((await admin.post('/api/check').send(doc)).body.summary.invalid).toBe(3);

@@ -6,7 +6,7 @@ import path from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
 import pg from 'pg';
 import request from 'supertest';
-import { createApp } from '../../server/app';
+import { closeAppServices, createApp, getAppServices } from '../../server/app';
 import { createAuth } from '../../server/auth/auth';
 import { loadConfig, type ServerConfig } from '../../server/config';
 import { MIGRATIONS_DIR, openPostgres, wrapPglite, type Database } from '../../server/db/client';
@@ -113,6 +113,8 @@ export interface TestApp {
   signIn(role: Role): Promise<request.Agent>;
   /** A supertest agent without a session. */
   anon(): request.Agent;
+  /** Resolves when no background job (re-checks) is running. */
+  idle(): Promise<void>;
   close(): Promise<void>;
 }
 
@@ -144,7 +146,11 @@ export async function createTestApp(overrides: Partial<ServerConfig> = {}): Prom
       return agent;
     },
     anon: () => request.agent(app),
-    close: () => database.close(),
+    idle: () => getAppServices(app).jobs.idle(),
+    async close() {
+      await closeAppServices(app);
+      await database.close();
+    },
   };
 }
 

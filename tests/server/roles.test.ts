@@ -165,6 +165,15 @@ const ROUTES: RouteCase[] = [
     },
   },
   { name: 'GET /api/admin/outbox', allowed: [A], setup: async () => ({ method: 'get', path: '/api/admin/outbox' }) },
+  { name: 'GET /api/admin/jobs', allowed: [A], setup: async () => ({ method: 'get', path: '/api/admin/jobs' }) },
+  {
+    name: 'GET /api/admin/jobs/:jobId',
+    allowed: [A],
+    setup: async () => {
+      const up = await admin.post('/api/materials/import?source=matrix%20job').set('content-type', 'text/csv').send('id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\nMX-JOB,Matrix,1,60,35,100,20').expect(201);
+      return { method: 'get', path: `/api/admin/jobs/${up.body.job.id}` };
+    },
+  },
 ];
 
 beforeAll(async () => {
