@@ -3,7 +3,7 @@ import path from 'node:path';
 import express, { type RequestHandler } from 'express';
 import { toNodeHandler } from 'better-auth/node';
 import type { Db } from './db/client';
-import type { Auth } from './auth/auth';
+import { sessionCacheOf, type Auth } from './auth/auth';
 import { MembershipCache, loadSession } from './auth/member';
 import type { ServerConfig } from './config';
 import type { Mailer } from './mail/mailer';
@@ -20,6 +20,8 @@ import { TeamMaterials } from './materials/team-materials';
 import { commentsRouter } from './routes/comments';
 import { calcSheetRouter, publicCalcSheetRouter } from './routes/calc-sheet';
 import { waitingRouter } from './routes/waiting';
+import { cspMiddleware } from './csp';
+import { guardAuthHandler, DEFAULT_SIGN_IN_LIMITS } from './auth/sign-in-limits';
 
 export interface AppDeps {
   db: Db;
@@ -63,10 +65,14 @@ export function createApp(deps: AppDeps) {
   app.disable('x-powered-by');
   app.set('trust proxy', false);
   app.use(securityHeaders);
+  app.use(cspMiddleware);
 
   // better-auth reads the raw body itself, so it is mounted before the JSON parser. Its rate
   // limiter keys on x-forwarded-for: set it from the socket so clients cannot pick their key.
-  const authHandler = toNodeHandler(deps.auth);
+  // In front of it: sign-in limits per account and per address, constant-time reset answers.
+  const authHandler = toNodeHandler(
+    guardAuthHandler((request) => deps.auth.handler(request), { limits: deps.config.rateLimit ? (deps.config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS) : null }),
+  );
   app.all('/api/auth{/*any}', (req, res, next) => {
     req.headers['x-forwarded-for'] = req.socket.remoteAddress ?? '127.0.0.1';
     authHandler(req, res).catch(next);
@@ -96,7 +102,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials }));
   app.use('/api/check', checkRouter({ materials }));
   app.use('/api', catalogRouter({ db: deps.db, materials }));
-  app.use('/api/team', teamRouter({ db: deps.db, memberships }));
+  app.use('/api/team', teamRouter({ db: deps.db, memberships, sessions: sessionCacheOf(deps.auth) }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);
 

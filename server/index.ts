@@ -8,7 +8,7 @@ import { openDatabase, type Database } from './db/client';
 import { DataDirLockedError } from './db/lock';
 import { isDatabaseEmpty, seedDemo } from './db/seed';
 import { createAuth } from './auth/auth';
-import { createMailer } from './mail/mailer';
+import { createMailer, type Mailer } from './mail/mailer';
 import { createApp } from './app';
 import { createLogger, type Logger } from './logger';
 
@@ -51,7 +51,14 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
     await database.close();
     throw err;
   }
-  const mailer = createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger });
+  // Without SMTP_URL an in-process SMTP catcher receives the mail (DATA_DIR/mail, the outbox).
+  let mailer: Mailer;
+  try {
+    mailer = await createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger, mailDir: path.join(config.dataDir, 'mail') });
+  } catch (err) {
+    await database.close();
+    throw err;
+  }
   const auth = createAuth({ db: database.db, config, mailer, logger });
   const serveClient = config.nodeEnv === 'production' || fs.existsSync(`${DIST_DIR}/index.html`);
   const app = createApp({ db: database.db, auth, mailer, config, logger, staticDir: serveClient ? DIST_DIR : undefined });
@@ -60,9 +67,11 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
     server.once('listening', resolve);
     server.once('error', reject);
   }).catch(async (err: unknown) => {
+    await mailer.close();
     await database.close();
     throw err;
   });
+  if (mailer.kind === 'outbox') logger.info(`mail goes to the development catcher: ${mailer.mailDir} (no SMTP_URL)`);
   const port = (server.address() as AddressInfo).port;
   const url = config.port === 0 ? `http://${config.host}:${port}` : config.publicUrl;
   logger.info(`ready in ${Date.now() - t0} ms (${database.kind}${database.kind === 'pglite' ? ` in ${config.dataDir}` : ''})`);
@@ -75,7 +84,9 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
       closing ??= new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeAllConnections();
-      }).then(() => database.close());
+      })
+        .then(() => mailer.close())
+        .then(() => database.close());
       return closing;
     },
   };

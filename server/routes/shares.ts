@@ -1,15 +1,16 @@
-import { randomBytes } from 'node:crypto';
+import { randomUUID } from 'node:crypto';
 import { Router } from 'express';
 import { and, desc, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
-import { shareLinks, user } from '../db/schema';
+import { shareLinks, spools, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, notFound } from '../errors';
 import { parseBody } from '../validation';
 import { getRevision, getSpool } from '../spools/repo';
 import { runCheck } from '../spools/check';
 import type { TeamMaterials } from '../materials/team-materials';
+import { hashShareToken, newShareToken, omitSourceNotes } from '../spools/share-tokens';
 
 const createSchema = z.object({
   /** Revision to share; default the current one. */
@@ -19,11 +20,12 @@ const createSchema = z.object({
 
 type ShareRow = typeof shareLinks.$inferSelect;
 
-function toShare(r: ShareRow, publicUrl: string, by: { id: string | null; name: string | null }) {
+/** A link as listed: its state, never its token (only its hash is stored). */
+function toShare(r: ShareRow, by: { id: string | null; name: string | null }) {
   const now = Date.now();
+  const state = r.revokedAt ? 'revoked' : r.expiresAt.getTime() > now ? 'active' : 'expired';
   return {
     id: r.id,
-    url: `${publicUrl}/share/${r.id}`,
     spoolId: r.spoolId,
     revision: r.revision,
     status: r.status,
@@ -31,7 +33,8 @@ function toShare(r: ShareRow, publicUrl: string, by: { id: string | null; name: 
     createdAt: r.createdAt.toISOString(),
     expiresAt: r.expiresAt.toISOString(),
     revokedAt: r.revokedAt ? r.revokedAt.toISOString() : null,
-    active: !r.revokedAt && r.expiresAt.getTime() > now,
+    state,
+    active: state === 'active',
     createdBy: by.id ? { id: by.id, name: by.name ?? '' } : null,
   };
 }
@@ -51,7 +54,7 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
       .leftJoin(user, eq(user.id, shareLinks.createdBy))
       .where(and(eq(shareLinks.spoolId, params.id), eq(shareLinks.teamId, teamId)))
       .orderBy(desc(shareLinks.createdAt));
-    res.json({ items: rows.map((x) => toShare(x.s, deps.publicUrl, { id: x.byId, name: x.byName })) });
+    res.json({ items: rows.map((x) => toShare(x.s, { id: x.byId, name: x.byName })) });
   });
 
   r.post('/', requirePermission('share:manage'), async (req, res) => {
@@ -63,10 +66,12 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
     const rev = await getRevision(db, teamId, params.id, body.revision ?? spool.revision);
     if (!rev) throw notFound('Revision not found');
     const ctx = getContext(res);
+    const { token, hash } = newShareToken();
     const [row] = await db
       .insert(shareLinks)
       .values({
-        id: randomBytes(24).toString('base64url'),
+        id: randomUUID(),
+        tokenHash: hash,
         teamId,
         spoolId: params.id,
         revision: rev.revision,
@@ -79,7 +84,8 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
         expiresAt: new Date(Date.now() + body.expiresInDays * 86_400_000),
       })
       .returning();
-    res.status(201).json(toShare(row!, deps.publicUrl, { id: ctx.user.id, name: ctx.user.name }));
+    // The only time the token is shown: it is not stored, only its hash.
+    res.status(201).json({ ...toShare(row!, { id: ctx.user.id, name: ctx.user.name }), token, url: `${deps.publicUrl}/share/${token}` });
   });
 
   r.delete('/:shareId', requirePermission('share:manage'), async (req, res) => {
@@ -99,11 +105,23 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string }) {
 /** The share link of a public token: 404 when unknown, 410 when revoked or expired. */
 export async function findActiveShare(db: Db, token: string): Promise<ShareRow> {
   if (token.length > 100) throw notFound('Share link not found');
-  const [row] = await db.select().from(shareLinks).where(eq(shareLinks.id, token)).limit(1);
-  if (!row) throw notFound('Share link not found');
-  if (row.revokedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
+  // Only the token's hash is stored; a deleted spool's links are revoked with it.
+  const [found] = await db
+    .select({ row: shareLinks, spoolDeletedAt: spools.deletedAt })
+    .from(shareLinks)
+    .innerJoin(spools, eq(spools.id, shareLinks.spoolId))
+    .where(eq(shareLinks.tokenHash, hashShareToken(token)))
+    .limit(1);
+  if (!found) throw notFound('Share link not found');
+  const row = found.row;
+  if (row.revokedAt || found.spoolDeletedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
   if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
   return row;
+}
+
+/** Source notes of the team's own materials, which a shared view leaves out. */
+export async function teamSourceNotes(materials: TeamMaterials, teamId: string): Promise<string[]> {
+  return (await materials.list(teamId)).flatMap((m) => (m.origin === 'team' ? [m.sourceNote] : []));
 }
 
 /** GET /api/share/:token — the public read-only view; no account needed. */
@@ -113,9 +131,11 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials }) {
     const row = await findActiveShare(deps.db, String(req.params.token));
     // The name of who made the link (no e-mail, no other team data).
     const [by] = row.createdBy ? await deps.db.select({ name: user.name }).from(user).where(eq(user.id, row.createdBy)).limit(1) : [];
+    const check = runCheck(row.document, await deps.materials.finder(row.teamId));
+    const notes = await teamSourceNotes(deps.materials, row.teamId);
     res.json({
       spool: { name: row.name, line: row.line, revision: row.revision, status: row.status, document: row.document },
-      check: runCheck(row.document, await deps.materials.finder(row.teamId)),
+      check: omitSourceNotes(check, notes),
       sharedAt: row.createdAt.toISOString(),
       expiresAt: row.expiresAt.toISOString(),
       sharedBy: by?.name ?? null,
