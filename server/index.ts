@@ -41,6 +41,10 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
   const t0 = Date.now();
   if (config.authSecret === DEV_SECRET) config = { ...config, authSecret: readOrCreateSecret(config.dataDir) };
   const database = await openDatabase(config);
+  // Without SMTP_URL an in-process SMTP catcher receives the mail (DATA_DIR/mail, the outbox);
+  // it starts while the database migrates.
+  const mailerReady = createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger, mailDir: path.join(config.dataDir, 'mail') });
+  mailerReady.catch(() => undefined);
   try {
     await database.migrate();
     if (await isDatabaseEmpty(database.db)) {
@@ -48,13 +52,13 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
       logger.info(`seeded demo data: team "${seeded.team.name}", ${seeded.users} users, ${seeded.spools} spools (password spoolwright-demo)`);
     }
   } catch (err) {
+    await mailerReady.then((m) => m.close(), () => undefined);
     await database.close();
     throw err;
   }
-  // Without SMTP_URL an in-process SMTP catcher receives the mail (DATA_DIR/mail, the outbox).
   let mailer: Mailer;
   try {
-    mailer = await createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger, mailDir: path.join(config.dataDir, 'mail') });
+    mailer = await mailerReady;
   } catch (err) {
     await database.close();
     throw err;

@@ -2,7 +2,6 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { randomBytes } from 'node:crypto';
 import type { AddressInfo } from 'node:net';
-import { SMTPServer } from 'smtp-server';
 import { eq, inArray, sql } from 'drizzle-orm';
 import type { Db } from '../db/client';
 import { outbox, teamMembers, teams, user } from '../db/schema';
@@ -64,6 +63,8 @@ export async function startMailCatcher(opts: { db: Db; mailDir: string; logger: 
   const { db, mailDir, logger } = opts;
   fs.mkdirSync(mailDir, { recursive: true });
   const auth = { user: 'spoolwright', pass: randomBytes(18).toString('base64url') };
+  // Loaded only when there is no SMTP_URL.
+  const { SMTPServer } = await import('smtp-server');
   const server = new SMTPServer({
     secure: false,
     disabledCommands: ['STARTTLS'],

@@ -328,3 +328,44 @@ describe('the server process', () => {
     }
   }, 90_000);
 });
+
+describe('migration 0003 on an existing database', () => {
+  it('keeps existing share links working by their token and hides old outbox tokens', async () => {
+    const { PGlite } = await import('@electric-sql/pglite');
+    const { drizzle } = await import('drizzle-orm/pglite');
+    const { migrate } = await import('drizzle-orm/pglite/migrator');
+    const { MIGRATIONS_DIR } = await import('../../server/db/client');
+    // The migrations up to 0002, as a database made before this change has them.
+    const old = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-mig-'));
+    fs.mkdirSync(path.join(old, 'meta'));
+    const journal = JSON.parse(fs.readFileSync(path.join(MIGRATIONS_DIR, 'meta/_journal.json'), 'utf8')) as { entries: { tag: string }[] };
+    const before = journal.entries.slice(0, journal.entries.findIndex((e) => e.tag.startsWith('0003')));
+    for (const e of before) fs.copyFileSync(path.join(MIGRATIONS_DIR, `${e.tag}.sql`), path.join(old, `${e.tag}.sql`));
+    fs.writeFileSync(path.join(old, 'meta/_journal.json'), JSON.stringify({ ...journal, entries: before }));
+    const client = await PGlite.create();
+    try {
+      const db = drizzle({ client });
+      await migrate(db, { migrationsFolder: old });
+      await client.exec(`
+        insert into teams (id, name) values ('t1', 'T');
+        insert into "user" (id, name, email) values ('u1', 'U', 'u@x.test');
+        insert into spools (id, team_id, name, document) values ('s1', 't1', 'S', '{}');
+        insert into share_links (id, team_id, spool_id, revision, status, name, document, expires_at)
+          values ('old-token-0123456789abcdefghijklmnop', 't1', 's1', 0, 'draft', 'S', '{}', now() + interval '1 day');
+        insert into outbox ("to", "from", subject, text, raw)
+          values ('u@x.test', 'f', 'Reset', 'Open http://h/api/auth/reset-password/SECRETTOKEN1?callbackURL=/r or http://h/accept-invite?token=SECRET2&x=1', 'raw');`);
+      await migrate(db, { migrationsFolder: MIGRATIONS_DIR });
+      const share = (await client.query<{ id: string; token_hash: string }>('select id, token_hash from share_links')).rows[0]!;
+      expect(share.token_hash).toBe(createHash('sha256').update('old-token-0123456789abcdefghijklmnop').digest('hex'));
+      expect(share.id).not.toContain('old-token');
+      const mail = (await client.query<{ text: string; team_id: string | null }>('select text, team_id from outbox')).rows[0]!;
+      expect(mail.team_id).toBeNull();
+      expect(mail.text).not.toMatch(/SECRET/);
+      expect(mail.text).toContain('/reset-password/[redacted]?callbackURL=/r');
+      expect(mail.text).toContain('accept-invite?token=[redacted]&x=1');
+    } finally {
+      await client.close();
+      fs.rmSync(old, { recursive: true, force: true });
+    }
+  });
+});
