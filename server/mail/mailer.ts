@@ -16,6 +16,8 @@ export interface Mailer {
   readonly kind: 'outbox' | 'smtp';
   /** Where the catcher keeps each message as an .eml file (outbox only). */
   readonly mailDir: string | undefined;
+  /** Address the catcher listens on (outbox only). */
+  readonly catcherAddress: { host: string; port: number } | undefined;
   send(message: MailMessage): Promise<void>;
   /** Wait for mail in flight, then stop the transport and the catcher. */
   close(): Promise<void>;
@@ -52,6 +54,7 @@ export async function createMailer(opts: {
     return {
       kind: 'smtp',
       mailDir: undefined,
+      catcherAddress: undefined,
       async send(m) {
         const to = recipients(m.to);
         if (to.length === 0) return;
@@ -80,6 +83,7 @@ export async function createMailer(opts: {
   return {
     kind: 'outbox',
     mailDir: catcher.mailDir,
+    catcherAddress: { host: catcher.host, port: catcher.port },
     async send(m) {
       if (closed) throw new Error('the mailer is closed');
       const to = recipients(m.to);

@@ -1,4 +1,6 @@
 import fs from 'node:fs';
+import net from 'node:net';
+import nodemailer from 'nodemailer';
 import os from 'node:os';
 import path from 'node:path';
 import { createHash } from 'node:crypto';
@@ -9,7 +11,10 @@ import { createTestApp, DEMO_PASSWORD, demoEmail, sampleDocument, type TestApp }
 import { outbox, shareLinks, teamMembers, teams } from '../../server/db/schema';
 import { createUserWithPassword } from '../../server/db/seed';
 import { RESET_ANSWER_MS } from '../../server/auth/sign-in-limits';
-import { spawnServer } from './server-process';
+import { createMailer } from '../../server/mail/mailer';
+import { silentLogger } from '../../server/logger';
+import { createApp } from '../../server/app';
+import { createAuth } from '../../server/auth/auth';
 import { readMail } from '../e2e/harness';
 
 const RESET_LINK = /\/reset-password\?token=([^\s&]+)/;
@@ -282,9 +287,6 @@ describe('Content-Security-Policy', () => {
   it('is sent on API answers and on the app shell', async () => {
     const dist = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-dist-'));
     fs.writeFileSync(path.join(dist, 'index.html'), '<!doctype html><title>x</title>');
-    const { createApp } = await import('../../server/app');
-    const { createAuth } = await import('../../server/auth/auth');
-    const { silentLogger } = await import('../../server/logger');
     const auth = createAuth({ db: t.database.db, config: t.config, mailer: t.mailer, logger: silentLogger });
     const withClient = createApp({ db: t.database.db, auth, mailer: t.mailer, config: t.config, logger: silentLogger, staticDir: dist });
     try {
@@ -307,30 +309,38 @@ describe('Content-Security-Policy', () => {
   });
 });
 
-describe('the server process', () => {
-  it('starts the catcher with the server, writes mail into DATA_DIR/mail and stops cleanly', async () => {
-    const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-mailproc-'));
-    const proc = await spawnServer(dataDir);
+describe('the mailer', () => {
+  it('accepts mail only with its credentials and stops the catcher on close', async () => {
+    const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-mailer-'));
+    const mailer = await createMailer({ db: t.database.db, from: 'Spoolwright <no-reply@spoolwright.test>', logger: silentLogger, mailDir: path.join(dir, 'mail') });
     try {
-      const r = await fetch(`${proc.url}/api/auth/request-password-reset`, {
-        method: 'POST',
-        headers: { 'content-type': 'application/json', origin: proc.url },
-        body: JSON.stringify({ email: demoEmail('lead') }),
+      const { host, port } = mailer.catcherAddress!;
+      // Another local program without the credentials cannot post into the outbox.
+      const intruder = nodemailer.createTransport({ host, port, secure: false, ignoreTLS: true });
+      await expect(intruder.sendMail({ from: 'x@evil.test', to: demoEmail('admin'), subject: 'hi', text: 'x' })).rejects.toThrow();
+      await mailer.send({ to: demoEmail('admin'), subject: 'Über ünïcode — a long subject line that nodemailer folds and encodes', text: 'Grüße\nSecond line' });
+      const text = await readMail(dir, demoEmail('admin'));
+      expect(text).toBe('Grüße\nSecond line\n');
+      await mailer.close();
+      const refused = await new Promise<boolean>((resolve) => {
+        const sock = net.connect(port, host);
+        sock.once('connect', () => {
+          sock.destroy();
+          resolve(false);
+        });
+        sock.once('error', () => resolve(true));
       });
-      expect(r.status).toBe(200);
-      const mail = await readMail(dataDir, demoEmail('lead'), { timeoutMs: 10_000 });
-      expect(mail).toMatch(new RegExp(`${proc.url.replace(/[.:/]/g, '\\$&')}/reset-password\\?token=`));
-      proc.child.kill('SIGTERM');
-      expect(await proc.exited).toBe(0);
+      expect(refused).toBe(true);
+      await expect(mailer.send({ to: demoEmail('admin'), subject: 'late', text: 'x' })).rejects.toThrow(/closed/);
     } finally {
-      if (proc.child.exitCode === null) proc.child.kill('SIGKILL');
-      fs.rmSync(dataDir, { recursive: true, force: true });
+      await mailer.close();
+      fs.rmSync(dir, { recursive: true, force: true });
     }
-  }, 90_000);
+  });
 });
 
 describe('migration 0003 on an existing database', () => {
-  it('keeps existing share links working by their token and hides old outbox tokens', async () => {
+  it('keeps existing share links working by their token and hides old outbox tokens', { timeout: 120_000 }, async () => {
     const { PGlite } = await import('@electric-sql/pglite');
     const { drizzle } = await import('drizzle-orm/pglite');
     const { migrate } = await import('drizzle-orm/pglite/migrator');
