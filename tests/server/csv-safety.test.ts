@@ -1,24 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { neutraliseCsvCell, neutraliseCsvRows, toSafeCsv } from '../../shared/csv/safe-cells';
 import { decodeCsvUpload } from '../../server/csv';
 import { HttpError } from '../../server/errors';
-
-describe('exported CSV cells (shared/csv)', () => {
-  it('prefixes cells that a spreadsheet would run as a formula', () => {
-    for (const v of ['=1+1', '+SUM(A1)', '-2+3', '@cmd', '\t=x', '\r=x', '=HYPERLINK("http://x","y")']) expect(neutraliseCsvCell(v)).toBe(`'${v}`);
-    for (const v of ['A106-B', '4"-PG-1001', 'plain', '', '-20', '+1.5e3', '-.5']) expect(neutraliseCsvCell(v)).toBe(v);
-    expect(neutraliseCsvCell(-20)).toBe(-20);
-    expect(neutraliseCsvCell(null)).toBe(null);
-  });
-
-  it('neutralises rows and whole files, headers included', () => {
-    expect(neutraliseCsvRows([['=a', 1], ['b', '@c']])).toEqual([["'=a", 1], ['b', "'@c"]]);
-    expect(neutraliseCsvRows([{ name: '=cmd|x', n: 3 }])).toEqual([{ name: "'=cmd|x", n: 3 }]);
-    const csv = toSafeCsv([{ id: 'S1', note: '=2+5' }, { id: '-B2', note: 'ok' }]);
-    expect(csv).toBe("id,note\r\nS1,'=2+5\r\n'-B2,ok");
-    expect(toSafeCsv([['=x', 2]], { header: ['@h', 'n'] })).toBe("'@h,n\r\n'=x,2");
-  });
-});
 
 describe('CSV uploads that are not UTF-8', () => {
   const reason = (buf: Buffer, name = 'line-list.csv') => {
