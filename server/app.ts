@@ -2,7 +2,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import express, { type RequestHandler } from 'express';
 import type { Db } from './db/client';
-import type { Auth } from './auth/auth';
+import { sessionCacheOf, type Auth } from './auth/auth';
 import { MembershipCache, loadSession } from './auth/member';
 import type { ServerConfig } from './config';
 import type { Mailer } from './mail/mailer';
@@ -25,6 +25,8 @@ import { RecheckJobs } from './jobs/recheck-jobs';
 import { jobsRouter } from './routes/jobs';
 import { shareRateLimit } from './rate-limit';
 import { waitingRouter } from './routes/waiting';
+import { cspMiddleware } from './csp';
+import { guardAuthHandler, DEFAULT_SIGN_IN_LIMITS } from './auth/sign-in-limits';
 
 export interface AppDeps {
   db: Db;
@@ -86,13 +88,17 @@ export function createApp(deps: AppDeps) {
   app.disable('x-powered-by');
   app.set('trust proxy', false);
   app.use(securityHeaders);
+  app.use(cspMiddleware);
 
   // The validation layer's URL gates run before any route, better-auth's included.
   app.use('/api', guardPath, guardQuery);
 
   // better-auth reads the raw body itself, so it is mounted before the JSON parser. Its rate
   // limiter keys on x-forwarded-for: set it from the socket so clients cannot pick their key.
-  const handleAuth = authHandler(deps.auth);
+  // In front of better-auth: sign-in limits per account and per address, constant-time reset answers.
+  const handleAuth = authHandler(
+    guardAuthHandler((request) => deps.auth.handler(request), { limits: deps.config.rateLimit ? (deps.config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS) : null }),
+  );
   app.all('/api/auth{/*any}', (req, res, next) => {
     req.headers['x-forwarded-for'] = req.socket.remoteAddress ?? '127.0.0.1';
     handleAuth(req, res, next);
@@ -127,7 +133,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials, checks }));
   app.use('/api/check', checkRouter({ materials, checks }));
   app.use('/api', catalogRouter({ db: deps.db, materials, jobs }));
-  app.use('/api/team', teamRouter({ db: deps.db, memberships }));
+  app.use('/api/team', teamRouter({ db: deps.db, memberships, sessions: sessionCacheOf(deps.auth) }));
   app.use('/api/admin/jobs', jobsRouter({ jobs }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);

@@ -26,7 +26,12 @@ export const receiveCsv: RequestHandler = (req, res, next) => {
         next(new HttpError(422, 'validation', 'Attach the CSV as the "file" field', [{ path: 'file', message: 'is required' }]));
         return;
       }
-      res.locals.csv = req.file.buffer.toString('utf8');
+      try {
+        res.locals.csv = decodeCsvUpload(req.file.buffer, req.file.originalname || 'the uploaded file');
+      } catch (e) {
+        next(e);
+        return;
+      }
       next();
     });
     return;
@@ -43,7 +48,12 @@ export const receiveCsv: RequestHandler = (req, res, next) => {
         next(new HttpError(413, 'payload_too_large', 'The CSV file is larger than 1 MB'));
         return;
       }
-      res.locals.csv = Buffer.concat(chunks).toString('utf8');
+      try {
+        res.locals.csv = decodeCsvUpload(Buffer.concat(chunks), 'The CSV body');
+      } catch (e) {
+        next(e);
+        return;
+      }
       next();
     });
     req.on('error', next);
@@ -51,6 +61,46 @@ export const receiveCsv: RequestHandler = (req, res, next) => {
   }
   next(new HttpError(415, 'bad_request', 'Send the CSV as multipart/form-data (field "file") or as text/csv'));
 };
+
+const notUtf8 = (name: string, message: string) =>
+  new HttpError(422, 'validation', `${name} ${message}; save it as "CSV UTF-8" and upload it again`, [{ path: 'file', message }]);
+
+/**
+ * The text of an uploaded CSV, which must be UTF-8 (a UTF-8 byte-order mark is dropped). UTF-16
+ * (by its byte-order mark or its NUL bytes) and other 8-bit encodings such as Latin-1 or
+ * Windows-1252 are refused with a 422 that names the file and, for the latter, the line.
+ */
+export function decodeCsvUpload(buf: Buffer, name: string): string {
+  if (buf.length >= 2 && ((buf[0] === 0xff && buf[1] === 0xfe) || (buf[0] === 0xfe && buf[1] === 0xff))) {
+    throw notUtf8(name, `is UTF-16 text (byte-order mark ${buf[0] === 0xff ? 'FF FE' : 'FE FF'}), not UTF-8`);
+  }
+  const start = buf.length >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf ? 3 : 0;
+  const body = buf.subarray(start);
+  const sample = body.subarray(0, 4096);
+  let nuls = 0;
+  for (const b of sample) if (b === 0) nuls++;
+  if (sample.length > 0 && nuls * 4 >= sample.length) throw notUtf8(name, 'looks like UTF-16 text (every other byte is zero), not UTF-8');
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(body);
+  } catch {
+    const bad = firstInvalidUtf8(body);
+    let line = 1;
+    for (let i = 0; i < bad; i++) if (body[i] === 0x0a) line++;
+    throw notUtf8(name, `is not UTF-8 (for example Latin-1 or Windows-1252): the first byte that is not UTF-8 is on line ${line}`);
+  }
+}
+
+/** Offset of the first byte that does not start or continue a well-formed UTF-8 sequence. */
+function firstInvalidUtf8(b: Uint8Array): number {
+  for (let i = 0; i < b.length; ) {
+    const c = b[i]!;
+    const n = c < 0x80 ? 0 : c >= 0xc2 && c <= 0xdf ? 1 : c >= 0xe0 && c <= 0xef ? 2 : c >= 0xf0 && c <= 0xf4 ? 3 : -1;
+    if (n < 0) return i;
+    for (let k = 1; k <= n; k++) if (i + k >= b.length || (b[i + k]! & 0xc0) !== 0x80) return i;
+    i += n + 1;
+  }
+  return b.length;
+}
 
 export interface CsvRow {
   /** Line number in the file (the header is line 1). */

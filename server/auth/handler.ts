@@ -1,5 +1,4 @@
 import type { Request as ExpressRequest, RequestHandler, Response as ExpressResponse } from 'express';
-import type { Auth } from './auth';
 import { HttpError, validationError } from '../errors';
 import { findBodyTextIssues } from '../validation';
 
@@ -37,7 +36,7 @@ function codeForStatus(status: number): string {
  * (bounded body, storable text) and errors in the API's `{ error: { code, message, details } }`
  * shape. better-auth's own `{ code, message }` fields are kept beside `error` for its clients.
  */
-export function authHandler(auth: Auth): RequestHandler {
+export function authHandler(handle: (request: Request) => Promise<Response>): RequestHandler {
   return async (req, res, next) => {
     try {
       const hasBody = req.method !== 'GET' && req.method !== 'HEAD';
@@ -59,7 +58,7 @@ export function authHandler(auth: Auth): RequestHandler {
         else headers.set(k, v);
       }
       const url = new URL(req.originalUrl, `http://${req.headers.host ?? '127.0.0.1'}`);
-      const answer = await auth.handler(new Request(url, { method: req.method, headers, body: body && body.length > 0 ? new Uint8Array(body) : undefined }));
+      const answer = await handle(new Request(url, { method: req.method, headers, body: body && body.length > 0 ? new Uint8Array(body) : undefined }));
       await sendAnswer(res, answer);
     } catch (err) {
       next(err);

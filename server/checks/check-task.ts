@@ -6,6 +6,7 @@ import { findBodyTextIssues } from '../validation';
 import { summarizeDocument } from '../spools/check';
 import { parseCsv } from '../csv';
 import { readLineList } from '../spools/line-list';
+import { omitSourceNotes } from '../spools/share-tokens';
 import type { StoredCheckSummary } from '../db/schema';
 
 /**
@@ -25,7 +26,7 @@ export type CheckTask =
   /** Validate raw JSON text as a spool document and check it: the answer of POST /api/check. */
   | { kind: 'check-json'; text: string; materials: MaterialsRef }
   /** Check a validated document; the full result as gzip'd JSON (stored with a share link). */
-  | { kind: 'check-document'; document: SpoolDocument; materials: MaterialsRef }
+  | { kind: 'check-document'; document: SpoolDocument; materials: MaterialsRef; omitNotes?: readonly string[] }
   /** The public share answer: `head` + the stored check (gzip bytes, or their base64) gunzipped + `tail`, as bytes. */
   | { kind: 'share-view'; head: string; checkGz: Uint8Array | string; tail: string; materials: MaterialsRef }
   /** Check validated documents and keep what the spool list shows. */
@@ -90,7 +91,9 @@ export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
     }
     document = r.data as SpoolDocument;
   } else document = task.document;
-  const json = JSON.stringify(checkSpool(document, { findMaterial: find }));
+  const result = checkSpool(document, { findMaterial: find });
+  // A check stored with a share link leaves out the team's own material source notes.
+  const json = JSON.stringify(task.kind === 'check-document' && task.omitNotes ? omitSourceNotes(result, task.omitNotes) : result);
   if (task.kind === 'check-document') return { kind: 'gzip', bytes: gzipSync(json, { level: 6 }) };
   return { kind: 'json', bytes: encoder.encode(json) };
 }

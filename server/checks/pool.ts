@@ -66,9 +66,10 @@ export class CheckPool {
   }
 
   /** The full check of a validated document, gzip'd JSON (kept with a share link). */
-  async checkDocumentGz(document: SpoolDocument, materials: MaterialsRef): Promise<Uint8Array> {
+  async checkDocumentGz(document: SpoolDocument, materials: MaterialsRef, omitNotes?: readonly string[]): Promise<Uint8Array> {
     const small = document.elements.length <= INLINE_ELEMENTS;
-    const out = small ? await runCheckTask({ kind: 'check-document', document, materials }) : await this.run({ kind: 'check-document', document, materials });
+    const task: CheckTask = { kind: 'check-document', document, materials, ...(omitNotes ? { omitNotes } : {}) };
+    const out = small ? await runCheckTask(task) : await this.run(task);
     if (out instanceof Uint8Array || out.kind !== 'gzip') throw new Error('check pool: unexpected answer');
     return out.bytes;
   }

@@ -114,8 +114,9 @@ export const spoolEvents = pgTable(
 export const shareLinks = pgTable(
   'share_links',
   {
-    /** Unguessable token used in the public URL. */
     id: text('id').primaryKey(),
+    /** sha-256 (hex) of the unguessable token in the public URL; the token itself is shown once, at creation. */
+    tokenHash: text('token_hash').notNull(),
     teamId: text('team_id')
       .notNull()
       .references(() => teams.id, { onDelete: 'cascade' }),
@@ -134,20 +135,27 @@ export const shareLinks = pgTable(
     /** The check of the shared revision as gzip'd JSON, made once when the link is created (the revision is frozen). */
     checkGz: bytea('check_gz'),
   },
-  (t) => [index('share_links_spool_idx').on(t.spoolId)],
+  (t) => [index('share_links_spool_idx').on(t.spoolId), uniqueIndex('share_links_token_hash_idx').on(t.tokenHash)],
 );
 
-/** Mail sent in development and tests (the fake transport writes here instead of an SMTP server). */
-export const outbox = pgTable('outbox', {
-  id: serial('id').primaryKey(),
-  to: text('to').notNull(),
-  from: text('from').notNull(),
-  subject: text('subject').notNull(),
-  text: text('text').notNull(),
-  /** The full message as the mail library rendered it. */
-  raw: text('raw').notNull(),
-  createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
-});
+/**
+ * Mail the development catcher received (no SMTP_URL), one row per addressees' team, with
+ * one-use links redacted; the whole messages are .eml files in DATA_DIR/mail.
+ */
+export const outbox = pgTable(
+  'outbox',
+  {
+    id: serial('id').primaryKey(),
+    /** Team of the addressees; null when they belong to none (then no outbox view shows it). */
+    teamId: text('team_id').references(() => teams.id, { onDelete: 'cascade' }),
+    to: text('to').notNull(),
+    from: text('from').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [index('outbox_team_idx').on(t.teamId, t.id)],
+);
 
 /** Review comments, optionally pinned to one element of one revision. */
 export const spoolComments = pgTable(

@@ -2,7 +2,7 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { spoolComments, teamMembers, user } from '../db/schema';
+import { shareLinks, spoolComments, teamMembers, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, forbidden, notFound, validationError } from '../errors';
 import { countCsvRows, receiveCsv } from '../csv';
@@ -154,8 +154,12 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
   });
 
   r.delete('/:id', requirePermission('spool:delete'), async (req, res) => {
-    const ok = await softDeleteSpool(db, getTeamId(res), idParam(req.params.id), getContext(res).user.id);
+    const id = idParam(req.params.id);
+    const teamId = getTeamId(res);
+    const ok = await softDeleteSpool(db, teamId, id, getContext(res).user.id);
     if (!ok) throw notFound('Spool not found');
+    // Its share links stop working with it.
+    await db.update(shareLinks).set({ revokedAt: new Date() }).where(and(eq(shareLinks.spoolId, id), eq(shareLinks.teamId, teamId), isNull(shareLinks.revokedAt)));
     res.status(204).end();
   });
 

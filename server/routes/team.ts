@@ -1,9 +1,12 @@
+import { randomUUID } from 'node:crypto';
 import { Router } from 'express';
 import { and, asc, count, eq } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
-import { teamMembers, user } from '../db/schema';
+import { account, session, teamMembers, user } from '../db/schema';
+import { hashPassword } from 'better-auth/crypto';
 import { getTeamId, requirePermission, type MembershipCache } from '../auth/member';
+import type { SessionCache } from '../auth/session-cache';
 import { HttpError, notFound } from '../errors';
 import { parseBody, textParam } from '../validation';
 import { isStorableText, text } from '../../shared/model/fields';
@@ -24,7 +27,7 @@ const addSchema = z.object({
 });
 
 /** /api/team/members: everyone in the team may list; admins add, re-role and remove. */
-export function teamRouter(deps: { db: Db; memberships: MembershipCache }) {
+export function teamRouter(deps: { db: Db; memberships: MembershipCache; sessions: SessionCache }) {
   const { db } = deps;
   const r = Router();
 
@@ -50,10 +53,36 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache }) {
     const body = parseBody(addSchema, req.body ?? {});
     const teamId = getTeamId(res);
     const email = body.email.toLowerCase();
-    const [existing] = await db.select({ id: user.id }).from(user).where(eq(user.email, email)).limit(1);
-    if (existing) throw new HttpError(409, 'conflict', 'A user with this e-mail already exists');
-    const id = await createUserWithPassword(db, { email, name: body.name, password: body.password });
-    await db.insert(teamMembers).values({ teamId, userId: id, role: body.role });
+    const [existing] = await db
+      .select({ id: user.id, teamId: teamMembers.teamId })
+      .from(user)
+      .leftJoin(teamMembers, eq(teamMembers.userId, user.id))
+      .where(eq(user.email, email))
+      .limit(1);
+    if (existing?.teamId) throw new HttpError(409, 'conflict', 'A user with this e-mail already exists');
+    let id: string;
+    if (existing) {
+      // A former member (removed from a team): join again with the name and password given now.
+      id = existing.id;
+      const passwordHash = await hashPassword(body.password);
+      await db.transaction(async (tx) => {
+        await tx.update(user).set({ name: body.name }).where(eq(user.id, id));
+        await tx.delete(session).where(eq(session.userId, id));
+        const done = await tx
+          .update(account)
+          .set({ password: passwordHash })
+          .where(and(eq(account.userId, id), eq(account.providerId, 'credential')))
+          .returning({ id: account.id });
+        if (done.length === 0) {
+          await tx.insert(account).values({ id: randomUUID(), accountId: id, providerId: 'credential', userId: id, password: passwordHash, createdAt: new Date(), updatedAt: new Date() });
+        }
+        await tx.insert(teamMembers).values({ teamId, userId: id, role: body.role });
+      });
+      deps.sessions.revokeUser(id);
+    } else {
+      id = await createUserWithPassword(db, { email, name: body.name, password: body.password });
+      await db.insert(teamMembers).values({ teamId, userId: id, role: body.role });
+    }
     deps.memberships.invalidate(id);
     res.status(201).json({ userId: id, email, name: body.name, role: body.role });
   });
@@ -80,6 +109,9 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache }) {
     if (!m) throw notFound('Member not found');
     if (m.role === 'admin' && (await adminCount(teamId)) <= 1) throw new HttpError(409, 'conflict', 'A team keeps at least one admin');
     await db.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
+    // A removed member is signed out everywhere; the account stays, so they can be added again.
+    await db.delete(session).where(eq(session.userId, userId));
+    deps.sessions.revokeUser(userId);
     deps.memberships.invalidate(userId);
     res.status(204).end();
   });

@@ -6,6 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { ROOT } from '../../scripts/lib/tooling';
+import { parseMail } from '../../server/mail/mime';
 
 export const RESULTS = path.join(ROOT, 'test-results');
 export const PASSWORD = 'spoolwright-demo';
@@ -15,6 +16,8 @@ export const STEP_TIMEOUT = 20_000;
 export interface E2EShared {
   spoolId?: string;
   spoolName?: string;
+  /** The server's DATA_DIR; its mail/ folder holds every message the development catcher received. */
+  dataDir?: string;
   [key: string]: unknown;
 }
 
@@ -160,3 +163,44 @@ export async function statusOf(page: Page, id: string): Promise<string | null> {
 }
 
 // ---------------------------------------------------------------------------------------------
+
+// ---------------------------------------------------------------------------------------------
+// Mail: without SMTP_URL the server's catcher keeps each message as DATA_DIR/mail/*.eml.
+
+export interface ReadMailOptions {
+  /** Only mail that arrived at or after this time (ms since the epoch). */
+  after?: number;
+  /** Only mail whose subject matches. */
+  subject?: RegExp;
+  /** How long to wait for it to arrive (mail may be sent in the background); default 5 s. */
+  timeoutMs?: number;
+}
+
+/**
+ * The decoded text of the newest message to `to` in `dataDir`/mail (waiting for it to arrive);
+ * throws when none comes. The one place tests read one-use links (reset, invitation) from.
+ */
+export async function readMail(dataDir: string, to: string, opts: ReadMailOptions = {}): Promise<string> {
+  const dir = path.join(dataDir, 'mail');
+  const want = to.toLowerCase();
+  const deadline = Date.now() + (opts.timeoutMs ?? 5000);
+  for (;;) {
+    const files = fs.existsSync(dir)
+      ? fs
+          .readdirSync(dir)
+          .filter((f) => f.endsWith('.eml'))
+          .sort()
+          .reverse()
+      : [];
+    for (const f of files) {
+      const file = path.join(dir, f);
+      if (opts.after !== undefined && fs.statSync(file).mtimeMs < opts.after - 5) continue;
+      const mail = parseMail(fs.readFileSync(file));
+      if (!mail.to.includes(want)) continue;
+      if (opts.subject && !opts.subject.test(mail.subject)) continue;
+      return mail.text;
+    }
+    if (Date.now() > deadline) throw new Error(`no mail to ${to} in ${dir}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}

@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, demoEmail, sampleDocument, type TestApp } from './helpers';
+import { createTestApp, DEMO_PASSWORD, demoEmail, sampleDocument, type TestApp } from './helpers';
 import { teams, teamMembers } from '../../server/db/schema';
 import { createUserWithPassword } from '../../server/db/seed';
 import { buildLongSpool } from '../../server/db/demo-spools';
@@ -265,18 +265,29 @@ describe('lifecycle, revisions and mail', () => {
 });
 
 describe('password reset by e-mail', () => {
-  it('mails a reset link; the token sets a new password', async () => {
+  it('mails a reset link; the token sets a new password and ends the old sessions at once', async () => {
+    const before = await t.signIn('fabricator');
+    await before.get('/api/me').expect(200);
     const anon = t.anon();
     const req = await anon.post('/api/auth/request-password-reset').send({ email: demoEmail('fabricator'), redirectTo: '/reset-password' });
     expect(req.status).toBe(200);
-    const mail = await (await t.signIn('admin')).get('/api/admin/outbox');
-    const msg = mail.body.items.find((m: { to: string; subject: string }) => m.to === demoEmail('fabricator') && /reset/i.test(m.subject));
-    expect(msg).toBeDefined();
-    const token = /reset-password\/([^?\s]+)/.exec(msg.text)?.[1];
+    // The link reaches the addressee's mailbox (the catcher's .eml files), not the outbox.
+    const text = await t.readMail(demoEmail('fabricator'), { subject: /reset/i });
+    const token = /\/reset-password\?token=([^\s&]+)/.exec(text)?.[1];
     expect(token).toBeTruthy();
     await anon.post('/api/auth/reset-password').send({ token, newPassword: 'a-brand-new-password' }).expect(200);
     await anon.post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'a-brand-new-password' }).expect(200);
     await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'spoolwright-demo' }).expect(401);
+    // The session from before the reset is revoked: no read, no write.
+    expect((await before.get('/api/me')).status).toBe(401);
+    expect((await before.post('/api/spools').send({ document: sampleDocument('After reset') })).status).toBe(401);
+    t.forget('fabricator');
+    // Put the demo password back for the tests that follow.
+    const again = t.anon();
+    const sentAfter = Date.now();
+    await again.post('/api/auth/request-password-reset').send({ email: demoEmail('fabricator') }).expect(200);
+    const back = /\/reset-password\?token=([^\s&]+)/.exec(await t.readMail(demoEmail('fabricator'), { subject: /reset/i, after: sentAfter }))?.[1];
+    await again.post('/api/auth/reset-password').send({ token: back, newPassword: DEMO_PASSWORD }).expect(200);
   });
 });
 
@@ -305,17 +316,17 @@ describe('check, catalog and share links', () => {
     const lead = await t.signIn('lead');
     const share = await lead.post(`/api/spools/${s.id}/shares`).send({ expiresInDays: 7 });
     expect(share.status).toBe(201);
-    expect(share.body).toMatchObject({ revision: 0, active: true, url: expect.stringContaining(`/share/${share.body.id}`) });
-    const view = await t.anon().get(`/api/share/${share.body.id}`);
+    expect(share.body).toMatchObject({ revision: 0, active: true, state: 'active', url: expect.stringContaining(`/share/${share.body.token}`) });
+    const view = await t.anon().get(`/api/share/${share.body.token}`);
     expect(view.status).toBe(200);
     expect(view.body.spool).toMatchObject({ name: 'Shared', revision: 0 });
     expect(view.body.check.elements).toHaveLength(3);
     // Later edits of the draft do not leak into the link.
     await lead.put(`/api/spools/${s.id}`).send({ document: sampleDocument('Shared', { line: 'changed' }), baseVersion: 1 }).expect(200);
-    expect((await t.anon().get(`/api/share/${share.body.id}`)).body.spool.line).toBe('2"-TS-0001-A1');
+    expect((await t.anon().get(`/api/share/${share.body.token}`)).body.spool.line).toBe('2"-TS-0001-A1');
     expect((await lead.get(`/api/spools/${s.id}/shares`)).body.items).toHaveLength(1);
     await lead.delete(`/api/spools/${s.id}/shares/${share.body.id}`).expect(204);
-    expect((await t.anon().get(`/api/share/${share.body.id}`)).status).toBe(410);
+    expect((await t.anon().get(`/api/share/${share.body.token}`)).status).toBe(410);
     expect((await t.anon().get('/api/share/not-a-token')).status).toBe(404);
   });
 });

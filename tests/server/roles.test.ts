@@ -35,7 +35,7 @@ interface RouteCase {
 
 let t: TestApp;
 let admin: request.Agent;
-let fixed: { spoolId: string; shareId: string; fabricatorId: string };
+let fixed: { spoolId: string; shareId: string; shareToken: string; fabricatorId: string };
 
 async function newSpool(state: 'draft' | 'submitted' | 'checked' = 'draft') {
   const r = await admin.post('/api/spools').send({ document: sampleDocument(`Matrix ${randomUUID().slice(0, 8)}`) });
@@ -133,12 +133,12 @@ const ROUTES: RouteCase[] = [
       return { method: 'delete', path: `/api/spools/${fixed.spoolId}/shares/${s.body.id}` };
     },
   },
-  { name: 'GET /api/share/:token (public view)', allowed: EVERY_MEMBER, isPublic: true, setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareId}` }) },
+  { name: 'GET /api/share/:token (public view)', allowed: EVERY_MEMBER, isPublic: true, setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareToken}` }) },
   {
     name: 'GET /api/share/:token/calc-sheet.pdf (public)',
     allowed: EVERY_MEMBER,
     isPublic: true,
-    setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareId}/calc-sheet.pdf` }),
+    setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareToken}/calc-sheet.pdf` }),
   },
   { name: 'GET /api/team/members', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/team/members' }) },
   {
@@ -183,7 +183,7 @@ beforeAll(async () => {
   const share = await admin.post(`/api/spools/${s.id}/shares`).send({});
   const members = await admin.get('/api/team/members');
   const fab = members.body.items.find((m: { role: string }) => m.role === 'fabricator');
-  fixed = { spoolId: s.id, shareId: share.body.id, fabricatorId: fab.userId };
+  fixed = { spoolId: s.id, shareId: share.body.id, shareToken: share.body.token, fabricatorId: fab.userId };
 });
 afterAll(async () => {
   await t?.close();
