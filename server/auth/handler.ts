@@ -86,6 +86,13 @@ async function sendAnswer(res: ExpressResponse, answer: Response) {
   } catch {
     data = raw.length > 0 ? { message: raw.toString('utf8').slice(0, 300) } : {};
   }
+  // An answer already in the API's shape (e.g. the sign-in limits' 429) is passed on as it is.
+  const own = data.error as { code?: unknown } | undefined;
+  if (own && typeof own === 'object' && typeof own.code === 'string') {
+    res.setHeader('content-type', 'application/json; charset=utf-8');
+    res.end(raw);
+    return;
+  }
   const message = typeof data.message === 'string' && data.message !== '' ? data.message : `The sign-in service refused the request (${answer.status})`;
   const details = typeof data.code === 'string' ? [{ path: 'body', message: data.code }] : [{ path: 'body', message }];
   res.setHeader('content-type', 'application/json; charset=utf-8');
