@@ -20,6 +20,7 @@ import { TeamMaterials } from './materials/team-materials';
 import { commentsRouter } from './routes/comments';
 import { calcSheetRouter, publicCalcSheetRouter } from './routes/calc-sheet';
 import { waitingRouter } from './routes/waiting';
+import { invitationsRouter } from './routes/invitations';
 
 export interface AppDeps {
   db: Db;
@@ -87,6 +88,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/share', publicShareRouter({ db: deps.db, materials }));
   app.use('/api/share', publicCalcSheetRouter({ db: deps.db, materials }));
   const memberships = new MembershipCache(deps.db);
+  app.use('/api/invitations', invitationsRouter({ db: deps.db, memberships, rateLimit: deps.config.rateLimit }));
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
   app.use('/api/waiting', waitingRouter({ db: deps.db }));
@@ -96,7 +98,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials }));
   app.use('/api/check', checkRouter({ materials }));
   app.use('/api', catalogRouter({ db: deps.db, materials }));
-  app.use('/api/team', teamRouter({ db: deps.db, memberships }));
+  app.use('/api/team', teamRouter({ db: deps.db, memberships, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);
 

@@ -5,8 +5,9 @@ import { authSchema } from '../db/auth-schema';
 import type { ServerConfig } from '../config';
 import type { Logger } from '../logger';
 import { sendQuietly, type Mailer } from '../mail/mailer';
+import { MAX_PASSWORD_LENGTH, MIN_PASSWORD_LENGTH } from '../../shared/model/team';
 
-export const MIN_PASSWORD_LENGTH = 10;
+export { MIN_PASSWORD_LENGTH };
 
 /**
  * better-auth with email + password, sessions in the database and a short cookie cache so that
@@ -25,10 +26,12 @@ export function createAuth(deps: { db: Db; config: ServerConfig; mailer: Mailer;
       enabled: true,
       disableSignUp: true,
       minPasswordLength: MIN_PASSWORD_LENGTH,
-      maxPasswordLength: 128,
+      maxPasswordLength: MAX_PASSWORD_LENGTH,
       resetPasswordTokenExpiresIn: 60 * 60,
       revokeSessionsOnPasswordReset: true,
-      sendResetPassword: async ({ user, url }) => {
+      sendResetPassword: async ({ user, token }) => {
+        // The link opens the app's own set-new-password page, which posts the token back.
+        const url = `${config.publicUrl}/reset-password?token=${encodeURIComponent(token)}`;
         await sendQuietly(mailer, logger, {
           to: user.email,
           subject: 'Reset your Spoolwright password',

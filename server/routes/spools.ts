@@ -109,6 +109,18 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     res.status(201).location(`/api/spools/${id}`).json(await getSpool(db, teamId, id));
   });
 
+  // Dry run of the line-list CSV: the spools it would create and every bad cell by line and column. Never writes.
+  r.post('/import/preview', requirePermission('spool:edit'), receiveCsv, async (_req, res) => {
+    const csv = parseCsv(String(res.locals.csv ?? ''));
+    if (csv.errors.length > 0) {
+      res.json({ ok: false, issues: csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), items: [] });
+      return;
+    }
+    const { docs, lines, issues } = readLineList(csv.headers, csv.rows);
+    const items = docs.map((document, i) => ({ line: lines[i] ?? null, name: document.name, pipeLine: document.line ?? '', units: document.units, conditions: document.conditions }));
+    res.json({ ok: issues.length === 0, issues, items, rows: csv.rows.length });
+  });
+
   // Line-list CSV: one spool per row with its design conditions; all rows or none.
   r.post('/import', requirePermission('spool:edit'), receiveCsv, async (_req, res) => {
     const csv = parseCsv(String(res.locals.csv ?? ''));

@@ -42,7 +42,10 @@ const issue = (line: number, column: string | null, message: string): CsvIssue =
  * Turn line-list rows into spool documents holding design conditions (no elements yet).
  * Every problem is reported with its line; callers write nothing unless `issues` is empty.
  */
-export function readLineList(headers: readonly string[], rows: readonly CsvRow[]): { docs: SpoolDocument[]; issues: CsvIssue[] } {
+export function readLineList(
+  headers: readonly string[],
+  rows: readonly CsvRow[],
+): { docs: SpoolDocument[]; lines: number[]; issues: CsvIssue[] } {
   const issues: CsvIssue[] = [];
   const known = new Map<string, string>();
   for (const h of headers) {
@@ -52,9 +55,11 @@ export function readLineList(headers: readonly string[], rows: readonly CsvRow[]
   }
   for (const r of REQUIRED) if (![...known.values()].includes(r)) issues.push(issue(1, r, 'required column is missing'));
   if (rows.length === 0) issues.push(issue(2, null, 'the file has no data rows'));
-  if (issues.length > 0) return { docs: [], issues };
+  if (issues.length > 0) return { docs: [], lines: [], issues };
 
   const docs: SpoolDocument[] = [];
+  /** File line of each document in `docs`. */
+  const lines: number[] = [];
   for (const row of rows) {
     const doc: Record<string, unknown> = { units: 'imperial', elements: [] };
     const conditions: Record<string, unknown> = {};
@@ -75,7 +80,10 @@ export function readLineList(headers: readonly string[], rows: readonly CsvRow[]
         const column = typeof field === 'string' ? (FIELD_TO_COLUMN.get(field) ?? formatPath(iss.path)) : formatPath(iss.path);
         issues.push(issue(row.line, column, iss.message));
       }
-    } else if (doc.name !== undefined) docs.push(parsed.data as SpoolDocument);
+    } else if (doc.name !== undefined) {
+      docs.push(parsed.data as SpoolDocument);
+      lines.push(row.line);
+    }
   }
-  return { docs, issues };
+  return { docs, lines, issues };
 }

@@ -272,7 +272,8 @@ describe('password reset by e-mail', () => {
     const mail = await (await t.signIn('admin')).get('/api/admin/outbox');
     const msg = mail.body.items.find((m: { to: string; subject: string }) => m.to === demoEmail('fabricator') && /reset/i.test(m.subject));
     expect(msg).toBeDefined();
-    const token = /reset-password\/([^?\s]+)/.exec(msg.text)?.[1];
+    expect(msg.text).toContain(`${t.config.publicUrl}/reset-password?token=`);
+    const token = decodeURIComponent(/reset-password\?token=([^\s&]+)/.exec(msg.text)?.[1] ?? '');
     expect(token).toBeTruthy();
     await anon.post('/api/auth/reset-password').send({ token, newPassword: 'a-brand-new-password' }).expect(200);
     await anon.post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'a-brand-new-password' }).expect(200);
@@ -376,7 +377,8 @@ describe('team materials library', () => {
     expect(list.body.items.find((m: { id: string }) => m.id === 'A106-B')).toMatchObject({ origin: 'library' });
     const saved = await admin.post('/api/spools').send({ document: doc });
     expect(saved.body.summary.invalid).toBe(0);
-    await admin.delete('/api/materials/KX-CS-70').expect(204);
+    const del = await admin.delete('/api/materials/KX-CS-70').expect(200);
+    expect(del.body).toMatchObject({ deleted: 'KX-CS-70', rechecked: expect.any(Number) });
     // Stored summaries follow the library; the save counter does not move.
     const reread = await admin.get(`/api/spools/${saved.body.id}`);
     expect(reread.body).toMatchObject({ version: 1, summary: { invalid: 3 } });
