@@ -55,7 +55,7 @@ export const teamMaterialInputSchema = z
   .superRefine((v, ctx) => {
     const seen = new Set<number>();
     v.points.forEach((p, i) => {
-      if (seen.has(p.tempF)) ctx.addIssue({ code: 'custom', path: ['points', i, 'tempF'], message: `temperature ${p.tempF} °F appears twice` });
+      if (seen.has(p.tempF)) ctx.addIssue({ code: 'custom', path: ['points', i, 'tempF'], message: `${p.tempF} °F appears twice` });
       seen.add(p.tempF);
     });
     if (v.yieldKsi >= v.tensileKsi) ctx.addIssue({ code: 'custom', path: ['yieldKsi'], message: 'must be below the tensile strength' });
