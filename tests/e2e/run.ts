@@ -173,6 +173,7 @@ async function main(): Promise<number> {
       timeout: 30_000,
     });
     const shared: E2EShared = {};
+    shared.dataDir = dataDir;
     for (const j of journeys) {
       console.log(`== ${j.name}`);
       await j.run(browser, server.url, shared);
