@@ -186,6 +186,7 @@ export const adminJourney: E2EJourney = {
           await admin.getByRole('button', { name: 'Check the file' }).click();
           const issue = admin.locator('[data-testid="csv-issues"] tr[data-line="3"][data-column="stress_ksi"]');
           await issue.waitFor();
+          await issue.scrollIntoViewIfNeeded();
           await screenshot(admin, 'admin-materials-csv-errors');
           expect((await admin.getByRole('button', { name: /^Import \d/ }).count()) === 0, 'no import while the file has problems');
           const fixed = bad.replace(',300,abc', ',300,19.8');
@@ -249,6 +250,8 @@ export const adminJourney: E2EJourney = {
           await item.waitFor();
           await item.getByRole('button').click();
           await item.getByText(/Hello Ilse Varga/).waitFor();
+          const shown = (await item.locator('pre').textContent()) ?? '';
+          expect(shown.includes('accept-invite?token=[hidden]'), 'the invitation token is not shown in the outbox');
           await screenshot(admin, 'admin-outbox');
         });
       },

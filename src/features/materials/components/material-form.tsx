@@ -93,7 +93,7 @@ export function MaterialForm() {
         <legend className="mb-1 text-xs font-medium text-steel-600">Allowable stress by temperature</legend>
         <div className="flex flex-col gap-2">
           {points.fields.map((field, i) => (
-            <div key={field.id} className="grid grid-cols-[10rem_10rem_10rem_auto] items-start gap-3" data-point-row={i + 1}>
+            <div key={field.id} className="grid grid-cols-[12rem_12rem_12rem_auto] items-start gap-3" data-point-row={i + 1}>
               <TextField label={`Row ${i + 1}: temperature`} unit="°F" type="number" step="any" {...form.register(`points.${i}.tempF`, num)} error={say(`Row ${i + 1} temperature`, errors.points?.[i]?.tempF)} />
               <TextField label={`Row ${i + 1}: allowable stress S`} unit="ksi" type="number" step="any" {...form.register(`points.${i}.stressKsi`, num)} error={say(`Row ${i + 1} allowable stress`, errors.points?.[i]?.stressKsi)} />
               <TextField label={`Row ${i + 1}: yield at temperature`} unit="ksi, optional" type="number" step="any" {...form.register(`points.${i}.yieldAtKsi`, num)} error={say(`Row ${i + 1} yield`, errors.points?.[i]?.yieldAtKsi)} />

@@ -119,11 +119,11 @@ function MaterialLine(props: {
         </span>
       </td>
       <td className={tdClass}>
-        <span className={cn('rounded px-1.5 py-px text-xs font-medium', m.origin === 'team' ? 'bg-copper-400/20 text-copper-600' : 'bg-steel-100 text-steel-600')}>
+        <span className={cn('whitespace-nowrap rounded px-1.5 py-px text-xs font-medium', m.origin === 'team' ? 'bg-copper-400/20 text-copper-600' : 'bg-steel-100 text-steel-600')}>
           {m.origin === 'team' ? 'Team' : 'Built-in'}
         </span>
       </td>
-      <td className={cn(tdClass, 'tabular-nums')}>
+      <td className={cn(tdClass, 'whitespace-nowrap tabular-nums')}>
         {temps.length} · {Math.min(...temps)}–{Math.max(...temps)} °F
       </td>
       <td className={cn(tdClass, 'max-w-md text-xs text-steel-700')}>{m.origin === 'team' ? m.sourceNote || m.source : m.source}</td>

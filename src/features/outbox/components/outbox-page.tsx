@@ -7,6 +7,9 @@ import { formatDateTime } from '@/lib/format';
 import { cn } from '@/lib/cn';
 import { useOutbox } from '../api/get-outbox';
 
+/** One-use link tokens are not shown to the admin, whatever the server sends (the addressee's mailbox has them). */
+export const hideTokens = (text: string) => text.replace(/([?&]token=)[^\s&]+/g, '$1[hidden]');
+
 /** Mail the server sent to the team, as the development mail catcher received it (admins). */
 export function OutboxPage() {
   const [limit, setLimit] = useState(50);
@@ -17,7 +20,7 @@ export function OutboxPage() {
   return (
     <PageFrame
       title="Outbox"
-      intro="Mail the server sent to your team (newest first). One-use links are hidden here; they reach only the addressee."
+      intro="Mail the server sent, newest first, as the development mail catcher received it. One-use links (invitations, password resets) are hidden: they are for the addressee alone."
       actions={
         <Button size="sm" onClick={() => void outbox.refetch()} disabled={outbox.isFetching}>
           {outbox.isFetching ? 'Refreshing…' : 'Refresh'}
@@ -52,7 +55,7 @@ export function OutboxPage() {
                       <p className="mb-2 text-xs text-steel-500">
                         From {m.from} · to {m.to} · {formatDateTime(m.createdAt)}
                       </p>
-                      <pre className="whitespace-pre-wrap break-words font-sans text-steel-800">{m.text}</pre>
+                      <pre className="whitespace-pre-wrap break-words font-sans text-steel-800">{hideTokens(m.text)}</pre>
                     </div>
                   ) : null}
                 </li>
