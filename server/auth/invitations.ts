@@ -1,7 +1,8 @@
 import { createHash, randomBytes, randomUUID } from 'node:crypto';
+import { hashPassword } from 'better-auth/crypto';
 import { and, desc, eq, gt, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { teamInvitations, teamMembers, teams, user } from '../db/schema';
+import { account, session, teamInvitations, teamMembers, teams, user } from '../db/schema';
 import { createUserWithPassword } from '../db/seed';
 import { HttpError, notFound } from '../errors';
 import { sendQuietly, type MailMessage, type Mailer } from '../mail/mailer';
@@ -58,9 +59,17 @@ export async function createInvitation(
 ) {
   const { db } = deps;
   const email = v.input.email.toLowerCase();
-  const [existing] = await db.select({ id: user.id }).from(user).where(eq(user.email, email)).limit(1);
-  if (existing) {
-    throw new HttpError(409, 'conflict', `${email} already has an account`, [{ path: 'email', message: 'already has an account' }]);
+  // A person removed from a team keeps the account and may be invited again; a member may not.
+  const [existing] = await db
+    .select({ id: user.id, teamId: teamMembers.teamId })
+    .from(user)
+    .leftJoin(teamMembers, eq(teamMembers.userId, user.id))
+    .where(eq(user.email, email))
+    .limit(1);
+  if (existing?.teamId) {
+    throw new HttpError(409, 'conflict', `${email} is already a member of ${existing.teamId === v.teamId ? 'this' : 'another'} team`, [
+      { path: 'email', message: 'is already a team member' },
+    ]);
   }
   const [team] = await db.select({ name: teams.name }).from(teams).where(eq(teams.id, v.teamId)).limit(1);
   const token = randomBytes(32).toString('base64url');
@@ -161,9 +170,31 @@ export async function acceptInvitation(db: Db, token: string, password: string) 
       .where(and(eq(teamInvitations.id, inv.id), isNull(teamInvitations.acceptedAt), isNull(teamInvitations.revokedAt), gt(teamInvitations.expiresAt, new Date())))
       .returning({ id: teamInvitations.id });
     if (claimed.length === 0) throw new HttpError(410, 'gone', GONE.accepted, { state: 'accepted' });
-    const [existing] = await t.select({ id: user.id }).from(user).where(eq(user.email, inv.email)).limit(1);
-    if (existing) throw new HttpError(409, 'conflict', `${inv.email} already has an account; sign in instead`);
-    const userId = await createUserWithPassword(t, { email: inv.email, name: inv.name, password });
+    const [existing] = await t
+      .select({ id: user.id, teamId: teamMembers.teamId })
+      .from(user)
+      .leftJoin(teamMembers, eq(teamMembers.userId, user.id))
+      .where(eq(user.email, inv.email))
+      .limit(1);
+    if (existing?.teamId) throw new HttpError(409, 'conflict', `${inv.email} is already a team member; sign in instead`);
+    let userId: string;
+    if (existing) {
+      // A former member: the chosen password replaces the old one and their sessions end.
+      userId = existing.id;
+      const hash = await hashPassword(password);
+      const updated = await t
+        .update(account)
+        .set({ password: hash, updatedAt: new Date() })
+        .where(and(eq(account.userId, userId), eq(account.providerId, 'credential')))
+        .returning({ id: account.id });
+      if (updated.length === 0) {
+        const now = new Date();
+        await t.insert(account).values({ id: randomUUID(), accountId: userId, providerId: 'credential', userId, password: hash, createdAt: now, updatedAt: now });
+      }
+      await t.delete(session).where(eq(session.userId, userId));
+    } else {
+      userId = await createUserWithPassword(t, { email: inv.email, name: inv.name, password });
+    }
     await t.insert(teamMembers).values({ teamId: inv.teamId, userId, role: inv.role });
     return { userId, email: inv.email, name: inv.name, role: inv.role };
   });

@@ -3,7 +3,7 @@ import os from 'node:os';
 import path from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { createTestApp, type TestApp } from './helpers';
-import { teamInvitations } from '../../server/db/schema';
+import { session, teamInvitations } from '../../server/db/schema';
 import { hashToken } from '../../server/auth/invitations';
 import { eq } from 'drizzle-orm';
 
@@ -77,10 +77,32 @@ describe('invitations', () => {
     expect(again.body.error.message).toMatch(/already been used/);
     const list = await admin.get('/api/team/invitations');
     expect(list.body.items.find((i: { id: string }) => i.id === sent.body.id).state).toBe('accepted');
-    // An address with an account cannot be invited.
+    // A member cannot be invited again.
     const dup = await admin.post('/api/team/invitations').send({ name: 'Ilse', email: 'ilse.varga@spoolwright.test', role: 'designer' });
     expect(dup.status).toBe(409);
     expect(dup.body.error.details[0].path).toBe('email');
+  });
+
+  it('lets a removed member be invited back with a new password; their old sessions end', async () => {
+    const admin = await t.signIn('admin');
+    await admin.post('/api/team/invitations').send({ name: 'Rune Falk', email: 'rune.falk@spoolwright.test', role: 'fabricator' }).expect(201);
+    const first = inviteToken(await latestMailText('rune.falk@spoolwright.test', /accept-invite\?token=/));
+    await t.anon().post('/api/invitations/accept').send({ token: first, password: 'rune-first-password' }).expect(201);
+    const old = t.anon();
+    await old.post('/api/auth/sign-in/email').send({ email: 'rune.falk@spoolwright.test', password: 'rune-first-password' }).expect(200);
+    const id = (await old.get('/api/me')).body.user.id as string;
+    await admin.delete(`/api/team/members/${id}`).expect(204);
+
+    await admin.post('/api/team/invitations').send({ name: 'Rune Falk', email: 'rune.falk@spoolwright.test', role: 'lead' }).expect(201);
+    const second = inviteToken(await latestMailText('rune.falk@spoolwright.test', /accept-invite\?token=(?!\S*${first})/));
+    expect(second).not.toBe(first);
+    await t.anon().post('/api/invitations/accept').send({ token: second, password: 'rune-second-password' }).expect(201);
+    // Sessions are deleted (a signed cookie cache may carry one for up to five minutes).
+    expect(await t.database.db.select().from(session).where(eq(session.userId, id))).toEqual([]);
+    await t.anon().post('/api/auth/sign-in/email').send({ email: 'rune.falk@spoolwright.test', password: 'rune-first-password' }).expect(401);
+    const back = t.anon();
+    await back.post('/api/auth/sign-in/email').send({ email: 'rune.falk@spoolwright.test', password: 'rune-second-password' }).expect(200);
+    expect((await back.get('/api/me')).body).toMatchObject({ user: { id }, role: 'lead' });
   });
 
   it('refuses expired, withdrawn and unknown links, and names bad fields', async () => {
