@@ -1,15 +1,19 @@
 import { NavLink } from 'react-router-dom';
-import { useCan } from '@/features/auth/use-can';
+import { useMe } from '@/features/auth/api/get-me';
 import { cn } from '@/lib/cn';
 
 const linkClass = ({ isActive }: { isActive: boolean }) => cn('rounded px-2 py-1 hover:bg-steel-700', isActive && 'bg-steel-700 text-white');
 
-/** Header links to the team's own pages, for the roles that may use them. */
+/**
+ * Header links to the team's own pages, for the roles that may use them. Reads the actions the
+ * server lists in /api/me (not the permission table), so the shell stays small.
+ */
 export function AdminNav() {
-  const manageTeam = useCan('team:manage');
-  const manageMaterials = useCan('materials:manage');
-  const importSpools = useCan('spool:edit');
-  const readOutbox = useCan('outbox:read');
+  const allowed = new Set(useMe().data?.permissions ?? []);
+  const manageTeam = allowed.has('team:manage');
+  const manageMaterials = allowed.has('materials:manage');
+  const importSpools = allowed.has('spool:edit');
+  const readOutbox = allowed.has('outbox:read');
   return (
     <>
       {importSpools ? (
