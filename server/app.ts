@@ -1,9 +1,8 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import express, { type RequestHandler } from 'express';
-import { toNodeHandler } from 'better-auth/node';
 import type { Db } from './db/client';
-import type { Auth } from './auth/auth';
+import { sessionCacheOf, type Auth } from './auth/auth';
 import { MembershipCache, loadSession } from './auth/member';
 import type { ServerConfig } from './config';
 import type { Mailer } from './mail/mailer';
@@ -19,8 +18,16 @@ import { teamRouter } from './routes/team';
 import { TeamMaterials } from './materials/team-materials';
 import { commentsRouter } from './routes/comments';
 import { calcSheetRouter, publicCalcSheetRouter } from './routes/calc-sheet';
+import { authHandler } from './auth/handler';
+import { guardBody, guardPath, guardQuery } from './validation';
+import { CheckPool } from './checks/pool';
+import { RecheckJobs } from './jobs/recheck-jobs';
+import { jobsRouter } from './routes/jobs';
+import { shareRateLimit } from './rate-limit';
 import { waitingRouter } from './routes/waiting';
 import { invitationsRouter } from './routes/invitations';
+import { cspMiddleware } from './csp';
+import { guardAuthHandler, DEFAULT_SIGN_IN_LIMITS } from './auth/sign-in-limits';
 
 export interface AppDeps {
   db: Db;
@@ -30,6 +37,24 @@ export interface AppDeps {
   logger?: Logger;
   /** Built client to serve with SPA fallback (dist/); omitted in tests and the API-only dev server. */
   staticDir?: string | undefined;
+  /** Worker pool for spool checks; one is made when omitted (close it with `closeAppServices`). */
+  checks?: CheckPool;
+}
+
+/** What createApp starts besides routes: the check pool and the background re-check jobs. */
+export interface AppServices {
+  checks: CheckPool;
+  jobs: RecheckJobs;
+}
+
+/** The services of an app made by createApp. */
+export const getAppServices = (app: express.Express): AppServices => app.locals.services as AppServices;
+
+/** Stop background jobs and the check pool's threads. */
+export async function closeAppServices(app: express.Express): Promise<void> {
+  const s = getAppServices(app);
+  await s.jobs.stop();
+  await s.checks.close();
 }
 
 /** Largest JSON body accepted (a 20,000-element spool document fits comfortably). */
@@ -64,13 +89,20 @@ export function createApp(deps: AppDeps) {
   app.disable('x-powered-by');
   app.set('trust proxy', false);
   app.use(securityHeaders);
+  app.use(cspMiddleware);
+
+  // The validation layer's URL gates run before any route, better-auth's included.
+  app.use('/api', guardPath, guardQuery);
 
   // better-auth reads the raw body itself, so it is mounted before the JSON parser. Its rate
   // limiter keys on x-forwarded-for: set it from the socket so clients cannot pick their key.
-  const authHandler = toNodeHandler(deps.auth);
+  // In front of better-auth: sign-in limits per account and per address, constant-time reset answers.
+  const handleAuth = authHandler(
+    guardAuthHandler((request) => deps.auth.handler(request), { limits: deps.config.rateLimit ? (deps.config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS) : null }),
+  );
   app.all('/api/auth{/*any}', (req, res, next) => {
     req.headers['x-forwarded-for'] = req.socket.remoteAddress ?? '127.0.0.1';
-    authHandler(req, res).catch(next);
+    handleAuth(req, res, next);
   });
 
   app.use('/api', (_req, res, next) => {
@@ -78,14 +110,19 @@ export function createApp(deps: AppDeps) {
     next();
   });
   if (deps.config.originCheck) app.use('/api', refuseForeignOrigins(deps.config.trustedOrigins));
-  app.use('/api', express.json({ limit: JSON_LIMIT }));
+  // POST /api/check hands its raw body to the check pool (parsing 2 MB of JSON is itself work).
+  const json = express.json({ limit: JSON_LIMIT });
+  app.use('/api', (req, res, next) => (req.path === '/check' && req.method === 'POST' ? next() : json(req, res, next)), guardBody);
 
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
   });
 
   const materials = new TeamMaterials(deps.db);
-  app.use('/api/share', publicShareRouter({ db: deps.db, materials }));
+  const checks = deps.checks ?? new CheckPool();
+  const jobs = new RecheckJobs({ db: deps.db, materials, checks, logger });
+  app.locals.services = { checks, jobs } satisfies AppServices;
+  app.use('/api/share', shareRateLimit(deps.config.rateLimit), publicShareRouter({ db: deps.db, materials, checks }));
   app.use('/api/share', publicCalcSheetRouter({ db: deps.db, materials }));
   const memberships = new MembershipCache(deps.db);
   app.use('/api/invitations', invitationsRouter({ db: deps.db, memberships, rateLimit: deps.config.rateLimit }));
@@ -93,12 +130,13 @@ export function createApp(deps: AppDeps) {
   app.use('/api/me', meRouter());
   app.use('/api/waiting', waitingRouter({ db: deps.db }));
   app.use('/api/spools/:id/comments', commentsRouter({ db: deps.db }));
-  app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl }));
+  app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl, materials, checks }));
   app.use('/api/spools', calcSheetRouter({ db: deps.db, materials }));
-  app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials }));
-  app.use('/api/check', checkRouter({ materials }));
-  app.use('/api', catalogRouter({ db: deps.db, materials }));
-  app.use('/api/team', teamRouter({ db: deps.db, memberships, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
+  app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials, checks }));
+  app.use('/api/check', checkRouter({ materials, checks }));
+  app.use('/api', catalogRouter({ db: deps.db, materials, jobs }));
+  app.use('/api/team', teamRouter({ db: deps.db, memberships, sessions: sessionCacheOf(deps.auth), mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
+  app.use('/api/admin/jobs', jobsRouter({ jobs }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);
 

@@ -1,4 +1,5 @@
 import path from 'node:path';
+import type { SignInLimits } from './auth/sign-in-limits';
 
 export interface ServerConfig {
   readonly port: number;
@@ -9,7 +10,7 @@ export interface ServerConfig {
   readonly publicUrl: string;
   /** PostgreSQL server URL; when unset the embedded database in dataDir is used. */
   readonly databaseUrl: string | undefined;
-  /** SMTP server for production mail; when unset mail goes to the outbox table. */
+  /** SMTP server for production mail; when unset the in-process catcher keeps it (DATA_DIR/mail, outbox). */
   readonly smtpUrl: string | undefined;
   readonly nodeEnv: 'development' | 'production' | 'test';
   /** Secret that signs session cookies. */
@@ -22,6 +23,8 @@ export interface ServerConfig {
   readonly originCheck: boolean;
   /** Sender address of outgoing mail. */
   readonly mailFrom: string;
+  /** Sign-in limits when `rateLimit` is on (default DEFAULT_SIGN_IN_LIMITS in server/auth/sign-in-limits.ts). */
+  readonly signInLimits?: SignInLimits | undefined;
 }
 
 /** Placeholder used when no secret is configured; the server replaces it with one kept in DATA_DIR. */
@@ -56,5 +59,6 @@ export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Part
     rateLimit: overrides.rateLimit ?? env.RATE_LIMIT !== 'off',
     originCheck: overrides.originCheck ?? env.ORIGIN_CHECK !== 'off',
     mailFrom: overrides.mailFrom ?? (env.MAIL_FROM || 'Spoolwright <no-reply@spoolwright.test>'),
+    signInLimits: overrides.signInLimits,
   };
 }

@@ -14,6 +14,8 @@ export type ErrorCode =
   | 'gone'
   | 'payload_too_large'
   | 'validation'
+  | 'rate_limited'
+  | 'busy'
   | 'internal';
 
 /** An error with an HTTP status that reaches the client as `{ error: { code, message, details } }`. */
@@ -63,14 +65,19 @@ export function errorHandler(logger: Logger): ErrorRequestHandler {
       body = { code: 'payload_too_large', message: 'The request body is larger than the server accepts' };
     } else if (bp?.type === 'entity.parse.failed') {
       status = 400;
-      body = { code: 'bad_request', message: 'The request body is not valid JSON' };
+      body = { code: 'bad_request', message: 'The request body is not valid JSON', details: [{ path: 'body', message: 'is not valid JSON' }] };
+    } else if (err instanceof URIError) {
+      // The router could not percent-decode a path segment (e.g. `%E0%A4%A`).
+      status = 400;
+      body = { code: 'bad_request', message: 'The URL is not valid percent-encoding', details: [{ path: 'params', message: 'is not valid percent-encoding' }] };
     } else if (bp?.expose && typeof bp.status === 'number' && bp.status >= 400 && bp.status < 500) {
       status = bp.status;
       body = { code: 'bad_request', message: (err as Error).message };
     } else {
-      logger.error(`${req.method} ${req.originalUrl} failed`, err);
+      logger.error(`${req.method} ${req.path} failed`, err);
       body = { code: 'internal', message: 'Something went wrong on the server' };
     }
     res.status(status).json({ error: body });
   };
 }
+

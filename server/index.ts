@@ -8,8 +8,8 @@ import { openDatabase, type Database } from './db/client';
 import { DataDirLockedError } from './db/lock';
 import { isDatabaseEmpty, seedDemo } from './db/seed';
 import { createAuth } from './auth/auth';
-import { createMailer } from './mail/mailer';
-import { createApp } from './app';
+import { createMailer, type Mailer } from './mail/mailer';
+import { closeAppServices, createApp, getAppServices } from './app';
 import { createLogger, type Logger } from './logger';
 
 export const DIST_DIR = fileURLToPath(new URL('../dist', import.meta.url));
@@ -41,6 +41,10 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
   const t0 = Date.now();
   if (config.authSecret === DEV_SECRET) config = { ...config, authSecret: readOrCreateSecret(config.dataDir) };
   const database = await openDatabase(config);
+  // Without SMTP_URL an in-process SMTP catcher receives the mail (DATA_DIR/mail, the outbox);
+  // it starts while the database migrates.
+  const mailerReady = createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger, mailDir: path.join(config.dataDir, 'mail') });
+  mailerReady.catch(() => undefined);
   try {
     await database.migrate();
     if (await isDatabaseEmpty(database.db)) {
@@ -48,21 +52,32 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
       logger.info(`seeded demo data: team "${seeded.team.name}", ${seeded.users} users, ${seeded.spools} spools (password spoolwright-demo)`);
     }
   } catch (err) {
+    await mailerReady.then((m) => m.close(), () => undefined);
     await database.close();
     throw err;
   }
-  const mailer = createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger });
+  let mailer: Mailer;
+  try {
+    mailer = await mailerReady;
+  } catch (err) {
+    await database.close();
+    throw err;
+  }
   const auth = createAuth({ db: database.db, config, mailer, logger });
   const serveClient = config.nodeEnv === 'production' || fs.existsSync(`${DIST_DIR}/index.html`);
   const app = createApp({ db: database.db, auth, mailer, config, logger, staticDir: serveClient ? DIST_DIR : undefined });
+  // Re-checks left unfinished by an earlier process run again (in the background).
+  getAppServices(app).jobs.resume().catch((err: unknown) => logger.error('could not resume background jobs', err));
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
     server.once('error', reject);
   }).catch(async (err: unknown) => {
+    await mailer.close();
     await database.close();
     throw err;
   });
+  if (mailer.kind === 'outbox') logger.info(`mail goes to the development catcher: ${mailer.mailDir} (no SMTP_URL)`);
   const port = (server.address() as AddressInfo).port;
   const url = config.port === 0 ? `http://${config.host}:${port}` : config.publicUrl;
   logger.info(`ready in ${Date.now() - t0} ms (${database.kind}${database.kind === 'pglite' ? ` in ${config.dataDir}` : ''})`);
@@ -75,7 +90,10 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
       closing ??= new Promise<void>((resolve) => {
         server.close(() => resolve());
         server.closeAllConnections();
-      }).then(() => database.close());
+      })
+        .then(() => closeAppServices(app))
+        .then(() => mailer.close())
+        .then(() => database.close());
       return closing;
     },
   };

@@ -1,3 +1,4 @@
+import './lib/zod-without-eval';
 import '@fontsource/barlow/400.css';
 import '@fontsource/barlow/500.css';
 import '@fontsource/barlow/600.css';

@@ -5,7 +5,8 @@ import type { Db } from '../db/client';
 import { teamMembers, teams } from '../db/schema';
 import { HttpError, forbidden } from '../errors';
 import { can, isRole, type Action, type Role } from '../../shared/model/permissions';
-import type { Auth } from './auth';
+import { sessionCacheOf, type Auth } from './auth';
+import type { CachedSession } from './session-cache';
 
 export interface SignedInUser {
   id: string;
@@ -74,10 +75,25 @@ export class MembershipCache {
   }
 }
 
-/** Reads the session (cookie cache first) and the membership into res.locals.ctx; never rejects. */
+/** Reads the session (the in-process session cache first) and the membership into res.locals.ctx; never rejects. */
 export function loadSession(auth: Auth, memberships: MembershipCache): RequestHandler {
+  const cache = sessionCacheOf(auth);
+  const lookup = async (cookie: string): Promise<CachedSession | null> => {
+    const hit = cache.get(cookie);
+    if (hit) return hit;
+    const generation = cache.begin();
+    const found = await auth.api.getSession({ headers: fromNodeHeaders({ cookie }) });
+    if (!found) return null;
+    const value: CachedSession = {
+      user: { id: found.user.id, email: found.user.email, name: found.user.name },
+      session: { token: found.session.token, userId: found.session.userId, expiresAt: new Date(found.session.expiresAt) },
+    };
+    cache.set(cookie, value, generation);
+    return value;
+  };
   return async (req: Request, res: Response, next: NextFunction) => {
-    const session = await auth.api.getSession({ headers: fromNodeHeaders(req.headers) });
+    const cookie = req.headers.cookie;
+    const session = cookie ? await lookup(cookie) : null;
     if (session) {
       const m = await memberships.get(session.user.id);
       const ctx: RequestContext = {

@@ -1,5 +1,5 @@
 import { sql } from 'drizzle-orm';
-import { index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import { customType, index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
 import type { SpoolDocument } from '../../shared/model/spool';
 import type { CheckSummary, CheckStatus } from '../../shared/engine/types';
 import type { Material } from '../../shared/data/materials';
@@ -12,6 +12,9 @@ export interface StoredCheckSummary {
   summary: CheckSummary;
   worst: { elementId: string; status: CheckStatus } | null;
 }
+
+/** Raw bytes (PostgreSQL bytea). */
+const bytea = customType<{ data: Uint8Array; driverData: Uint8Array }>({ dataType: () => 'bytea' });
 
 const timestamps = {
   createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
@@ -111,8 +114,9 @@ export const spoolEvents = pgTable(
 export const shareLinks = pgTable(
   'share_links',
   {
-    /** Unguessable token used in the public URL. */
     id: text('id').primaryKey(),
+    /** sha-256 (hex) of the unguessable token in the public URL; the token itself is shown once, at creation. */
+    tokenHash: text('token_hash').notNull(),
     teamId: text('team_id')
       .notNull()
       .references(() => teams.id, { onDelete: 'cascade' }),
@@ -128,21 +132,30 @@ export const shareLinks = pgTable(
     createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
     expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
     revokedAt: timestamp('revoked_at', { withTimezone: true }),
+    /** The check of the shared revision as gzip'd JSON, made once when the link is created (the revision is frozen). */
+    checkGz: bytea('check_gz'),
   },
-  (t) => [index('share_links_spool_idx').on(t.spoolId)],
+  (t) => [index('share_links_spool_idx').on(t.spoolId), uniqueIndex('share_links_token_hash_idx').on(t.tokenHash)],
 );
 
-/** Mail sent in development and tests (the fake transport writes here instead of an SMTP server). */
-export const outbox = pgTable('outbox', {
-  id: serial('id').primaryKey(),
-  to: text('to').notNull(),
-  from: text('from').notNull(),
-  subject: text('subject').notNull(),
-  text: text('text').notNull(),
-  /** The full message as the mail library rendered it. */
-  raw: text('raw').notNull(),
-  createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
-});
+/**
+ * Mail the development catcher received (no SMTP_URL), one row per addressees' team, with
+ * one-use links redacted; the whole messages are .eml files in DATA_DIR/mail.
+ */
+export const outbox = pgTable(
+  'outbox',
+  {
+    id: serial('id').primaryKey(),
+    /** Team of the addressees; null when they belong to none (then no outbox view shows it). */
+    teamId: text('team_id').references(() => teams.id, { onDelete: 'cascade' }),
+    to: text('to').notNull(),
+    from: text('from').notNull(),
+    subject: text('subject').notNull(),
+    text: text('text').notNull(),
+    createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
+  },
+  (t) => [index('outbox_team_idx').on(t.teamId, t.id)],
+);
 
 /** Review comments, optionally pinned to one element of one revision. */
 export const spoolComments = pgTable(
@@ -203,4 +216,35 @@ export const teamInvitations = pgTable(
     revokedAt: timestamp('revoked_at', { withTimezone: true }),
   },
   (t) => [uniqueIndex('team_invitations_token_idx').on(t.tokenHash), index('team_invitations_team_idx').on(t.teamId, t.createdAt)],
+ );
+
+/**
+ * Background work of a team, e.g. re-checking every spool after its materials changed. Rows
+ * outlive the process: a job found unfinished at start-up is run again (its work is idempotent).
+ */
+export const jobs = pgTable(
+  'jobs',
+  {
+    id: serial('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    /** `recheck`: refresh the stored check summaries of the team's spools. */
+    kind: text('kind').notNull(),
+    /** queued | running | done | failed */
+    status: text('status').notNull().default('queued'),
+    /** Why the job was started, e.g. "materials import (3 materials)". */
+    reason: text('reason').notNull().default(''),
+    /** Spools to process (known once the job starts) and processed so far. */
+    total: integer('total').notNull().default(0),
+    done: integer('done').notNull().default(0),
+    /** Spools whose stored summary changed. */
+    changed: integer('changed').notNull().default(0),
+    error: text('error'),
+    createdBy: text('created_by').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
+    startedAt: timestamp('started_at', { withTimezone: true }),
+    finishedAt: timestamp('finished_at', { withTimezone: true }),
+  },
+  (t) => [index('jobs_team_idx').on(t.teamId, t.id), index('jobs_status_idx').on(t.status)],
 );

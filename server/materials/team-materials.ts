@@ -7,18 +7,22 @@ import type { MaterialFinder } from '../../shared/engine/index';
 import { PRODUCT_FORMS } from '../../shared/model/spool';
 import type { CsvRow } from '../csv';
 import type { CsvIssue } from '../spools/line-list';
+import type { MaterialsRef } from '../checks/check-task';
+import { TEXT_LIMITS, text } from '../../shared/model/fields';
 
 /**
  * Per-team material lookups (team rows first, then the library), built once per team and
  * rebuilt after an upload or delete in this process.
  */
 export class TeamMaterials {
-  private readonly cache = new Map<string, Promise<{ rows: TeamMaterialRow[]; find: MaterialFinder }>>();
+  private readonly cache = new Map<string, Promise<{ rows: TeamMaterialRow[]; find: MaterialFinder; ref: MaterialsRef }>>();
+  private loads = 0;
   constructor(private readonly db: Db) {}
 
   private load(teamId: string) {
     let p = this.cache.get(teamId);
     if (!p) {
+      const key = `${teamId}#${++this.loads}`;
       p = this.db
         .select()
         .from(teamMaterials)
@@ -26,6 +30,7 @@ export class TeamMaterials {
         .then((rows) => ({
           rows: rows.map((r) => ({ ...r.material, origin: 'team' as const, sourceNote: r.sourceNote, updatedAt: r.updatedAt.toISOString() })),
           find: rows.length === 0 ? findMaterial : createMaterialLookup(rows.map((r) => r.material)),
+          ref: { key, rows: rows.length === 0 ? null : rows.map((r) => r.material) },
         }));
       p.catch(() => this.cache.delete(teamId));
       this.cache.set(teamId, p);
@@ -36,6 +41,12 @@ export class TeamMaterials {
   async finder(teamId: string | null | undefined): Promise<MaterialFinder> {
     if (!teamId) return findMaterial;
     return (await this.load(teamId)).find;
+  }
+
+  /** The team's materials as the check pool's workers take them (null team: the library alone). */
+  async ref(teamId: string | null | undefined): Promise<MaterialsRef> {
+    if (!teamId) return { key: 'library', rows: null };
+    return (await this.load(teamId)).ref;
   }
 
   /** Team rows (marked `origin: 'team'`), then library rows they do not replace. */
@@ -78,9 +89,9 @@ const num = (label: string) =>
     .regex(/^[-+]?(\d+\.?\d*|\.\d+)$/, `${label} must be a number`)
     .transform(Number);
 const materialColumns = z.object({
-  spec: z.string().min(1, 'is required'),
-  grade: z.string().min(1, 'is required'),
-  name: z.string().optional(),
+  spec: text(TEXT_LIMITS.id, { min: 1 }),
+  grade: text(TEXT_LIMITS.id, { min: 1 }),
+  name: text(TEXT_LIMITS.name).optional(),
   category: z.enum(['carbon', 'low-temp-carbon', 'cr-mo', 'austenitic', 'other']).optional().default('other'),
   yfamily: z.enum(['ferritic', 'austenitic', 'nickel', 'gray-iron', 'other']).optional().default('ferritic'),
   wfamily: z.enum(['carbon', 'cr-mo', 'csef', 'austenitic', 'nickel', 'none']).optional().default('carbon'),
@@ -143,6 +154,10 @@ export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvR
     const id = get(row, 'id');
     if (!id) {
       issues.push(issue(row.line, colOf.get('id') ?? 'id', 'is required'));
+      continue;
+    }
+    if (id.length > TEXT_LIMITS.id) {
+      issues.push(issue(row.line, 'id', `must be at most ${TEXT_LIMITS.id} characters`));
       continue;
     }
     const g = byId.get(id);

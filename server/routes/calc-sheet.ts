@@ -7,7 +7,8 @@ import { parseBody } from '../validation';
 import { getRevision, getSpool, listEvents } from '../spools/repo';
 import { runCheck } from '../spools/check';
 import type { TeamMaterials } from '../materials/team-materials';
-import { findActiveShare } from './shares';
+import { findActiveShare, teamSourceNotes } from './shares';
+import { omitSourceNotes } from '../spools/share-tokens';
 import { buildCalcSheet, formatUtc, type CalcSheet } from '../../shared/report/calc-sheet';
 import { renderCalcSheetPdf } from '../../shared/report/calc-sheet-pdf';
 
@@ -85,7 +86,7 @@ export function publicCalcSheetRouter(deps: { db: Db; materials: TeamMaterials }
   const r = Router();
   r.get('/:token/calc-sheet.pdf', async (req, res) => {
     const row = await findActiveShare(deps.db, String(req.params.token));
-    const check = runCheck(row.document, await deps.materials.finder(row.teamId));
+    const check = omitSourceNotes(runCheck(row.document, await deps.materials.finder(row.teamId)), await teamSourceNotes(deps.materials, row.teamId));
     const sheet = buildCalcSheet({
       team: null,
       revision: row.revision,

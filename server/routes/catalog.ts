@@ -1,6 +1,5 @@
 import { Router, type Request, type Response } from 'express';
 import { and, eq, sql } from 'drizzle-orm';
-import { z } from 'zod';
 import type { Db } from '../db/client';
 import { teamMaterials } from '../db/schema';
 import { getContext, getTeamId, requirePermission, requireSignedIn } from '../auth/member';
@@ -8,10 +7,11 @@ import { HttpError, notFound, validationError } from '../errors';
 import { parseBody } from '../validation';
 import { buildTeamMaterial, isFromMemory, teamMaterialInputSchema } from '../../shared/model/team-material';
 import { parseCsv, receiveCsv } from '../csv';
+import { textParam } from '../validation';
+import { TEXT_LIMITS, text } from '../../shared/model/fields';
 import { readMaterialsCsv, type TeamMaterials } from '../materials/team-materials';
 import { MATERIALS, type Material } from '../../shared/data/materials';
-import { refreshTeamSummaries } from '../spools/repo';
-import { summarizeDocument } from '../spools/check';
+import type { RecheckJobs } from '../jobs/recheck-jobs';
 import { NPS_SIZES, PIPE_DIMENSION_SOURCES, SCHEDULES, getPipeSize, listPipeWalls } from '../../shared/data/pipe-dimensions';
 
 /** Pickers' data: built once, it never changes while the process runs. */
@@ -30,15 +30,15 @@ function buildDimensions() {
   return { schedules: SCHEDULES, sizes, sources: PIPE_DIMENSION_SOURCES };
 }
 
-export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
+export function catalogRouter(deps: { db: Db; materials: TeamMaterials; jobs: RecheckJobs }) {
   const { db, materials } = deps;
   const r = Router();
   let dimensions: ReturnType<typeof buildDimensions> | undefined;
 
-  const refresh = async (teamId: string) => {
+  /** New materials apply to checks at once; stored summaries follow in a background job. */
+  const refresh = (teamId: string, reason: string, userId: string) => {
     materials.invalidate(teamId);
-    const find = await materials.finder(teamId);
-    return refreshTeamSummaries(db, teamId, (doc) => summarizeDocument(doc, find));
+    return deps.jobs.start(teamId, reason, userId);
   };
 
   /** Library rows (`origin: 'library'`) and the team's own (`origin: 'team'`, with `sourceNote`), team first. */
@@ -50,8 +50,11 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
   /** Source note and parsed rows of a materials upload; problems come back as issues, nothing is written. */
   const readUpload = (req: Request, res: Response) => {
     const fromBody = (req.body as Record<string, unknown> | undefined)?.source;
-    const source = z.string().trim().min(3).max(500).safeParse(typeof fromBody === 'string' ? fromBody : req.query.source);
-    const sourceIssue = source.success ? [] : [{ line: null, column: 'source', path: 'source', message: 'give the source of the values (table, edition, document), at least 3 characters' }];
+    const source = text(500, { trim: true, min: 3 }).safeParse(typeof fromBody === 'string' ? fromBody : req.query.source);
+    const problem = source.success ? '' : (source.error.issues[0]?.message ?? '');
+    const sourceIssue = source.success
+      ? []
+      : [{ line: null, column: 'source', path: 'source', message: /U\+0000|surrogate|at most/.test(problem) ? problem : 'give the source of the values (table, edition, document), at least 3 characters' }];
     const csv = parseCsv(String(res.locals.csv ?? ''));
     if (csv.errors.length > 0) {
       return { source: source.data, materials: [], sourceIssue, issues: csv.errors.map((e) => ({ line: e.line, column: null, path: `line ${e.line}`, message: e.message })) };
@@ -102,9 +105,10 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
       throw validationError(up.issues, `${up.issues.length} problem${up.issues.length === 1 ? '' : 's'} in the materials file; nothing was imported`);
     }
     const teamId = getTeamId(res);
-    await saveMaterials(teamId, getContext(res).user.id, up.materials, up.source);
-    const rechecked = await refresh(teamId);
-    res.status(201).json({ imported: up.materials.length, items: up.materials, rechecked });
+    const userId = getContext(res).user.id;
+    await saveMaterials(teamId, userId, up.materials, up.source);
+    const job = await refresh(teamId, `materials import (${up.materials.length} material${up.materials.length === 1 ? '' : 's'})`, userId);
+    res.status(201).json({ imported: up.materials.length, items: up.materials, job, recheckJob: { id: String(job.id) } });
   });
 
   // One material from the form (shared schema); an id the team already has is a conflict.
@@ -118,20 +122,21 @@ export function catalogRouter(deps: { db: Db; materials: TeamMaterials }) {
       .limit(1);
     if (existing) throw new HttpError(409, 'conflict', `The team already has a material ${input.id}; delete it first or upload a CSV to replace it`, [{ path: 'id', message: 'is already a team material' }]);
     const material = buildTeamMaterial(input);
-    await saveMaterials(teamId, getContext(res).user.id, [material], input.sourceNote);
-    const rechecked = await refresh(teamId);
-    res.status(201).json({ item: { ...material, origin: 'team', sourceNote: input.sourceNote }, replaces: MATERIALS.some((m) => m.id === input.id) ? 'library' : null, rechecked });
+    const userId = getContext(res).user.id;
+    await saveMaterials(teamId, userId, [material], input.sourceNote);
+    const job = await refresh(teamId, `material ${input.id} added`, userId);
+    res.status(201).json({ item: { ...material, origin: 'team', sourceNote: input.sourceNote }, replaces: MATERIALS.some((m) => m.id === input.id) ? 'library' : null, job, recheckJob: { id: String(job.id) } });
   });
 
   r.delete('/materials/:id', requirePermission('materials:manage'), async (req, res) => {
     const teamId = getTeamId(res);
     const gone = await db
       .delete(teamMaterials)
-      .where(and(eq(teamMaterials.teamId, teamId), eq(teamMaterials.id, String(req.params.id))))
+      .where(and(eq(teamMaterials.teamId, teamId), eq(teamMaterials.id, textParam(req.params.id, 'The team has no material with this id', TEXT_LIMITS.id))))
       .returning({ id: teamMaterials.id });
     if (gone.length === 0) throw notFound('The team has no material with this id');
-    const rechecked = await refresh(teamId);
-    res.json({ deleted: gone[0]!.id, rechecked });
+    const job = await refresh(teamId, `material ${gone[0]!.id} deleted`, getContext(res).user.id);
+    res.json({ deleted: gone[0]!.id, job, recheckJob: { id: String(job.id) } });
   });
   r.get('/dimensions', requireSignedIn, (_req, res) => {
     dimensions ??= buildDimensions();

@@ -6,15 +6,16 @@ import type { Db } from '../db/client';
 import { spoolComments, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { notFound, validationError } from '../errors';
-import { parseBody } from '../validation';
+import { intParam, parseBody, textParam } from '../validation';
+import { TEXT_LIMITS, int, text } from '../../shared/model/fields';
 import { getRevision, getSpool } from '../spools/repo';
 
 const createSchema = z.object({
-  body: z.string().trim().min(1, 'must not be empty').max(4000),
+  body: text(TEXT_LIMITS.long, { trim: true, min: 1 }),
   /** Pin to an element of the revision; omit for the whole spool. */
-  elementId: z.string().trim().min(1).max(200).optional(),
+  elementId: text(TEXT_LIMITS.id, { trim: true, min: 1 }).optional(),
   /** Revision commented on; default the current one. */
-  revision: z.number().int().min(0).optional(),
+  revision: int(0).optional(),
 });
 
 const author = alias(user, 'author');
@@ -51,14 +52,16 @@ export function commentsRouter(deps: { db: Db }) {
     }));
   }
 
+  const spoolId = (params: unknown) => textParam((params as { id?: unknown }).id, 'Spool not found', 100);
+
   r.get('/', requirePermission('spool:view'), async (req, res) => {
-    const { id } = req.params as { id: string };
+    const id = spoolId(req.params);
     if (!(await getSpool(db, getTeamId(res), id))) throw notFound('Spool not found');
     res.json({ items: await readComments(id) });
   });
 
   r.post('/', requirePermission('spool:comment'), async (req, res) => {
-    const { id } = req.params as { id: string };
+    const id = spoolId(req.params);
     const body = parseBody(createSchema, req.body ?? {});
     const teamId = getTeamId(res);
     const spool = await getSpool(db, teamId, id);
@@ -77,10 +80,9 @@ export function commentsRouter(deps: { db: Db }) {
   });
 
   r.patch('/:commentId', requirePermission('spool:comment'), async (req, res) => {
-    const { id, commentId } = req.params as { id: string; commentId: string };
+    const id = spoolId(req.params);
+    const cid = intParam((req.params as { commentId?: unknown }).commentId, 'Comment not found');
     const body = parseBody(z.object({ resolved: z.boolean() }), req.body ?? {});
-    const cid = Number(commentId);
-    if (!Number.isInteger(cid)) throw notFound('Comment not found');
     if (!(await getSpool(db, getTeamId(res), id))) throw notFound('Spool not found');
     const done = await db
       .update(spoolComments)

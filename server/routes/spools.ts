@@ -2,23 +2,26 @@ import { Router } from 'express';
 import { z } from 'zod';
 import { and, asc, eq, inArray, isNull } from 'drizzle-orm';
 import type { Db } from '../db/client';
-import { spoolComments, teamMembers, user, type StoredCheckSummary } from '../db/schema';
+import { shareLinks, spoolComments, teamMembers, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, forbidden, notFound, validationError } from '../errors';
-import { parseCsv, receiveCsv } from '../csv';
-import { readLineList } from '../spools/line-list';
+import { countCsvRows, parseCsv, receiveCsv } from '../csv';
+import { LINE_LIST_MAX_ROWS, readLineList } from '../spools/line-list';
 import type { TeamMaterials } from '../materials/team-materials';
 import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
-import { parseBody, parseDocument } from '../validation';
+import { intParam, parseBody, parseDocument, textParam } from '../validation';
+import { int, ownKeyOf, text } from '../../shared/model/fields';
 import { can, findTransition, SPOOL_STATUSES, type Action, type Role, type SpoolStatus } from '../../shared/model/permissions';
-import { summarizeDocument } from '../spools/check';
+import type { CheckPool } from '../checks/pool';
 import type { SpoolDocument } from '../../shared/model/spool';
 import {
   SORTS,
   getRevision,
   getSpool,
+  getSpools,
   insertSpool,
+  insertSpools,
   listEvents,
   listRevisions,
   listSpools,
@@ -31,9 +34,8 @@ import {
 const statusSchema = z.enum(SPOOL_STATUSES);
 
 const listQuerySchema = z.object({
-  search: z.string().trim().max(200).optional(),
-  status: z
-    .string()
+  search: text(200, { trim: true }).optional(),
+  status: text(200)
     .optional()
     .transform((s, ctx) => {
       if (!s) return undefined;
@@ -45,25 +47,22 @@ const listQuerySchema = z.object({
       }
       return parts as SpoolStatus[];
     }),
-  sort: z
-    .string()
-    .optional()
-    .default('-updatedAt')
-    .refine((s) => s in SORTS, { message: `use one of ${Object.keys(SORTS).join(', ')}` })
-    .transform((s) => s as SpoolSort),
+  // Own keys only: `__proto__`, `toString` and other inherited names are not sorts.
+  sort: ownKeyOf(SORTS).optional().default('-updatedAt') as z.ZodType<SpoolSort, string | undefined>,
   page: z.coerce.number().int().min(1).max(100_000).optional().default(1),
   pageSize: z.coerce.number().int().min(1).max(500).optional().default(50),
 });
 
 const saveBodySchema = z.object({
   document: z.unknown(),
-  baseVersion: z.number({ error: 'must be the version you loaded (a whole number)' }).int().min(1),
+  /** The version you loaded. */
+  baseVersion: int(1),
 });
 
 const transitionBodySchema = z.object({
   to: statusSchema,
-  note: z.string().trim().max(2000).optional(),
-  baseVersion: z.number().int().min(1).optional(),
+  note: text(2000, { trim: true }).optional(),
+  baseVersion: int(1).optional(),
 });
 
 /** The action a move to `to` needs (the permission table decides who holds it). */
@@ -82,18 +81,14 @@ const NEXT_ROLES: Partial<Record<SpoolStatus, Role[]>> = {
 };
 
 
-const idParam = (raw: unknown): string => {
-  const id = String(raw ?? '');
-  if (id.length === 0 || id.length > 100) throw notFound('Spool not found');
-  return id;
-};
+const idParam = (raw: unknown): string => textParam(raw, 'Spool not found', 100);
 
-export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string; materials: TeamMaterials }) {
+export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string; materials: TeamMaterials; checks: CheckPool }) {
   const { db, mailer, logger } = deps;
   const r = Router();
 
   /** Check with the team's materials and keep what the list shows. */
-  const checkDocument = async (teamId: string, doc: SpoolDocument) => summarizeDocument(doc, await deps.materials.finder(teamId));
+  const checkDocument = async (teamId: string, doc: SpoolDocument) => (await deps.checks.summaries([doc], await deps.materials.ref(teamId)))[0]!;
 
   r.get('/', requirePermission('spool:view'), async (req, res) => {
     const q = parseBody(listQuerySchema, req.query, ['query']);
@@ -111,36 +106,42 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
 
   // Dry run of the line-list CSV: the spools it would create and every bad cell by line and column. Never writes.
   r.post('/import/preview', requirePermission('spool:edit'), receiveCsv, async (_req, res) => {
-    const csv = parseCsv(String(res.locals.csv ?? ''));
+    const text = String(res.locals.csv ?? '');
+    if (countCsvRows(text, LINE_LIST_MAX_ROWS) > LINE_LIST_MAX_ROWS) {
+      throw validationError(
+        [{ path: 'file', message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows` }],
+        `A line list may hold at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows per import`,
+      );
+    }
+    const csv = parseCsv(text);
     if (csv.errors.length > 0) {
       res.json({ ok: false, issues: csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), items: [] });
       return;
     }
-    const { docs, lines, issues } = readLineList(csv.headers, csv.rows);
+    const { docs, lines, issues } = await readLineList(csv.headers, csv.rows);
     const items = docs.map((document, i) => ({ line: lines[i] ?? null, name: document.name, pipeLine: document.line ?? '', units: document.units, conditions: document.conditions }));
     res.json({ ok: issues.length === 0, issues, items, rows: csv.rows.length });
   });
 
   // Line-list CSV: one spool per row with its design conditions; all rows or none.
+  // At most LINE_LIST_MAX_ROWS rows, refused before parsing; reading and validating yield to
+  // the event loop every few milliseconds, so an import never stalls other requests.
   r.post('/import', requirePermission('spool:edit'), receiveCsv, async (_req, res) => {
-    const csv = parseCsv(String(res.locals.csv ?? ''));
-    if (csv.errors.length > 0) {
-      throw validationError(csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), 'The CSV could not be read');
+    const text = String(res.locals.csv ?? '');
+    const rowCount = countCsvRows(text, LINE_LIST_MAX_ROWS);
+    if (rowCount > LINE_LIST_MAX_ROWS) {
+      throw validationError(
+        [{ path: 'file', message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows` }],
+        `A line list may hold at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows per import; nothing was imported`,
+      );
     }
-    const { docs, issues } = readLineList(csv.headers, csv.rows);
-    if (issues.length > 0) throw validationError(issues, `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`);
     const teamId = getTeamId(res);
     const userId = getContext(res).user.id;
-    const summaries: StoredCheckSummary[] = [];
-    for (const document of docs) summaries.push(await checkDocument(teamId, document));
-    const ids = await db.transaction(async (tx) => {
-      const out: string[] = [];
-      for (const [i, document] of docs.entries()) out.push(await insertSpool(tx as unknown as Db, { teamId, userId, document, checkSummary: summaries[i] ?? null }));
-      return out;
-    });
-    const items = [];
-    for (const id of ids) items.push(await getSpool(db, teamId, id));
-    res.status(201).json({ created: ids.length, items });
+    // Parsing, validating and checking the rows happen in the check pool.
+    const { documents: docs, summaries } = await deps.checks.lineList(text, await deps.materials.ref(teamId));
+    const items = docs.map((document, i) => ({ document, checkSummary: summaries[i] ?? null }));
+    const ids = await db.transaction((tx) => insertSpools(tx as unknown as Db, { teamId, userId, items }, 25));
+    res.status(201).json({ created: ids.length, items: await getSpools(db, teamId, ids, 50) });
   });
 
   r.get('/:id', requirePermission('spool:view'), async (req, res) => {
@@ -172,8 +173,12 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
   });
 
   r.delete('/:id', requirePermission('spool:delete'), async (req, res) => {
-    const ok = await softDeleteSpool(db, getTeamId(res), idParam(req.params.id), getContext(res).user.id);
+    const id = idParam(req.params.id);
+    const teamId = getTeamId(res);
+    const ok = await softDeleteSpool(db, teamId, id, getContext(res).user.id);
     if (!ok) throw notFound('Spool not found');
+    // Its share links stop working with it.
+    await db.update(shareLinks).set({ revokedAt: new Date() }).where(and(eq(shareLinks.spoolId, id), eq(shareLinks.teamId, teamId), isNull(shareLinks.revokedAt)));
     res.status(204).end();
   });
 
@@ -238,8 +243,7 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
   });
 
   r.get('/:id/revisions/:rev', requirePermission('spool:view'), async (req, res) => {
-    const rev = Number(req.params.rev);
-    if (!Number.isInteger(rev) || rev < 0) throw notFound('Revision not found');
+    const rev = intParam(req.params.rev, 'Revision not found');
     const out = await getRevision(db, getTeamId(res), idParam(req.params.id), rev);
     if (!out) throw notFound('Revision not found');
     res.json(out);

@@ -1,5 +1,6 @@
 import { formatPath, spoolDocumentSchema, type SpoolDocument } from '../../shared/model/spool';
 import type { CsvRow } from '../csv';
+import { createSlicer } from '../yield';
 
 /** A problem in an uploaded CSV: the file line (header = 1), the column and what is wrong. */
 export interface CsvIssue {
@@ -9,6 +10,10 @@ export interface CsvIssue {
   path: string;
   message: string;
 }
+
+/** Most data rows one line-list import may hold. */
+export const LINE_LIST_MAX_ROWS = 2_000;
+
 
 const key = (h: string) => h.toLowerCase().replace(/[\s_\-()]/g, '');
 
@@ -42,10 +47,7 @@ const issue = (line: number, column: string | null, message: string): CsvIssue =
  * Turn line-list rows into spool documents holding design conditions (no elements yet).
  * Every problem is reported with its line; callers write nothing unless `issues` is empty.
  */
-export function readLineList(
-  headers: readonly string[],
-  rows: readonly CsvRow[],
-): { docs: SpoolDocument[]; lines: number[]; issues: CsvIssue[] } {
+export async function readLineList(headers: readonly string[], rows: readonly CsvRow[]): Promise<{ docs: SpoolDocument[]; lines: number[]; issues: CsvIssue[] }> {
   const issues: CsvIssue[] = [];
   const known = new Map<string, string>();
   for (const h of headers) {
@@ -60,7 +62,9 @@ export function readLineList(
   const docs: SpoolDocument[] = [];
   /** File line of each document in `docs`. */
   const lines: number[] = [];
+  const slice = createSlicer();
   for (const row of rows) {
+    await slice();
     const doc: Record<string, unknown> = { units: 'imperial', elements: [] };
     const conditions: Record<string, unknown> = {};
     for (const [header, raw] of Object.entries(row.values)) {

@@ -148,6 +148,44 @@ export async function getSpool(db: Db, teamId: string, id: string): Promise<Spoo
   };
 }
 
+/** Several spools by id, in the order given (missing ones left out); one query. */
+export async function getSpools(db: Db, teamId: string, ids: readonly string[], chunk = 200): Promise<Spool[]> {
+  if (ids.length === 0) return [];
+  if (ids.length > chunk) {
+    const out: Spool[] = [];
+    for (let i = 0; i < ids.length; i += chunk) {
+      out.push(...(await getSpools(db, teamId, ids.slice(i, i + chunk), chunk)));
+      await new Promise<void>((resolve) => setImmediate(resolve));
+    }
+    return out;
+  }
+  const rows = await db
+    .select({
+      ...summaryColumns,
+      document: spools.document,
+      createdById: creator.id,
+      createdByName: creator.name,
+      updatedById: updater.id,
+      updatedByName: updater.name,
+    })
+    .from(spools)
+    .leftJoin(creator, eq(creator.id, spools.createdBy))
+    .leftJoin(updater, eq(updater.id, spools.updatedBy))
+    .where(and(eq(spools.teamId, teamId), isNull(spools.deletedAt), inArray(spools.id, [...ids])));
+  const byId = new Map(
+    rows.map((r) => [
+      r.id,
+      {
+        ...toSummary(r),
+        document: r.document,
+        createdBy: r.createdById ? { id: r.createdById, name: r.createdByName ?? '' } : null,
+        updatedBy: r.updatedById ? { id: r.updatedById, name: r.updatedByName ?? '' } : null,
+      } satisfies Spool,
+    ]),
+  );
+  return ids.map((id) => byId.get(id)).filter((s): s is Spool => s !== undefined);
+}
+
 export async function insertSpool(
   db: Db,
   v: { teamId: string; userId: string; document: SpoolDocument; checkSummary: StoredCheckSummary | null; id?: string },
@@ -163,6 +201,25 @@ export async function insertSpool(
     updatedBy: v.userId,
   });
   return id;
+}
+
+/** Insert many new spools with multi-row INSERTs of `chunk` rows, yielding between chunks; ids in order. */
+export async function insertSpools(
+  db: Db,
+  v: { teamId: string; userId: string; items: readonly { document: SpoolDocument; checkSummary: StoredCheckSummary | null }[] },
+  chunk = 250,
+): Promise<string[]> {
+  const ids: string[] = [];
+  for (let i = 0; i < v.items.length; i += chunk) {
+    const rows = v.items.slice(i, i + chunk).map((it) => {
+      const id = randomUUID();
+      ids.push(id);
+      return { id, teamId: v.teamId, ...describeDocument(it.document), document: it.document, checkSummary: it.checkSummary, createdBy: v.userId, updatedBy: v.userId };
+    });
+    await db.insert(spools).values(rows);
+    await new Promise<void>((resolve) => setImmediate(resolve));
+  }
+  return ids;
 }
 
 export type SaveOutcome = { kind: 'saved' } | { kind: 'not_found' } | { kind: 'conflict' };
@@ -213,23 +270,6 @@ export async function saveSpool(
     }
     return { kind: 'saved' } as const;
   });
-}
-
-/**
- * Re-check the team's live spools after its materials changed and store the new summaries.
- * The summary is derived data, so this does not count as a save (version unchanged).
- */
-export async function refreshTeamSummaries(db: Db, teamId: string, summarize: (doc: SpoolDocument) => StoredCheckSummary): Promise<number> {
-  const rows = await db
-    .select({ id: spools.id, document: spools.document })
-    .from(spools)
-    .where(and(eq(spools.teamId, teamId), isNull(spools.deletedAt)));
-  let n = 0;
-  for (const r of rows) {
-    await db.update(spools).set({ checkSummary: summarize(r.document) }).where(eq(spools.id, r.id));
-    n++;
-  }
-  return n;
 }
 
 export async function softDeleteSpool(db: Db, teamId: string, id: string, userId: string): Promise<boolean> {

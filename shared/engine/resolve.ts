@@ -1,7 +1,7 @@
 import type { Conditions, FieldIssue, ProductForm, SpoolDocument, SpoolElement } from '../model/spool';
 import type { SourcedValue } from './types';
 import type { Material } from '../data/materials';
-import { allowableStressAt, elasticModulusAt, findMaterial as findLibraryMaterial, yieldStrengthAt } from '../data/materials';
+import { allowableStressAt, elasticModulusAt, findMaterial as findLibraryMaterial, MODULUS_SOURCE, MODULUS_TABLE, yieldStrengthAt } from '../data/materials';
 import { coefficientY, GROOVE_TOLERANCE_IN, MILL_TOLERANCE_DEFAULT, qualityFactorE, threadDepth, weldStrengthFactorW } from '../data/code-tables';
 import { getPipeSize, getPipeWall, isCanonicalNps, isCanonicalSchedule, normalizeNps, normalizeSchedule, npsToNumber, scheduleStandard, type PipeStandard } from '../data/pipe-dimensions';
 import { lengthFromInches, pressureFromPsi, temperatureToF, UNIT_LABELS } from '../units/units';
@@ -178,6 +178,18 @@ function resolveConditions(doc: SpoolDocument, el: SpoolElement, index: number, 
       S = pressureFromPsi(r.value, units);
       if (r.fromMemory) memorySymbols.push('S');
       if (full) add({ symbol: 'S', label: `allowable stress, ${material.id} at ${fmt(cond.temperature)} ${u.temperature}`, value: S, unit: u.pressure, source: r.source, fromMemory: r.fromMemory });
+    }
+  }
+  // Lower temperature bound: a material's listed minimum is checked by allowableStressAt; one
+  // without a listed minimum is bounded by the lowest temperature its tables cover (the B31.3
+  // Table C-6 modulus row, which starts at −325 °F), so nothing colder passes unnoticed.
+  if (material && material.minTempF === undefined && !issues.some((i) => i.path.endsWith('temperature'))) {
+    const lowest = MODULUS_TABLE[material.modulusGroup]?.[0]?.tempF;
+    if (lowest !== undefined && tempF < lowest) {
+      issues.push({
+        path: conditionPath(el, index, 'temperature'),
+        message: `${material.id}: ${fmt(cond.temperature)} ${u.temperature} is below the lowest temperature its tables cover (${fmt(lowest)} °F, ${MODULUS_SOURCE}) and no minimum temperature is held for it; see B31.3 para. 323.2.2`,
+      });
     }
   }
   if (material?.minTempF !== undefined && tempF < material.minTempF) {

@@ -1,4 +1,5 @@
 import { z } from 'zod';
+import { TEXT_LIMITS, text } from './fields';
 
 /**
  * The spool document: the one JSON shape that the sketcher edits, the server stores and the
@@ -58,7 +59,7 @@ export const conditionsShape = {
   /** External design pressure, differential (psi | MPa), ≥ 0. */
   externalPressure: nonNegative().optional(),
   /** Material library id or ASTM spec-grade, e.g. "A106-B", "A312-TP316L". */
-  material: z.string().trim().min(1, 'must not be empty').optional(),
+  material: text(TEXT_LIMITS.id, { trim: true, min: 1 }).optional(),
   /** Allowable stress S override (psi | MPa); then material may be omitted. */
   allowableStress: positive().optional(),
   /** Quality factor E override (0 < E ≤ 1); else from productForm. */
@@ -91,11 +92,11 @@ export const conditionOverridesSchema = conditionsSchema.partial();
 export type ConditionOverrides = z.infer<typeof conditionOverridesSchema>;
 
 /** NPS as a trade designation ("1-1/2", "2", "1/2") or a number (1.5). */
-export const npsSchema = z.union([z.string().trim().min(1, 'must not be empty'), positive()]);
+export const npsSchema = z.union([text(TEXT_LIMITS.short, { trim: true, min: 1 }), positive()]);
 export type NpsInput = z.infer<typeof npsSchema>;
 
 /** Schedule designation: "40", "STD", "XS", "XXS", "10S" … */
-export const scheduleSchema = z.union([z.string().trim().min(1, 'must not be empty'), positive().transform(String)]);
+export const scheduleSchema = z.union([text(TEXT_LIMITS.short, { trim: true, min: 1 }), positive().transform(String)]);
 
 /** Bend radius R1 of the pipe centreline: a length (in | mm) or a multiple of NPS-based D. */
 export const bendRadiusSchema = z.union([
@@ -106,7 +107,7 @@ export type BendRadius = z.infer<typeof bendRadiusSchema>;
 
 const elementBase = {
   /** Stable id, unique within the spool. */
-  id: z.string().trim().min(1, 'must not be empty'),
+  id: text(TEXT_LIMITS.id, { trim: true, min: 1 }),
   /** Nominal pipe size; with schedule, resolved from ASME B36.10M/B36.19M. */
   nps: npsSchema.optional(),
   schedule: scheduleSchema.optional(),
@@ -127,7 +128,7 @@ const elementBase = {
   /** Per-element overrides of the spool conditions. */
   conditions: conditionOverridesSchema.optional(),
   /** Free-text tag shown on drawings. */
-  tag: z.string().max(80).optional(),
+  tag: text(80).optional(),
 };
 
 export const straightSchema = z.object({
@@ -166,6 +167,12 @@ export type ElementKind = SpoolElement['kind'];
 
 export const pointSchema = z.object({ x: finite(), y: finite(), z: finite() });
 
+/** Absolute zero in each unit system's temperature unit (physics, not a code table). */
+export const ABSOLUTE_ZERO: Readonly<Record<UnitSystem, { value: number; label: string }>> = {
+  imperial: { value: -459.67, label: '−459.67 °F' },
+  metric: { value: -273.15, label: '−273.15 °C' },
+};
+
 /** Hydrotest temperature when the spool gives none: 70 °F / 21 °C (ambient shop test, common practice). */
 export const DEFAULT_TEST_TEMPERATURE = { imperial: 70, metric: 21 } as const;
 
@@ -184,9 +191,9 @@ export type ShopSettings = z.infer<typeof shopSettingsSchema>;
 export const spoolDocumentSchema = z
   .object({
     units: unitSystemSchema,
-    name: z.string().max(200).optional(),
+    name: text(TEXT_LIMITS.name).optional(),
     /** Line number the spool belongs to (free text). */
-    line: z.string().max(120).optional(),
+    line: text(TEXT_LIMITS.short).optional(),
     conditions: conditionsSchema,
     /** Sketch origin of the first element (in | mm); default 0,0,0. */
     origin: pointSchema.optional(),
@@ -203,6 +210,14 @@ export const spoolDocumentSchema = z
       if (prev !== undefined) {
         ctx.addIssue({ code: 'custom', path: ['elements', i, 'id'], message: `duplicate id "${el.id}" (also elements[${prev}])` });
       } else seen.set(el.id, i);
+    });
+    // Below absolute zero no table applies (B31.3 tables start far above it); a material's own
+    // lower limit is the engine's to check, since it depends on the material looked up.
+    const zero = ABSOLUTE_ZERO[doc.units];
+    const cold = (t: number | undefined) => t !== undefined && t < zero.value;
+    if (cold(doc.conditions.temperature)) ctx.addIssue({ code: 'custom', path: ['conditions', 'temperature'], message: `must be at or above absolute zero (${zero.label})` });
+    doc.elements.forEach((el, i) => {
+      if (cold(el.conditions?.temperature)) ctx.addIssue({ code: 'custom', path: ['elements', i, 'conditions', 'temperature'], message: `must be at or above absolute zero (${zero.label})` });
     });
     if (doc.conditions.material === undefined && doc.conditions.allowableStress === undefined) {
       const all = doc.elements.every((el) => el.conditions?.material !== undefined || el.conditions?.allowableStress !== undefined);

@@ -6,6 +6,7 @@ import fs from 'node:fs';
 import path from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { ROOT } from '../../scripts/lib/tooling';
+import { parseMail } from '../../server/mail/mime';
 
 export const RESULTS = path.join(ROOT, 'test-results');
 export const PASSWORD = 'spoolwright-demo';
@@ -164,10 +165,50 @@ export async function statusOf(page: Page, id: string): Promise<string | null> {
 // ---------------------------------------------------------------------------------------------
 
 // ---------------------------------------------------------------------------------------------
-// Mail
+// Mail: without SMTP_URL the server's catcher keeps each message as DATA_DIR/mail/*.eml.
+
+export interface ReadMailOptions {
+  /** Only mail that arrived at or after this time (ms since the epoch). */
+  after?: number;
+  /** Only mail whose subject matches. */
+  subject?: RegExp;
+  /** How long to wait for it to arrive (mail may be sent in the background); default 5 s. */
+  timeoutMs?: number;
+}
+
+/**
+ * The decoded text of the newest message to `to` in `dataDir`/mail (waiting for it to arrive);
+ * throws when none comes. The one place tests read one-use links (reset, invitation) from.
+ */
+export async function readMail(dataDir: string, to: string, opts: ReadMailOptions = {}): Promise<string> {
+  const dir = path.join(dataDir, 'mail');
+  const want = to.toLowerCase();
+  const deadline = Date.now() + (opts.timeoutMs ?? 5000);
+  for (;;) {
+    const files = fs.existsSync(dir)
+      ? fs
+          .readdirSync(dir)
+          .filter((f) => f.endsWith('.eml'))
+          .sort()
+          .reverse()
+      : [];
+    for (const f of files) {
+      const file = path.join(dir, f);
+      if (opts.after !== undefined && fs.statSync(file).mtimeMs < opts.after - 5) continue;
+      const mail = parseMail(fs.readFileSync(file));
+      if (!mail.to.includes(want)) continue;
+      if (opts.subject && !opts.subject.test(mail.subject)) continue;
+      return mail.text;
+    }
+    if (Date.now() > deadline) throw new Error(`no mail to ${to} in ${dir}`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
+}
+
+// Mail, read at once (null when none has arrived)
 
 /** Decode one text part of a message (quoted-printable or base64, else as is). */
-function decodeBody(headers: string, body: string): string {
+function decodeMailPart(headers: string, body: string): string {
   const enc = /content-transfer-encoding:\s*([^\s;]+)/i.exec(headers)?.[1]?.toLowerCase();
   if (enc === 'base64') return Buffer.from(body.replace(/\s+/g, ''), 'base64').toString('utf8');
   if (enc === 'quoted-printable') {
@@ -183,7 +224,7 @@ function decodeBody(headers: string, body: string): string {
  * The newest message to `to` in the server's mailbox folder (`DATA_DIR/mail/*.eml`, written by
  * the in-process SMTP catcher): its subject and plain text, or null when none has arrived.
  */
-export function readMail(dataDir: string, to: string): { subject: string; text: string; file: string } | null {
+export function findMail(dataDir: string, to: string): { subject: string; text: string; file: string } | null {
   const dir = path.join(dataDir, 'mail');
   if (!fs.existsSync(dir)) return null;
   const want = to.toLowerCase();
@@ -203,7 +244,7 @@ export function readMail(dataDir: string, to: string): { subject: string; text: 
   const m = found[0];
   if (!m) return null;
   const subject = /^subject:\s*(.*)$/im.exec(m.headers)?.[1]?.trim() ?? '';
-  let text = decodeBody(m.headers, m.body);
+  let text = decodeMailPart(m.headers, m.body);
   // Multipart: take the text/plain part.
   const boundary = /boundary="?([^";\s]+)"?/i.exec(m.headers)?.[1];
   if (boundary) {
@@ -211,7 +252,7 @@ export function readMail(dataDir: string, to: string): { subject: string; text: 
     if (part) {
       const pc = part.replace(/^\n/, '').indexOf('\n\n');
       const trimmed = part.replace(/^\n/, '');
-      text = decodeBody(trimmed.slice(0, pc).replace(/\n[ \t]+/g, ' '), trimmed.slice(pc + 2));
+      text = decodeMailPart(trimmed.slice(0, pc).replace(/\n[ \t]+/g, ' '), trimmed.slice(pc + 2));
     }
   }
   return { subject, text, file: m.file };

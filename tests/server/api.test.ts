@@ -1,5 +1,5 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { createTestApp, demoEmail, sampleDocument, type TestApp } from './helpers';
+import { createTestApp, DEMO_PASSWORD, demoEmail, sampleDocument, type TestApp } from './helpers';
 import { teams, teamMembers } from '../../server/db/schema';
 import { createUserWithPassword } from '../../server/db/seed';
 import { buildLongSpool } from '../../server/db/demo-spools';
@@ -265,19 +265,29 @@ describe('lifecycle, revisions and mail', () => {
 });
 
 describe('password reset by e-mail', () => {
-  it('mails a reset link; the token sets a new password', async () => {
+  it('mails a reset link; the token sets a new password and ends the old sessions at once', async () => {
+    const before = await t.signIn('fabricator');
+    await before.get('/api/me').expect(200);
     const anon = t.anon();
     const req = await anon.post('/api/auth/request-password-reset').send({ email: demoEmail('fabricator'), redirectTo: '/reset-password' });
     expect(req.status).toBe(200);
-    const mail = await (await t.signIn('admin')).get('/api/admin/outbox');
-    const msg = mail.body.items.find((m: { to: string; subject: string }) => m.to === demoEmail('fabricator') && /reset/i.test(m.subject));
-    expect(msg).toBeDefined();
-    expect(msg.text).toContain(`${t.config.publicUrl}/reset-password?token=`);
-    const token = decodeURIComponent(/reset-password\?token=([^\s&]+)/.exec(msg.text)?.[1] ?? '');
+    // The link reaches the addressee's mailbox (the catcher's .eml files), not the outbox.
+    const text = await t.readMail(demoEmail('fabricator'), { subject: /reset/i });
+    const token = /\/reset-password\?token=([^\s&]+)/.exec(text)?.[1];
     expect(token).toBeTruthy();
     await anon.post('/api/auth/reset-password').send({ token, newPassword: 'a-brand-new-password' }).expect(200);
     await anon.post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'a-brand-new-password' }).expect(200);
     await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'spoolwright-demo' }).expect(401);
+    // The session from before the reset is revoked: no read, no write.
+    expect((await before.get('/api/me')).status).toBe(401);
+    expect((await before.post('/api/spools').send({ document: sampleDocument('After reset') })).status).toBe(401);
+    t.forget('fabricator');
+    // Put the demo password back for the tests that follow.
+    const again = t.anon();
+    const sentAfter = Date.now();
+    await again.post('/api/auth/request-password-reset').send({ email: demoEmail('fabricator') }).expect(200);
+    const back = /\/reset-password\?token=([^\s&]+)/.exec(await t.readMail(demoEmail('fabricator'), { subject: /reset/i, after: sentAfter }))?.[1];
+    await again.post('/api/auth/reset-password').send({ token: back, newPassword: DEMO_PASSWORD }).expect(200);
   });
 });
 
@@ -306,17 +316,17 @@ describe('check, catalog and share links', () => {
     const lead = await t.signIn('lead');
     const share = await lead.post(`/api/spools/${s.id}/shares`).send({ expiresInDays: 7 });
     expect(share.status).toBe(201);
-    expect(share.body).toMatchObject({ revision: 0, active: true, url: expect.stringContaining(`/share/${share.body.id}`) });
-    const view = await t.anon().get(`/api/share/${share.body.id}`);
+    expect(share.body).toMatchObject({ revision: 0, active: true, state: 'active', url: expect.stringContaining(`/share/${share.body.token}`) });
+    const view = await t.anon().get(`/api/share/${share.body.token}`);
     expect(view.status).toBe(200);
     expect(view.body.spool).toMatchObject({ name: 'Shared', revision: 0 });
     expect(view.body.check.elements).toHaveLength(3);
     // Later edits of the draft do not leak into the link.
     await lead.put(`/api/spools/${s.id}`).send({ document: sampleDocument('Shared', { line: 'changed' }), baseVersion: 1 }).expect(200);
-    expect((await t.anon().get(`/api/share/${share.body.id}`)).body.spool.line).toBe('2"-TS-0001-A1');
+    expect((await t.anon().get(`/api/share/${share.body.token}`)).body.spool.line).toBe('2"-TS-0001-A1');
     expect((await lead.get(`/api/spools/${s.id}/shares`)).body.items).toHaveLength(1);
     await lead.delete(`/api/spools/${s.id}/shares/${share.body.id}`).expect(204);
-    expect((await t.anon().get(`/api/share/${share.body.id}`)).status).toBe(410);
+    expect((await t.anon().get(`/api/share/${share.body.token}`)).status).toBe(410);
     expect((await t.anon().get('/api/share/not-a-token')).status).toBe(404);
   });
 });
@@ -368,7 +378,7 @@ describe('team materials library', () => {
     expect(before.body.summary.invalid).toBe(3);
     const up = await admin.post('/api/materials/import').field('source', 'Owner spec KX-1 rev B, table 4').attach('file', Buffer.from(csv), 'materials.csv');
     expect(up.status).toBe(201);
-    expect(up.body.rechecked).toBeGreaterThan(0);
+    expect(up.body.job).toMatchObject({ id: expect.any(Number), kind: 'recheck', status: expect.stringMatching(/queued|running|done/) });
     expect(up.body.items[0]).toMatchObject({ id: 'KX-CS-70', tensilePsi: 70_000, stress: [{ tempF: 100, value: 23_300 }, { tempF: 400 }, { tempF: 600, value: 20_000 }] });
     const after = await admin.post('/api/check').send(doc);
     expect(after.body.summary.invalid).toBe(0);
@@ -378,8 +388,13 @@ describe('team materials library', () => {
     const saved = await admin.post('/api/spools').send({ document: doc });
     expect(saved.body.summary.invalid).toBe(0);
     const del = await admin.delete('/api/materials/KX-CS-70').expect(200);
-    expect(del.body).toMatchObject({ deleted: 'KX-CS-70', rechecked: expect.any(Number) });
-    // Stored summaries follow the library; the save counter does not move.
+    expect(del.body).toMatchObject({ deleted: 'KX-CS-70', job: { kind: 'recheck' } });
+    // Stored summaries follow the library (a background job); the save counter does not move.
+    await t.idle();
+    const jobs = await admin.get('/api/admin/jobs');
+    expect(jobs.body.items[0]).toMatchObject({ kind: 'recheck', status: 'done', reason: 'material KX-CS-70 deleted', total: expect.any(Number), done: expect.any(Number) });
+    expect(jobs.body.items[0].done).toBe(jobs.body.items[0].total);
+    expect((await admin.get(`/api/admin/jobs/${up.body.job.id}`)).body).toMatchObject({ status: 'done', changed: expect.any(Number) });
     const reread = await admin.get(`/api/spools/${saved.body.id}`);
     expect(reread.body).toMatchObject({ version: 1, summary: { invalid: 3 } });
     expect((await admin.post('/api/check').send(doc)).body.summary.invalid).toBe(3);

@@ -114,7 +114,7 @@ describe('GET /api/share/:token/calc-sheet.pdf', () => {
   it('gives anyone the shared revision without team data, and 410 once revoked', async () => {
     const lead = await t.signIn('lead');
     const share = await lead.post(`/api/spools/${cw.id}/shares`).send({ revision: 0 }).expect(201);
-    const token = share.body.id as string;
+    const token = share.body.token as string;
     const r = await getPdf(t.anon(), `/api/share/${token}/calc-sheet.pdf`).expect(200);
     expect(r.headers['content-type']).toBe('application/pdf');
     const text = pdfText(r.body as Buffer);

@@ -6,12 +6,13 @@ import path from 'node:path';
 import { PGlite } from '@electric-sql/pglite';
 import pg from 'pg';
 import request from 'supertest';
-import { createApp } from '../../server/app';
+import { closeAppServices, createApp, getAppServices } from '../../server/app';
 import { createAuth } from '../../server/auth/auth';
 import { loadConfig, type ServerConfig } from '../../server/config';
 import { MIGRATIONS_DIR, openPostgres, wrapPglite, type Database } from '../../server/db/client';
 import { DEMO_PASSWORD, DEMO_USERS, seedDemo } from '../../server/db/seed';
-import { createMailer } from '../../server/mail/mailer';
+import { createMailer, type Mailer } from '../../server/mail/mailer';
+import { readMail, type ReadMailOptions } from '../e2e/harness';
 import { silentLogger } from '../../server/logger';
 import type { Role } from '../../shared/model/permissions';
 
@@ -113,6 +114,13 @@ export interface TestApp {
   signIn(role: Role): Promise<request.Agent>;
   /** A supertest agent without a session. */
   anon(): request.Agent;
+  /** Resolves when no background job (re-checks) is running. */
+  idle(): Promise<void>;
+  /** Drop the cached agent of `role` (after its sessions were revoked), so signIn signs in afresh. */
+  forget(role: Role): void;
+  mailer: Mailer;
+  /** The newest mail to `to` the catcher kept (its decoded text), waiting for it to arrive. */
+  readMail(to: string, opts?: ReadMailOptions): Promise<string>;
   close(): Promise<void>;
 }
 
@@ -125,8 +133,9 @@ export function demoEmail(role: Role): string {
 /** createApp() over a fresh demo database, quiet, rate limiter off unless asked for. */
 export async function createTestApp(overrides: Partial<ServerConfig> = {}): Promise<TestApp> {
   const database = await createTestDatabase();
-  const config = loadConfig({ NODE_ENV: 'test' }, { rateLimit: false, originCheck: false, dataDir: os.tmpdir(), ...overrides });
-  const mailer = createMailer({ db: database.db, from: config.mailFrom, logger: silentLogger });
+  const dataDir = overrides.dataDir ?? fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-test-'));
+  const config = loadConfig({ NODE_ENV: 'test' }, { rateLimit: false, originCheck: false, ...overrides, dataDir });
+  const mailer = await createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger: silentLogger, mailDir: path.join(dataDir, 'mail') });
   const auth = createAuth({ db: database.db, config, mailer, logger: silentLogger });
   const app = createApp({ db: database.db, auth, mailer, config, logger: silentLogger });
   const agents = new Map<Role, request.Agent>();
@@ -144,7 +153,16 @@ export async function createTestApp(overrides: Partial<ServerConfig> = {}): Prom
       return agent;
     },
     anon: () => request.agent(app),
-    close: () => database.close(),
+    forget: (role) => agents.delete(role),
+    mailer,
+    readMail: (to, opts) => readMail(dataDir, to, opts),
+    idle: () => getAppServices(app).jobs.idle(),
+    async close() {
+      await closeAppServices(app);
+      await mailer.close();
+      await database.close();
+      if (!overrides.dataDir) fs.rmSync(dataDir, { recursive: true, force: true });
+    },
   };
 }
 

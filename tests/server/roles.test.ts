@@ -36,7 +36,7 @@ interface RouteCase {
 
 let t: TestApp;
 let admin: request.Agent;
-let fixed: { spoolId: string; shareId: string; fabricatorId: string };
+let fixed: { spoolId: string; shareId: string; shareToken: string; fabricatorId: string };
 
 async function newSpool(state: 'draft' | 'submitted' | 'checked' = 'draft') {
   const r = await admin.post('/api/spools').send({ document: sampleDocument(`Matrix ${randomUUID().slice(0, 8)}`) });
@@ -134,12 +134,12 @@ const ROUTES: RouteCase[] = [
       return { method: 'delete', path: `/api/spools/${fixed.spoolId}/shares/${s.body.id}` };
     },
   },
-  { name: 'GET /api/share/:token (public view)', allowed: EVERY_MEMBER, isPublic: true, setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareId}` }) },
+  { name: 'GET /api/share/:token (public view)', allowed: EVERY_MEMBER, isPublic: true, setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareToken}` }) },
   {
     name: 'GET /api/share/:token/calc-sheet.pdf (public)',
     allowed: EVERY_MEMBER,
     isPublic: true,
-    setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareId}/calc-sheet.pdf` }),
+    setup: async () => ({ method: 'get', path: `/api/share/${fixed.shareToken}/calc-sheet.pdf` }),
   },
   { name: 'GET /api/team/members', allowed: EVERY_MEMBER, setup: async () => ({ method: 'get', path: '/api/team/members' }) },
   {
@@ -211,6 +211,15 @@ const ROUTES: RouteCase[] = [
     allowed: [D, L, A],
     setup: async () => ({ method: 'post', path: '/api/spools/import/preview', csv: 'name,pressure,temperature\nMatrix preview,150,100' }),
   },
+  { name: 'GET /api/admin/jobs', allowed: [A], setup: async () => ({ method: 'get', path: '/api/admin/jobs' }) },
+  {
+    name: 'GET /api/admin/jobs/:jobId',
+    allowed: [A],
+    setup: async () => {
+      const up = await admin.post('/api/materials/import?source=matrix%20job').set('content-type', 'text/csv').send('id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\nMX-JOB,Matrix,1,60,35,100,20').expect(201);
+      return { method: 'get', path: `/api/admin/jobs/${up.body.job.id}` };
+    },
+  },
 ];
 
 /** A pending invitation written straight to the database, so the test knows its token. */
@@ -235,7 +244,7 @@ beforeAll(async () => {
   const share = await admin.post(`/api/spools/${s.id}/shares`).send({});
   const members = await admin.get('/api/team/members');
   const fab = members.body.items.find((m: { role: string }) => m.role === 'fabricator');
-  fixed = { spoolId: s.id, shareId: share.body.id, fabricatorId: fab.userId };
+  fixed = { spoolId: s.id, shareId: share.body.id, shareToken: share.body.token, fabricatorId: fab.userId };
 });
 afterAll(async () => {
   await t?.close();

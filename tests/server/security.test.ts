@@ -1,16 +1,16 @@
 import { afterAll, beforeAll, describe, expect, it, vi } from 'vitest';
 import { createTestApp, DEMO_PASSWORD, demoEmail, sampleDocument, type TestApp } from './helpers';
 
-describe('sign-in rate limit', () => {
+describe('sign-in limits', () => {
   let t: TestApp;
   beforeAll(async () => {
-    t = await createTestApp({ rateLimit: true });
+    t = await createTestApp({ rateLimit: true, signInLimits: { perAccount: { max: 5, windowMs: 60_000 }, perAddress: { max: 12, windowMs: 60_000 } } });
   });
   afterAll(async () => {
     await t?.close();
   });
 
-  it('allows 5 sign-in attempts per 10 s from one address, then answers 429', async () => {
+  it('allows 5 failed sign-ins per account, then answers 429 for that account only', async () => {
     const codes: number[] = [];
     for (let i = 0; i < 7; i++) {
       const r = await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('designer'), password: 'wrong-password' });
@@ -18,12 +18,21 @@ describe('sign-in rate limit', () => {
     }
     expect(codes.slice(0, 5)).toEqual([401, 401, 401, 401, 401]);
     expect(codes.slice(5)).toEqual([429, 429]);
+    const locked = await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('designer'), password: DEMO_PASSWORD });
+    expect(locked.status).toBe(429);
+    expect(locked.body.error).toMatchObject({ code: 'rate_limited', details: { retryAfter: expect.any(Number) } });
+    expect(locked.headers['retry-after']).toBeDefined();
+    // Colleagues at the same address still sign in, and successes do not use up their account's allowance.
+    for (let i = 0; i < 2; i++) await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('checker'), password: DEMO_PASSWORD }).expect(200);
   });
 
-  it('keys the limit on the socket address, not a client-supplied x-forwarded-for', async () => {
-    const agent = t.anon();
-    const r = await agent.post('/api/auth/sign-in/email').set('x-forwarded-for', '10.1.2.3').send({ email: demoEmail('lead'), password: DEMO_PASSWORD });
+  it('limits attempts per address more loosely, keyed on the socket, not a client-supplied x-forwarded-for', async () => {
+    // 10 attempts so far from this address; the address allows 12 per minute.
+    await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('fabricator'), password: 'wrong-password' }).expect(401);
+    await t.anon().post('/api/auth/sign-in/email').send({ email: demoEmail('lead'), password: DEMO_PASSWORD }).expect(200);
+    const r = await t.anon().post('/api/auth/sign-in/email').set('x-forwarded-for', '10.1.2.3').send({ email: demoEmail('lead'), password: DEMO_PASSWORD });
     expect(r.status).toBe(429);
+    expect(r.body.error.message).toMatch(/address/);
   });
 });
 

@@ -8,7 +8,7 @@ import {
   journey,
   newContext,
   openPage,
-  readMail,
+  findMail,
   screenshot,
   signIn,
   step,
@@ -45,7 +45,7 @@ async function waitForMailText(admin: Page, base: string, shared: E2EShared, to:
   const deadline = Date.now() + 15_000;
   while (Date.now() < deadline) {
     if (shared.dataDir) {
-      const m = readMail(shared.dataDir, to);
+      const m = findMail(shared.dataDir, to);
       if (m && link.test(m.text) && !seen.has(m.text)) {
         seen.add(m.text);
         return m.text;
@@ -173,6 +173,8 @@ export const adminJourney: E2EJourney = {
           await form.getByLabel('Source note', { exact: true }).fill('Owner spec KX rev C, table 2');
           await form.getByLabel(/recalled from memory/).check();
           await form.getByRole('button', { name: 'Add material' }).click();
+          // The re-check runs as a background job: the note counts up, then says how many.
+          await form.locator('[data-testid="rechecked"]:not([data-running])').waitFor();
           const note = await form.getByTestId('rechecked').textContent();
           expect(/^\d+ spools? re-checked/.test(note ?? ''), `re-check note "${note}"`);
           const row = admin.locator(`[data-testid="materials"] tr[data-material="${MATERIAL_ID}"][data-origin="team"]`);

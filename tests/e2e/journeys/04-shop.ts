@@ -44,7 +44,7 @@ export const shopJourney: E2EJourney = {
           await page.getByLabel('Find spools').fill('CW-101-01');
           // The search is debounced: wait for the filtered register before clicking.
           await page.getByText(/^1 spool$/).waitFor();
-          const link = page.getByRole('link', { name: RELEASED });
+          const link = page.getByTestId('spool-table').getByRole('link', { name: RELEASED });
           await link.waitFor();
           const href = await link.getAttribute('href');
           expect(href?.endsWith('/fabrication'), `register link for a released spool goes to the sheet (got ${href})`);

@@ -8,9 +8,9 @@ export const csvIssueSchema = z.object({
 });
 
 /**
- * What a change to the team library says about the re-check of the team's spools. Today the
- * server re-checks before answering and sends the count (`rechecked`); a background job would
- * send its id instead (see use-recheck-status.ts).
+ * What a change to the team library says about the re-check of the team's spools: the id of
+ * the background job that re-checks them (`recheckJob`, polled by use-recheck-status.ts), or a
+ * final count (`rechecked`).
  */
 export const recheckFieldsSchema = z.object({
   rechecked: z.number().int().nonnegative().optional(),

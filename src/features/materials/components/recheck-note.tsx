@@ -11,6 +11,13 @@ export function RecheckNote({ result }: { readonly result: RecheckFields | undef
       </span>
     );
   }
-  if (status.state === 'running') return <span data-testid="rechecked">Re-checking the team's spools…</span>;
+  if (status.state === 'running') {
+    return (
+      <span data-testid="rechecked" data-running>
+        Re-checking the team's spools… {status.total > 0 ? `${status.done} of ${status.total}` : ''}
+      </span>
+    );
+  }
+  if (status.state === 'failed') return <span data-testid="rechecked" className="text-red-700">The re-check of the team's spools failed: {status.error}</span>;
   return null;
 }

@@ -26,7 +26,7 @@ export function WaitingRows({ waiting }: { readonly waiting: Waiting }) {
       {waiting.items.map((w) => (
         <li key={w.spool.id} data-waiting-spool={w.spool.id} className="flex flex-col gap-1 px-3 py-2 text-sm">
           <div className="flex flex-wrap items-center gap-3">
-            <Link to={spoolHref(w.spool.id)} className="font-medium text-steel-900 underline-offset-2 hover:text-copper-600 hover:underline">
+            <Link to={waiting.role === 'fabricator' ? `/spools/${encodeURIComponent(w.spool.id)}/fabrication` : spoolHref(w.spool.id)} className="font-medium text-steel-900 underline-offset-2 hover:text-copper-600 hover:underline">
               {w.spool.name || '(unnamed)'}
             </Link>
             <span className="text-steel-500">{w.spool.line || '—'}</span>
