@@ -25,6 +25,7 @@ import { RecheckJobs } from './jobs/recheck-jobs';
 import { jobsRouter } from './routes/jobs';
 import { shareRateLimit } from './rate-limit';
 import { waitingRouter } from './routes/waiting';
+import { invitationsRouter } from './routes/invitations';
 import { cspMiddleware } from './csp';
 import { guardAuthHandler, DEFAULT_SIGN_IN_LIMITS } from './auth/sign-in-limits';
 
@@ -124,6 +125,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/share', shareRateLimit(deps.config.rateLimit), publicShareRouter({ db: deps.db, materials, checks }));
   app.use('/api/share', publicCalcSheetRouter({ db: deps.db, materials }));
   const memberships = new MembershipCache(deps.db);
+  app.use('/api/invitations', invitationsRouter({ db: deps.db, memberships, rateLimit: deps.config.rateLimit }));
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
   app.use('/api/waiting', waitingRouter({ db: deps.db }));
@@ -133,7 +135,7 @@ export function createApp(deps: AppDeps) {
   app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials, checks }));
   app.use('/api/check', checkRouter({ materials, checks }));
   app.use('/api', catalogRouter({ db: deps.db, materials, jobs }));
-  app.use('/api/team', teamRouter({ db: deps.db, memberships, sessions: sessionCacheOf(deps.auth) }));
+  app.use('/api/team', teamRouter({ db: deps.db, memberships, sessions: sessionCacheOf(deps.auth), mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
   app.use('/api/admin/jobs', jobsRouter({ jobs }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);

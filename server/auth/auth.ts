@@ -6,8 +6,9 @@ import type { ServerConfig } from '../config';
 import type { Logger } from '../logger';
 import { sendInBackground, type Mailer } from '../mail/mailer';
 import { SessionCache } from './session-cache';
+import { MAX_PASSWORD_LENGTH, MIN_PASSWORD_LENGTH } from '../../shared/model/team';
 
-export const MIN_PASSWORD_LENGTH = 10;
+export { MIN_PASSWORD_LENGTH };
 
 const sessionCaches = new WeakMap<object, SessionCache>();
 
@@ -38,7 +39,7 @@ export function createAuth(deps: { db: Db; config: ServerConfig; mailer: Mailer;
       enabled: true,
       disableSignUp: true,
       minPasswordLength: MIN_PASSWORD_LENGTH,
-      maxPasswordLength: 128,
+      maxPasswordLength: MAX_PASSWORD_LENGTH,
       resetPasswordTokenExpiresIn: 60 * 60,
       revokeSessionsOnPasswordReset: true,
       // The link opens the client's set-new-password page. Sent in the background, so the

@@ -195,6 +195,30 @@ export const teamMaterials = pgTable(
 );
 
 /**
+ * An e-mailed invitation to join a team. Only the SHA-256 of the one-use token is kept; the
+ * link in the mail is the only copy of the token.
+ */
+export const teamInvitations = pgTable(
+  'team_invitations',
+  {
+    id: text('id').primaryKey(),
+    teamId: text('team_id')
+      .notNull()
+      .references(() => teams.id, { onDelete: 'cascade' }),
+    email: text('email').notNull(),
+    name: text('name').notNull(),
+    role: text('role').notNull(),
+    tokenHash: text('token_hash').notNull(),
+    invitedBy: text('invited_by').references(() => user.id, { onDelete: 'set null' }),
+    createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
+    expiresAt: timestamp('expires_at', { withTimezone: true }).notNull(),
+    acceptedAt: timestamp('accepted_at', { withTimezone: true }),
+    revokedAt: timestamp('revoked_at', { withTimezone: true }),
+  },
+  (t) => [uniqueIndex('team_invitations_token_idx').on(t.tokenHash), index('team_invitations_team_idx').on(t.teamId, t.createdAt)],
+ );
+
+/**
  * Background work of a team, e.g. re-checking every spool after its materials changed. Rows
  * outlive the process: a job found unfinished at start-up is run again (its work is idempotent).
  */

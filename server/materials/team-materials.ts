@@ -79,6 +79,7 @@ const COLUMNS = [
   'tempf',
   'stressksi',
   'yieldatksi',
+  'frommemory',
 ] as const;
 const REQUIRED = ['id', 'spec', 'grade', 'tensileksi', 'yieldksi', 'tempf', 'stressksi'];
 
@@ -114,6 +115,12 @@ const pointColumns = z.object({
   tempf: num('temp_f').refine((v) => v >= -459 && v <= 2000, 'must be a temperature in °F'),
   stressksi: num('stress_ksi').refine((v) => v > 0 && v < 200, 'must be an allowable stress in ksi'),
   yieldatksi: num('yield_at_ksi').refine((v) => v > 0 && v < 300, 'must be a yield strength in ksi').optional(),
+  frommemory: z
+    .string()
+    .transform((s) => s.toLowerCase())
+    .pipe(z.enum(['yes', 'no', 'true', 'false', '1', '0', 'y', 'n'], { error: 'from_memory must be yes or no' }))
+    .transform((s) => ['yes', 'true', '1', 'y'].includes(s))
+    .optional(),
 });
 
 const issue = (line: number, column: string | null, message: string): CsvIssue => ({ line, column, path: column ? `line ${line}: ${column}` : `line ${line}`, message });
@@ -122,7 +129,8 @@ const ksi = (v: number) => Math.round(v * 1000);
 /**
  * Materials CSV: one row per material and temperature (`id, spec, grade, tensile_ksi, yield_ksi,
  * temp_f, stress_ksi`, optional `name, category, y_family, w_family, modulus_group,
- * product_forms, yield_at_ksi`). Material columns are read from each id's first row.
+ * product_forms, yield_at_ksi, from_memory` (yes/no: the row's values were recalled, not read
+ * from the source)). Material columns are read from each id's first row.
  */
 export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvRow[], sourceNote: string): { materials: Material[]; issues: CsvIssue[] } {
   const issues: CsvIssue[] = [];
@@ -145,7 +153,7 @@ export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvR
   for (const row of rows) {
     const id = get(row, 'id');
     if (!id) {
-      issues.push(issue(row.line, 'id', 'is required'));
+      issues.push(issue(row.line, colOf.get('id') ?? 'id', 'is required'));
       continue;
     }
     if (id.length > TEXT_LIMITS.id) {
@@ -160,23 +168,24 @@ export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvR
   for (const [id, g] of byId) {
     const pick = (ks: readonly string[]) => Object.fromEntries(ks.map((k) => [k, get(g.first, k)]).filter(([, v]) => v !== undefined));
     const head = materialColumns.safeParse(pick(['spec', 'grade', 'name', 'category', 'yfamily', 'wfamily', 'modulusgroup', 'productforms', 'tensileksi', 'yieldksi']));
-    if (!head.success) for (const iss of head.error.issues) issues.push(issue(g.first.line, String(iss.path[0] ?? ''), iss.message));
+    if (!head.success) for (const iss of head.error.issues) issues.push(issue(g.first.line, colOf.get(String(iss.path[0] ?? '')) ?? String(iss.path[0] ?? ''), iss.message));
     const stress: Material['stress'] = [];
     const yieldPts: NonNullable<Material['yield']> = [];
     const seen = new Set<number>();
     for (const row of g.rows) {
-      const p = pointColumns.safeParse(Object.fromEntries(['tempf', 'stressksi', 'yieldatksi'].map((k) => [k, get(row, k)]).filter(([, v]) => v !== undefined)));
+      const p = pointColumns.safeParse(Object.fromEntries(['tempf', 'stressksi', 'yieldatksi', 'frommemory'].map((k) => [k, get(row, k)]).filter(([, v]) => v !== undefined)));
       if (!p.success) {
-        for (const iss of p.error.issues) issues.push(issue(row.line, String(iss.path[0] ?? ''), iss.message));
+        for (const iss of p.error.issues) issues.push(issue(row.line, colOf.get(String(iss.path[0] ?? '')) ?? String(iss.path[0] ?? ''), iss.message));
         continue;
       }
       if (seen.has(p.data.tempf)) {
-        issues.push(issue(row.line, 'temp_f', `temperature ${p.data.tempf} °F appears twice for ${id}`));
+        issues.push(issue(row.line, colOf.get('tempf') ?? 'temp_f', `temperature ${p.data.tempf} °F appears twice for ${id}`));
         continue;
       }
       seen.add(p.data.tempf);
-      stress.push({ tempF: p.data.tempf, value: ksi(p.data.stressksi) });
-      if (p.data.yieldatksi !== undefined) yieldPts.push({ tempF: p.data.tempf, value: ksi(p.data.yieldatksi) });
+      const flag = p.data.frommemory ? { fromMemory: true as const } : {};
+      stress.push({ tempF: p.data.tempf, value: ksi(p.data.stressksi), ...flag });
+      if (p.data.yieldatksi !== undefined) yieldPts.push({ tempF: p.data.tempf, value: ksi(p.data.yieldatksi), ...flag });
     }
     if (!head.success) continue;
     stress.sort((a, b) => a.tempF - b.tempF);

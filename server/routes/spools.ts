@@ -5,8 +5,8 @@ import type { Db } from '../db/client';
 import { shareLinks, spoolComments, teamMembers, user } from '../db/schema';
 import { getContext, getTeamId, requirePermission } from '../auth/member';
 import { HttpError, forbidden, notFound, validationError } from '../errors';
-import { countCsvRows, receiveCsv } from '../csv';
-import { LINE_LIST_MAX_ROWS } from '../spools/line-list';
+import { countCsvRows, parseCsv, receiveCsv } from '../csv';
+import { LINE_LIST_MAX_ROWS, readLineList } from '../spools/line-list';
 import type { TeamMaterials } from '../materials/team-materials';
 import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
@@ -102,6 +102,25 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const teamId = getTeamId(res);
     const id = await insertSpool(db, { teamId, userId: ctx.user.id, document, checkSummary: await checkDocument(teamId, document) });
     res.status(201).location(`/api/spools/${id}`).json(await getSpool(db, teamId, id));
+  });
+
+  // Dry run of the line-list CSV: the spools it would create and every bad cell by line and column. Never writes.
+  r.post('/import/preview', requirePermission('spool:edit'), receiveCsv, async (_req, res) => {
+    const text = String(res.locals.csv ?? '');
+    if (countCsvRows(text, LINE_LIST_MAX_ROWS) > LINE_LIST_MAX_ROWS) {
+      throw validationError(
+        [{ path: 'file', message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows` }],
+        `A line list may hold at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows per import`,
+      );
+    }
+    const csv = parseCsv(text);
+    if (csv.errors.length > 0) {
+      res.json({ ok: false, issues: csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), items: [] });
+      return;
+    }
+    const { docs, lines, issues } = await readLineList(csv.headers, csv.rows);
+    const items = docs.map((document, i) => ({ line: lines[i] ?? null, name: document.name, pipeLine: document.line ?? '', units: document.units, conditions: document.conditions }));
+    res.json({ ok: issues.length === 0, issues, items, rows: csv.rows.length });
   });
 
   // Line-list CSV: one spool per row with its design conditions; all rows or none.

@@ -5,16 +5,21 @@ import { z } from 'zod';
 import type { Db } from '../db/client';
 import { account, session, teamMembers, user } from '../db/schema';
 import { hashPassword } from 'better-auth/crypto';
-import { getTeamId, requirePermission, type MembershipCache } from '../auth/member';
+import { getContext, getTeamId, requirePermission, type MembershipCache } from '../auth/member';
 import type { SessionCache } from '../auth/session-cache';
 import { HttpError, notFound } from '../errors';
 import { parseBody, textParam } from '../validation';
 import { isStorableText, text } from '../../shared/model/fields';
 import { createUserWithPassword } from '../db/seed';
 import { MIN_PASSWORD_LENGTH } from '../auth/auth';
-import { ROLES } from '../../shared/model/permissions';
+import { createInvitation, listInvitations, revokeInvitation } from '../auth/invitations';
+import type { Mailer } from '../mail/mailer';
+import type { Logger } from '../logger';
+import { changeRoleSchema, inviteMemberSchema, roleSchema } from '../../shared/model/team';
 
-const roleSchema = z.enum(ROLES);
+/** Why the last admin stays (shown to the admin as is). */
+const LAST_ADMIN =
+  'A team keeps at least one admin: this is the only admin, so they cannot be removed or given another role. Make another member admin first.';
 const addSchema = z.object({
   email: z.email({ error: 'must be an e-mail address' }).max(200),
   name: text(120, { trim: true, min: 1 }),
@@ -26,8 +31,11 @@ const addSchema = z.object({
     .refine(isStorableText, 'must not contain U+0000 or a lone surrogate'),
 });
 
-/** /api/team/members: everyone in the team may list; admins add, re-role and remove. */
-export function teamRouter(deps: { db: Db; memberships: MembershipCache; sessions: SessionCache }) {
+/**
+ * /api/team/members: everyone in the team may list; admins invite, add, re-role and remove.
+ * /api/team/invitations: admins list, send and withdraw invitations.
+ */
+export function teamRouter(deps: { db: Db; memberships: MembershipCache; sessions: SessionCache; mailer: Mailer; logger: Logger; publicUrl: string }) {
   const { db } = deps;
   const r = Router();
 
@@ -88,13 +96,13 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache; session
   });
 
   r.patch('/members/:userId', requirePermission('team:manage'), async (req, res) => {
-    const body = parseBody(z.object({ role: roleSchema }), req.body ?? {});
+    const body = parseBody(changeRoleSchema, req.body ?? {});
     const teamId = getTeamId(res);
     const userId = textParam(req.params.userId, 'Member not found');
     const [m] = await db.select().from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId))).limit(1);
     if (!m) throw notFound('Member not found');
     if (m.role === 'admin' && body.role !== 'admin' && (await adminCount(teamId)) <= 1) {
-      throw new HttpError(409, 'conflict', 'A team keeps at least one admin');
+      throw new HttpError(409, 'conflict', LAST_ADMIN, [{ path: 'role', message: 'the last admin keeps the admin role' }]);
     }
     await db.update(teamMembers).set({ role: body.role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
     deps.memberships.invalidate(userId);
@@ -107,13 +115,28 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache; session
     const userId = textParam(req.params.userId, 'Member not found');
     const [m] = await db.select().from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId))).limit(1);
     if (!m) throw notFound('Member not found');
-    if (m.role === 'admin' && (await adminCount(teamId)) <= 1) throw new HttpError(409, 'conflict', 'A team keeps at least one admin');
+    if (m.role === 'admin' && (await adminCount(teamId)) <= 1) throw new HttpError(409, 'conflict', LAST_ADMIN);
     await db.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
     // A removed member is signed out everywhere; the account stays, so they can be added again.
     await db.delete(session).where(eq(session.userId, userId));
     deps.sessions.revokeUser(userId);
     deps.memberships.invalidate(userId);
     res.status(204).end();
+  });
+
+  r.get('/invitations', requirePermission('team:manage'), async (_req, res) => {
+    res.json({ items: await listInvitations(db, getTeamId(res)) });
+  });
+
+  r.post('/invitations', requirePermission('team:manage'), async (req, res) => {
+    const input = parseBody(inviteMemberSchema, req.body ?? {});
+    const ctx = getContext(res);
+    const invitation = await createInvitation(deps, { teamId: getTeamId(res), invitedBy: { id: ctx.user.id, name: ctx.user.name || ctx.user.email }, input });
+    res.status(201).json(invitation);
+  });
+
+  r.delete('/invitations/:invitationId', requirePermission('team:manage'), async (req, res) => {
+    res.json(await revokeInvitation(db, getTeamId(res), String(req.params.invitationId)));
   });
 
   return r;

@@ -47,7 +47,7 @@ const issue = (line: number, column: string | null, message: string): CsvIssue =
  * Turn line-list rows into spool documents holding design conditions (no elements yet).
  * Every problem is reported with its line; callers write nothing unless `issues` is empty.
  */
-export async function readLineList(headers: readonly string[], rows: readonly CsvRow[]): Promise<{ docs: SpoolDocument[]; issues: CsvIssue[] }> {
+export async function readLineList(headers: readonly string[], rows: readonly CsvRow[]): Promise<{ docs: SpoolDocument[]; lines: number[]; issues: CsvIssue[] }> {
   const issues: CsvIssue[] = [];
   const known = new Map<string, string>();
   for (const h of headers) {
@@ -57,9 +57,11 @@ export async function readLineList(headers: readonly string[], rows: readonly Cs
   }
   for (const r of REQUIRED) if (![...known.values()].includes(r)) issues.push(issue(1, r, 'required column is missing'));
   if (rows.length === 0) issues.push(issue(2, null, 'the file has no data rows'));
-  if (issues.length > 0) return { docs: [], issues };
+  if (issues.length > 0) return { docs: [], lines: [], issues };
 
   const docs: SpoolDocument[] = [];
+  /** File line of each document in `docs`. */
+  const lines: number[] = [];
   const slice = createSlicer();
   for (const row of rows) {
     await slice();
@@ -82,7 +84,10 @@ export async function readLineList(headers: readonly string[], rows: readonly Cs
         const column = typeof field === 'string' ? (FIELD_TO_COLUMN.get(field) ?? formatPath(iss.path)) : formatPath(iss.path);
         issues.push(issue(row.line, column, iss.message));
       }
-    } else if (doc.name !== undefined) docs.push(parsed.data as SpoolDocument);
+    } else if (doc.name !== undefined) {
+      docs.push(parsed.data as SpoolDocument);
+      lines.push(row.line);
+    }
   }
-  return { docs, issues };
+  return { docs, lines, issues };
 }

@@ -2,6 +2,7 @@ import { lazy, Suspense } from 'react';
 import { Link, NavLink, Outlet, useNavigate } from 'react-router-dom';
 import { useMe } from '@/features/auth/api/get-me';
 import { cn } from '@/lib/cn';
+import { AdminNav } from './admin-nav';
 
 // The count's query and schemas load with their own chunk, not with the shell.
 const WaitingCount = lazy(() => import('@/features/review/components/waiting-list').then((m) => ({ default: m.WaitingCount })));
@@ -38,6 +39,7 @@ export function AppLayout() {
               <WaitingCount />
             </Suspense>
           ) : null}
+          <AdminNav />
         </nav>
         <div className="ml-auto flex items-center gap-3 text-sm" data-testid="whoami">
           {me ? (

@@ -63,6 +63,30 @@ export function createAppRouter() {
       errorElement: <RouteErrorView />,
     },
     {
+      path: '/forgot-password',
+      lazy: page(
+        () => import('@/features/auth/components/forgot-password-page'),
+        (m) => m.ForgotPasswordPage,
+      ),
+      errorElement: <RouteErrorView />,
+    },
+    {
+      path: '/reset-password',
+      lazy: page(
+        () => import('@/features/auth/components/reset-password-page'),
+        (m) => m.ResetPasswordPage,
+      ),
+      errorElement: <RouteErrorView />,
+    },
+    {
+      path: '/accept-invite',
+      lazy: page(
+        () => import('@/features/team/components/accept-invite-page'),
+        (m) => m.AcceptInvitePage,
+      ),
+      errorElement: <RouteErrorView />,
+    },
+    {
       element: <RequireSignedIn />,
       errorElement: <RouteErrorView />,
       children: [
@@ -105,6 +129,34 @@ export function createAppRouter() {
               lazy: page(
                 () => import('@/features/review/components/revision-page'),
                 (m) => m.RevisionPage,
+              ),
+            },
+            {
+              path: '/team',
+              lazy: page(
+                () => import('@/features/team/components/members-page'),
+                (m) => m.MembersPage,
+              ),
+            },
+            {
+              path: '/materials',
+              lazy: page(
+                () => import('@/features/materials/components/materials-page'),
+                (m) => m.MaterialsPage,
+              ),
+            },
+            {
+              path: '/line-list',
+              lazy: page(
+                () => import('@/features/line-list/components/line-list-page'),
+                (m) => m.LineListPage,
+              ),
+            },
+            {
+              path: '/outbox',
+              lazy: page(
+                () => import('@/features/outbox/components/outbox-page'),
+                (m) => m.OutboxPage,
               ),
             },
             { path: '*', element: <Navigate to="/spools" replace /> },

@@ -35,6 +35,8 @@ export const API_BASE = '/api';
 export interface RequestOptions<T> {
   readonly method?: 'GET' | 'POST' | 'PUT' | 'PATCH' | 'DELETE';
   readonly body?: unknown;
+  /** Sent as is with this content type instead of a JSON body (CSV uploads). */
+  readonly rawBody?: { readonly contentType: string; readonly text: string };
   readonly query?: Record<string, string | number | undefined | null>;
   /** When given, the answer is validated; a mismatch is reported as an ApiError with code `bad-response`. */
   readonly schema?: ResponseSchema<T>;
@@ -81,11 +83,15 @@ function readErrorBody(status: number, statusText: string, data: unknown): ApiEr
  * becomes an {@link ApiError} carrying the server's `{ code, message, details }`.
  */
 export async function apiRequest<T = unknown>(path: string, opts: RequestOptions<T> = {}): Promise<T> {
+  const raw = opts.rawBody;
   const init: RequestInit = {
-    method: opts.method ?? (opts.body === undefined ? 'GET' : 'POST'),
+    method: opts.method ?? (opts.body === undefined && raw === undefined ? 'GET' : 'POST'),
     credentials: 'include',
-    headers: { Accept: 'application/json', ...(opts.body === undefined ? {} : { 'Content-Type': 'application/json' }) },
-    body: opts.body === undefined ? undefined : JSON.stringify(opts.body),
+    headers: {
+      Accept: 'application/json',
+      ...(raw ? { 'Content-Type': raw.contentType } : opts.body === undefined ? {} : { 'Content-Type': 'application/json' }),
+    },
+    body: raw ? raw.text : opts.body === undefined ? undefined : JSON.stringify(opts.body),
     signal: opts.signal,
   };
   let res: Response;

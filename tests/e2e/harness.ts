@@ -14,10 +14,10 @@ export const STEP_TIMEOUT = 20_000;
 
 /** What journeys hand on to later journeys (ids of spools they made, links, …). */
 export interface E2EShared {
+  /** The server's DATA_DIR (its mail catcher keeps each message under `mail/`). */
+  dataDir?: string;
   spoolId?: string;
   spoolName?: string;
-  /** The server's DATA_DIR; its mail/ folder holds every message the development catcher received. */
-  dataDir?: string;
   [key: string]: unknown;
 }
 
@@ -203,4 +203,57 @@ export async function readMail(dataDir: string, to: string, opts: ReadMailOption
     if (Date.now() > deadline) throw new Error(`no mail to ${to} in ${dir}`);
     await new Promise((r) => setTimeout(r, 50));
   }
+}
+
+// Mail, read at once (null when none has arrived)
+
+/** Decode one text part of a message (quoted-printable or base64, else as is). */
+function decodeMailPart(headers: string, body: string): string {
+  const enc = /content-transfer-encoding:\s*([^\s;]+)/i.exec(headers)?.[1]?.toLowerCase();
+  if (enc === 'base64') return Buffer.from(body.replace(/\s+/g, ''), 'base64').toString('utf8');
+  if (enc === 'quoted-printable') {
+    const bytes = body
+      .replace(/=\r?\n/g, '')
+      .replace(/=([0-9A-F]{2})/gi, (_, h: string) => String.fromCharCode(parseInt(h, 16)));
+    return Buffer.from(bytes, 'latin1').toString('utf8');
+  }
+  return body;
+}
+
+/**
+ * The newest message to `to` in the server's mailbox folder (`DATA_DIR/mail/*.eml`, written by
+ * the in-process SMTP catcher): its subject and plain text, or null when none has arrived.
+ */
+export function findMail(dataDir: string, to: string): { subject: string; text: string; file: string } | null {
+  const dir = path.join(dataDir, 'mail');
+  if (!fs.existsSync(dir)) return null;
+  const want = to.toLowerCase();
+  const found = fs
+    .readdirSync(dir)
+    .filter((f) => f.endsWith('.eml'))
+    .map((f) => {
+      const file = path.join(dir, f);
+      const raw = fs.readFileSync(file, 'utf8').replace(/\r\n/g, '\n');
+      const cut = raw.indexOf('\n\n');
+      const headers = cut < 0 ? raw : raw.slice(0, cut);
+      const unfolded = headers.replace(/\n[ \t]+/g, ' ');
+      return { file, raw, headers: unfolded, body: cut < 0 ? '' : raw.slice(cut + 2), at: fs.statSync(file).mtimeMs };
+    })
+    .filter((m) => (/^to:\s*(.*)$/im.exec(m.headers)?.[1] ?? '').toLowerCase().includes(want))
+    .sort((a, b) => b.at - a.at || b.file.localeCompare(a.file));
+  const m = found[0];
+  if (!m) return null;
+  const subject = /^subject:\s*(.*)$/im.exec(m.headers)?.[1]?.trim() ?? '';
+  let text = decodeMailPart(m.headers, m.body);
+  // Multipart: take the text/plain part.
+  const boundary = /boundary="?([^";\s]+)"?/i.exec(m.headers)?.[1];
+  if (boundary) {
+    const part = m.body.split(`--${boundary}`).find((p) => /content-type:\s*text\/plain/i.test(p));
+    if (part) {
+      const pc = part.replace(/^\n/, '').indexOf('\n\n');
+      const trimmed = part.replace(/^\n/, '');
+      text = decodeMailPart(trimmed.slice(0, pc).replace(/\n[ \t]+/g, ' '), trimmed.slice(pc + 2));
+    }
+  }
+  return { subject, text, file: m.file };
 }

@@ -387,7 +387,8 @@ describe('team materials library', () => {
     expect(list.body.items.find((m: { id: string }) => m.id === 'A106-B')).toMatchObject({ origin: 'library' });
     const saved = await admin.post('/api/spools').send({ document: doc });
     expect(saved.body.summary.invalid).toBe(0);
-    await admin.delete('/api/materials/KX-CS-70').expect(204);
+    const del = await admin.delete('/api/materials/KX-CS-70').expect(200);
+    expect(del.body).toMatchObject({ deleted: 'KX-CS-70', job: { kind: 'recheck' } });
     // Stored summaries follow the library (a background job); the save counter does not move.
     await t.idle();
     const jobs = await admin.get('/api/admin/jobs');

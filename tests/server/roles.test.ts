@@ -1,8 +1,9 @@
-import { randomUUID } from 'node:crypto';
+import { randomBytes, randomUUID } from 'node:crypto';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type request from 'supertest';
 import { createTestApp, sampleDocument, type TestApp } from './helpers';
-import { teamMembers } from '../../server/db/schema';
+import { teamInvitations, teamMembers } from '../../server/db/schema';
+import { hashToken } from '../../server/auth/invitations';
 import { createUserWithPassword, DEMO_TEAM } from '../../server/db/seed';
 import { ROLES, type Role } from '../../shared/model/permissions';
 
@@ -165,6 +166,51 @@ const ROUTES: RouteCase[] = [
     },
   },
   { name: 'GET /api/admin/outbox', allowed: [A], setup: async () => ({ method: 'get', path: '/api/admin/outbox' }) },
+  { name: 'GET /api/team/invitations', allowed: [A], setup: async () => ({ method: 'get', path: '/api/team/invitations' }) },
+  {
+    name: 'POST /api/team/invitations (invite a member)',
+    allowed: [A],
+    setup: async () => ({ method: 'post', path: '/api/team/invitations', body: { email: `i-${randomUUID().slice(0, 8)}@spoolwright.test`, name: 'Matrix Invitee', role: 'designer' } }),
+  },
+  {
+    name: 'DELETE /api/team/invitations/:id (withdraw)',
+    allowed: [A],
+    setup: async () => {
+      const inv = await admin.post('/api/team/invitations').send({ email: `w-${randomUUID().slice(0, 8)}@spoolwright.test`, name: 'Withdrawn', role: 'checker' });
+      return { method: 'delete', path: `/api/team/invitations/${inv.body.id}` };
+    },
+  },
+  {
+    name: 'POST /api/invitations/lookup (public, with the token)',
+    allowed: EVERY_MEMBER,
+    isPublic: true,
+    setup: async () => ({ method: 'post', path: '/api/invitations/lookup', body: { token: await pendingInvitationToken() } }),
+  },
+  {
+    name: 'POST /api/invitations/accept (public, with the token)',
+    allowed: EVERY_MEMBER,
+    isPublic: true,
+    setup: async () => ({ method: 'post', path: '/api/invitations/accept', body: { token: await pendingInvitationToken(), password: 'matrix-chosen-password' } }),
+  },
+  {
+    name: 'POST /api/materials (team material form)',
+    allowed: [A],
+    setup: async () => ({
+      method: 'post',
+      path: '/api/materials',
+      body: { id: `MF-${randomUUID().slice(0, 6)}`, spec: 'Matrix', grade: '1', productForms: ['seamless'], tensileKsi: 60, yieldKsi: 35, points: [{ tempF: 100, stressKsi: 20 }], sourceNote: 'matrix test' },
+    }),
+  },
+  {
+    name: 'POST /api/materials/import/preview (dry run)',
+    allowed: [A],
+    setup: async () => ({ method: 'post', path: '/api/materials/import/preview?source=matrix%20test', csv: 'id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\nMX-P,Matrix,1,60,35,100,20' }),
+  },
+  {
+    name: 'POST /api/spools/import/preview (line-list dry run)',
+    allowed: [D, L, A],
+    setup: async () => ({ method: 'post', path: '/api/spools/import/preview', csv: 'name,pressure,temperature\nMatrix preview,150,100' }),
+  },
   { name: 'GET /api/admin/jobs', allowed: [A], setup: async () => ({ method: 'get', path: '/api/admin/jobs' }) },
   {
     name: 'GET /api/admin/jobs/:jobId',
@@ -175,6 +221,21 @@ const ROUTES: RouteCase[] = [
     },
   },
 ];
+
+/** A pending invitation written straight to the database, so the test knows its token. */
+async function pendingInvitationToken(): Promise<string> {
+  const token = randomBytes(32).toString('base64url');
+  await t.database.db.insert(teamInvitations).values({
+    id: randomUUID(),
+    teamId: DEMO_TEAM.id,
+    email: `p-${randomUUID().slice(0, 8)}@spoolwright.test`,
+    name: 'Matrix Invitee',
+    role: 'fabricator',
+    tokenHash: hashToken(token),
+    expiresAt: new Date(Date.now() + 3600_000),
+  });
+  return token;
+}
 
 beforeAll(async () => {
   t = await createTestApp();

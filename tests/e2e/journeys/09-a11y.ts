@@ -97,6 +97,7 @@ export const ROLE_PAGES: Record<string, readonly string[]> = {
     '/spools/:spool?panel=history',
     '/spools/:spool/revisions/0',
     '/spools/:spool/fabrication',
+    '/line-list',
   ],
   checker: [
     '/spools',
@@ -106,8 +107,22 @@ export const ROLE_PAGES: Record<string, readonly string[]> = {
     '/spools/:spool/fabrication',
   ],
   fabricator: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
-  lead: ['/spools', '/spools/:spool', '/spools/:spool?panel=review', '/spools/:spool/fabrication'],
-  admin: ['/spools', '/spools/:spool', '/spools/:spool/fabrication'],
+  lead: [
+    '/spools',
+    '/spools/:spool',
+    '/spools/:spool?panel=review',
+    '/spools/:spool/fabrication',
+    '/line-list',
+  ],
+  admin: [
+    '/spools',
+    '/spools/:spool',
+    '/spools/:spool/fabrication',
+    '/team',
+    '/materials',
+    '/line-list',
+    '/outbox',
+  ],
 };
 
 const STEPS = [

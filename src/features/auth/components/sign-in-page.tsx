@@ -1,6 +1,6 @@
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
-import { Navigate, useNavigate, useSearchParams } from 'react-router-dom';
+import { Link, Navigate, useNavigate, useSearchParams } from 'react-router-dom';
 import { Button } from '@/components/ui/button';
 import { TextField } from '@/components/ui/field';
 import { useMe } from '../api/get-me';
@@ -50,6 +50,9 @@ export function SignInPage() {
           <Button type="submit" variant="primary" disabled={signIn.isPending}>
             {signIn.isPending ? 'Signing in…' : 'Sign in'}
           </Button>
+          <Link to="/forgot-password" className="text-sm text-copper-600 hover:underline">
+            Forgot password?
+          </Link>
         </form>
       </div>
     </main>
