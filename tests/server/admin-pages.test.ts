@@ -19,22 +19,11 @@ afterAll(async () => {
   fs.rmSync(dataDir, { recursive: true, force: true });
 });
 
-/**
- * The newest mail to `to` with a one-use link: from the outbox text while it still carries the
- * token, else from the catcher's .eml files in DATA_DIR/mail (where redacted outbox rows point).
- */
+/** The newest mail to `to` with a one-use link, from the addressee's mailbox (the catcher's .eml files). */
 async function latestMailText(to: string, link: RegExp): Promise<string> {
-  const outbox = await (await t.signIn('admin')).get('/api/admin/outbox?limit=200');
-  const hit = (outbox.body.items as { to: string; text: string }[]).find((m) => m.to.includes(to) && link.test(m.text));
-  if (hit) return hit.text;
-  const dir = path.join(dataDir, 'mail');
-  const files = fs.existsSync(dir) ? fs.readdirSync(dir).filter((f) => f.endsWith('.eml')) : [];
-  const texts = files
-    .map((f) => ({ f, at: fs.statSync(path.join(dir, f)).mtimeMs, text: fs.readFileSync(path.join(dir, f), 'utf8').replace(/=\r?\n/g, '') }))
-    .filter((m) => m.text.includes(to) && link.test(m.text))
-    .sort((a, b) => b.at - a.at);
-  if (!texts[0]) throw new Error(`no mail to ${to} with ${link}`);
-  return texts[0].text;
+  const text = await t.readMail(to, { timeoutMs: 10_000 });
+  if (!link.test(text)) throw new Error(`the newest mail to ${to} has no ${link}`);
+  return text;
 }
 
 const inviteToken = (text: string) => /accept-invite\?token=([A-Za-z0-9_-]+)/.exec(text)?.[1] ?? '';
