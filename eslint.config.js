@@ -4,7 +4,16 @@ import reactHooks from 'eslint-plugin-react-hooks';
 import globals from 'globals';
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', 'data/**', 'drizzle/**', 'test-results/**', 'coverage/**'] },
+  {
+    ignores: [
+      'dist/**',
+      'node_modules/**',
+      'data/**',
+      'drizzle/**',
+      'test-results/**',
+      'coverage/**',
+    ],
+  },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {
@@ -19,7 +28,10 @@ export default tseslint.config(
       'react-hooks/refs': 'off',
       'react-hooks/set-state-in-effect': 'off',
       '@typescript-eslint/no-floating-promises': 'error',
-      '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
+      '@typescript-eslint/no-unused-vars': [
+        'error',
+        { argsIgnorePattern: '^_', varsIgnorePattern: '^_' },
+      ],
       '@typescript-eslint/consistent-type-imports': 'error',
       'no-restricted-imports': 'off',
     },
@@ -32,11 +44,27 @@ export default tseslint.config(
         {
           patterns: [
             {
-              group: ['react', 'react-dom', 'three', '@react-three/*', 'express', 'drizzle-orm', 'drizzle-orm/*', '@electric-sql/*', 'better-auth', 'better-auth/*', 'pg', 'zustand'],
+              group: [
+                'react',
+                'react-dom',
+                'three',
+                '@react-three/*',
+                'express',
+                'drizzle-orm',
+                'drizzle-orm/*',
+                '@electric-sql/*',
+                'better-auth',
+                'better-auth/*',
+                'pg',
+                'zustand',
+              ],
               message: 'shared/ is pure TypeScript: no React, three, Express or database imports',
             },
             // Imports flow one way: src -> shared, server -> shared; shared imports neither.
-            { group: ['@/*', '**/src/**', '**/server/**'], message: 'shared/ must not import from src/ or server/' },
+            {
+              group: ['@/*', '**/src/**', '**/server/**'],
+              message: 'shared/ must not import from src/ or server/',
+            },
           ],
         },
       ],
@@ -50,10 +78,26 @@ export default tseslint.config(
         {
           patterns: [
             {
-              group: ['@shared/report/calc-sheet-pdf', '**/report/calc-sheet-pdf', '**/report/woff', 'pdfkit'],
-              message: 'the calc sheet PDF renderer is Node only (pdfkit, font files): link to the server route instead',
+              group: [
+                '@shared/report/calc-sheet-pdf',
+                '**/report/calc-sheet-pdf',
+                '**/report/woff',
+                'pdfkit',
+              ],
+              message:
+                'the calc sheet PDF renderer is Node only (pdfkit, font files): link to the server route instead',
             },
-            { group: ['**/server/**', 'express', 'drizzle-orm', 'drizzle-orm/*', '@electric-sql/*', 'pg'], message: 'the client must not import server code' },
+            {
+              group: [
+                '**/server/**',
+                'express',
+                'drizzle-orm',
+                'drizzle-orm/*',
+                '@electric-sql/*',
+                'pg',
+              ],
+              message: 'the client must not import server code',
+            },
           ],
         },
       ],
@@ -64,7 +108,14 @@ export default tseslint.config(
     rules: {
       '@typescript-eslint/no-restricted-imports': [
         'error',
-        { patterns: [{ group: ['@/*', '**/src/**', 'react', 'react-dom', 'three', '@react-three/*'], message: 'the server must not import client code' }] },
+        {
+          patterns: [
+            {
+              group: ['@/*', '**/src/**', 'react', 'react-dom', 'three', '@react-three/*'],
+              message: 'the server must not import client code',
+            },
+          ],
+        },
       ],
     },
   },

@@ -32,7 +32,14 @@ const port = await freePort();
 const url = `http://127.0.0.1:${port}`;
 const child = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server/index.ts')], {
   cwd: ROOT,
-  env: { ...process.env, NODE_ENV: 'production', DATA_DIR: dataDir, PORT: String(port), HOST: '127.0.0.1', SPOOLWRIGHT_QUIET: '1' },
+  env: {
+    ...process.env,
+    NODE_ENV: 'production',
+    DATA_DIR: dataDir,
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    SPOOLWRIGHT_QUIET: '1',
+  },
   stdio: ['ignore', 'pipe', 'inherit'],
 });
 await new Promise<void>((resolve, reject) => {
@@ -75,10 +82,16 @@ const long = buildLongSpool(200, 'Bench long run');
 const longBody = JSON.stringify({ document: long });
 console.log(`200-element document: ${(longBody.length / 1024).toFixed(1)} kB of JSON`);
 const own: { id: string; version: number }[] = [];
-for (let i = 0; i < CONNECTIONS * 3; i++) own.push(await post('/api/spools', { document: { ...long, name: `Bench long run ${i}` } }));
-const listed = (await (await fetch(`${url}/api/spools?pageSize=1`, { headers })).json()) as { total: number };
+for (let i = 0; i < CONNECTIONS * 3; i++)
+  own.push(await post('/api/spools', { document: { ...long, name: `Bench long run ${i}` } }));
+const listed = (await (await fetch(`${url}/api/spools?pageSize=1`, { headers })).json()) as {
+  total: number;
+};
 const small = buildLongSpool(5, 'x');
-for (let i = listed.total; i < 500; i++) await post('/api/spools', { document: { ...small, name: `Bench spool ${String(i).padStart(3, '0')}` } });
+for (let i = listed.total; i < 500; i++)
+  await post('/api/spools', {
+    document: { ...small, name: `Bench spool ${String(i).padStart(3, '0')}` },
+  });
 
 interface Row {
   name: string;
@@ -92,10 +105,23 @@ const rows: Row[] = [];
 
 async function bench(name: string, opts: Partial<autocannon.Options> & { path?: string }) {
   const { path: p = '', ...rest } = opts;
-  const r = await autocannon({ url: `${url}${p}`, connections: CONNECTIONS, duration: DURATION, headers, ...rest });
+  const r = await autocannon({
+    url: `${url}${p}`,
+    connections: CONNECTIONS,
+    duration: DURATION,
+    headers,
+    ...rest,
+  });
   const odd = Object.entries(r.statusCodeStats ?? {}).filter(([code]) => !code.startsWith('2'));
   if (odd.length > 0) console.log(`${name}: status codes ${JSON.stringify(r.statusCodeStats)}`);
-  rows.push({ name, rps: r.requests.average, p50: r.latency.p50, p99: r.latency.p99, non2xx: r.non2xx, errors: r.errors });
+  rows.push({
+    name,
+    rps: r.requests.average,
+    p50: r.latency.p50,
+    p99: r.latency.p99,
+    non2xx: r.non2xx,
+    errors: r.errors,
+  });
 }
 
 await bench('GET /api/health (no session)', { path: '/api/health' });
@@ -113,7 +139,11 @@ await bench('PUT /api/spools/:id (200 elements, check + save)', {
         const spool = free.shift();
         if (!spool) throw new Error('spool pool ran dry');
         (context as { spool?: typeof spool }).spool = spool;
-        return { ...req, path: `/api/spools/${spool.id}`, body: `{"baseVersion":${spool.version},${longBody.slice(1)}` };
+        return {
+          ...req,
+          path: `/api/spools/${spool.id}`,
+          body: `{"baseVersion":${spool.version},${longBody.slice(1)}`,
+        };
       },
       onResponse: (status, body, context) => {
         const spool = (context as { spool?: { id: string; version: number } }).spool;
@@ -125,10 +155,24 @@ await bench('PUT /api/spools/:id (200 elements, check + save)', {
   ],
 });
 
-console.log(`\nSpoolwright API, ${CONNECTIONS} connections, ${DURATION} s each, loopback, ${os.cpus().length} cores, ${process.env.DATABASE_URL ? 'PostgreSQL' : 'embedded PGlite'}`);
-console.log('route'.padEnd(52), 'req/s'.padStart(8), 'p50 ms'.padStart(8), 'p99 ms'.padStart(8), 'non-2xx'.padStart(8));
+console.log(
+  `\nSpoolwright API, ${CONNECTIONS} connections, ${DURATION} s each, loopback, ${os.cpus().length} cores, ${process.env.DATABASE_URL ? 'PostgreSQL' : 'embedded PGlite'}`,
+);
+console.log(
+  'route'.padEnd(52),
+  'req/s'.padStart(8),
+  'p50 ms'.padStart(8),
+  'p99 ms'.padStart(8),
+  'non-2xx'.padStart(8),
+);
 for (const r of rows) {
-  console.log(r.name.padEnd(52), r.rps.toFixed(0).padStart(8), String(r.p50).padStart(8), String(r.p99).padStart(8), String(r.non2xx + r.errors).padStart(8));
+  console.log(
+    r.name.padEnd(52),
+    r.rps.toFixed(0).padStart(8),
+    String(r.p50).padStart(8),
+    String(r.p99).padStart(8),
+    String(r.non2xx + r.errors).padStart(8),
+  );
 }
 cleanup();
 process.exit(0);

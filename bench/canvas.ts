@@ -242,7 +242,11 @@ const median = (xs: number[]) => {
 async function main() {
   if (!skipBuild) await buildBench();
   const { server, port } = await serve();
-  const browser = await chromium.launch({ executablePath: CHROMIUM_PATH, headless: true, args: [...CHROMIUM_ARGS] });
+  const browser = await chromium.launch({
+    executablePath: CHROMIUM_PATH,
+    headless: true,
+    args: [...CHROMIUM_ARGS],
+  });
 
   const rows: Row[] = [];
   const loadBefore = loadavg()[0]!;

@@ -17,8 +17,19 @@ const N = Number(process.env.BENCH_N ?? 1000);
 const ROUNDS = 3;
 
 const t = await createTestApp();
-const auth = createAuth({ db: t.database.db, config: t.config, mailer: t.mailer, logger: silentLogger });
-const app = createApp({ db: t.database.db, auth, mailer: t.mailer, config: t.config, logger: silentLogger });
+const auth = createAuth({
+  db: t.database.db,
+  config: t.config,
+  mailer: t.mailer,
+  logger: silentLogger,
+});
+const app = createApp({
+  db: t.database.db,
+  auth,
+  mailer: t.mailer,
+  config: t.config,
+  logger: silentLogger,
+});
 const server = http.createServer(app).listen(0, '127.0.0.1');
 await new Promise((r) => server.once('listening', r));
 const base = `http://127.0.0.1:${(server.address() as AddressInfo).port}`;
@@ -34,7 +45,11 @@ const cookie = login.headers
 const cache = sessionCacheOf(auth);
 const realGet = cache.get.bind(cache);
 
-async function time(path: string, headers: Record<string, string>, expect: number): Promise<number[]> {
+async function time(
+  path: string,
+  headers: Record<string, string>,
+  expect: number,
+): Promise<number[]> {
   const ts: number[] = [];
   for (let i = 0; i < N; i++) {
     const t0 = performance.now();
@@ -46,7 +61,12 @@ async function time(path: string, headers: Record<string, string>, expect: numbe
   return ts;
 }
 
-const all: Record<string, number[]> = { health: [], 'me (cache hit)': [], 'me (lookup every request)': [], 'me (signed out, 401)': [] };
+const all: Record<string, number[]> = {
+  health: [],
+  'me (cache hit)': [],
+  'me (lookup every request)': [],
+  'me (signed out, 401)': [],
+};
 await time('/api/health', {}, 200);
 await time('/api/me', { cookie }, 200);
 for (let round = 0; round < ROUNDS; round++) {
@@ -58,10 +78,13 @@ for (let round = 0; round < ROUNDS; round++) {
   cache.get = realGet;
   all['me (signed out, 401)']!.push(...(await time('/api/me', {}, 401)));
 }
-const q = (xs: number[], p: number) => [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(xs.length * p))]!;
+const q = (xs: number[], p: number) =>
+  [...xs].sort((a, b) => a - b)[Math.min(xs.length - 1, Math.floor(xs.length * p))]!;
 const h50 = q(all.health!, 0.5);
 for (const [name, xs] of Object.entries(all)) {
-  console.log(`${name.padEnd(28)} p50 ${q(xs, 0.5).toFixed(2)} ms  p90 ${q(xs, 0.9).toFixed(2)} ms  p50 ratio to health ${(q(xs, 0.5) / h50).toFixed(2)}×`);
+  console.log(
+    `${name.padEnd(28)} p50 ${q(xs, 0.5).toFixed(2)} ms  p90 ${q(xs, 0.9).toFixed(2)} ms  p50 ratio to health ${(q(xs, 0.5) / h50).toFixed(2)}×`,
+  );
 }
 server.close();
 await t.close();

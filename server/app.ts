@@ -48,7 +48,8 @@ export interface AppServices {
 }
 
 /** The services of an app made by createApp. */
-export const getAppServices = (app: express.Express): AppServices => app.locals.services as AppServices;
+export const getAppServices = (app: express.Express): AppServices =>
+  app.locals.services as AppServices;
 
 /** Stop background jobs and the check pool's threads. */
 export async function closeAppServices(app: express.Express): Promise<void> {
@@ -98,7 +99,9 @@ export function createApp(deps: AppDeps) {
   // limiter keys on x-forwarded-for: set it from the socket so clients cannot pick their key.
   // In front of better-auth: sign-in limits per account and per address, constant-time reset answers.
   const handleAuth = authHandler(
-    guardAuthHandler((request) => deps.auth.handler(request), { limits: deps.config.rateLimit ? (deps.config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS) : null }),
+    guardAuthHandler((request) => deps.auth.handler(request), {
+      limits: deps.config.rateLimit ? (deps.config.signInLimits ?? DEFAULT_SIGN_IN_LIMITS) : null,
+    }),
   );
   app.all('/api/auth{/*any}', (req, res, next) => {
     req.headers['x-forwarded-for'] = req.socket.remoteAddress ?? '127.0.0.1';
@@ -112,7 +115,12 @@ export function createApp(deps: AppDeps) {
   if (deps.config.originCheck) app.use('/api', refuseForeignOrigins(deps.config.trustedOrigins));
   // POST /api/check hands its raw body to the check pool (parsing 2 MB of JSON is itself work).
   const json = express.json({ limit: JSON_LIMIT });
-  app.use('/api', (req, res, next) => (req.path === '/check' && req.method === 'POST' ? next() : json(req, res, next)), guardBody);
+  app.use(
+    '/api',
+    (req, res, next) =>
+      req.path === '/check' && req.method === 'POST' ? next() : json(req, res, next),
+    guardBody,
+  );
 
   app.get('/api/health', (_req, res) => {
     res.json({ ok: true });
@@ -122,20 +130,50 @@ export function createApp(deps: AppDeps) {
   const checks = deps.checks ?? new CheckPool();
   const jobs = new RecheckJobs({ db: deps.db, materials, checks, logger });
   app.locals.services = { checks, jobs } satisfies AppServices;
-  app.use('/api/share', shareRateLimit(deps.config.rateLimit), publicShareRouter({ db: deps.db, materials, checks }));
+  app.use(
+    '/api/share',
+    shareRateLimit(deps.config.rateLimit),
+    publicShareRouter({ db: deps.db, materials, checks }),
+  );
   app.use('/api/share', publicCalcSheetRouter({ db: deps.db, materials }));
   const memberships = new MembershipCache(deps.db);
-  app.use('/api/invitations', invitationsRouter({ db: deps.db, memberships, rateLimit: deps.config.rateLimit }));
+  app.use(
+    '/api/invitations',
+    invitationsRouter({ db: deps.db, memberships, rateLimit: deps.config.rateLimit }),
+  );
   app.use('/api', loadSession(deps.auth, memberships));
   app.use('/api/me', meRouter());
   app.use('/api/waiting', waitingRouter({ db: deps.db }));
   app.use('/api/spools/:id/comments', commentsRouter({ db: deps.db }));
-  app.use('/api/spools/:id/shares', spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl, materials, checks }));
+  app.use(
+    '/api/spools/:id/shares',
+    spoolSharesRouter({ db: deps.db, publicUrl: deps.config.publicUrl, materials, checks }),
+  );
   app.use('/api/spools', calcSheetRouter({ db: deps.db, materials }));
-  app.use('/api/spools', spoolsRouter({ db: deps.db, mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl, materials, checks }));
+  app.use(
+    '/api/spools',
+    spoolsRouter({
+      db: deps.db,
+      mailer: deps.mailer,
+      logger,
+      publicUrl: deps.config.publicUrl,
+      materials,
+      checks,
+    }),
+  );
   app.use('/api/check', checkRouter({ materials, checks }));
   app.use('/api', catalogRouter({ db: deps.db, materials, jobs }));
-  app.use('/api/team', teamRouter({ db: deps.db, memberships, sessions: sessionCacheOf(deps.auth), mailer: deps.mailer, logger, publicUrl: deps.config.publicUrl }));
+  app.use(
+    '/api/team',
+    teamRouter({
+      db: deps.db,
+      memberships,
+      sessions: sessionCacheOf(deps.auth),
+      mailer: deps.mailer,
+      logger,
+      publicUrl: deps.config.publicUrl,
+    }),
+  );
   app.use('/api/admin/jobs', jobsRouter({ jobs }));
   app.use('/api/admin', adminRouter({ db: deps.db, mailer: deps.mailer }));
   app.use('/api', apiNotFound);
@@ -161,5 +199,6 @@ export function createApp(deps: AppDeps) {
 
 function noCacheHtml(res: express.Response, filePath: string) {
   if (filePath.endsWith('.html')) res.setHeader('Cache-Control', 'no-cache');
-  else if (filePath.includes(`${path.sep}assets${path.sep}`)) res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
+  else if (filePath.includes(`${path.sep}assets${path.sep}`))
+    res.setHeader('Cache-Control', 'public, max-age=31536000, immutable');
 }

@@ -33,18 +33,37 @@ export const DEV_SECRET = 'spoolwright-development-secret-change-me-0123456789';
 function parsePort(raw: string | undefined, fallback: number): number {
   if (raw === undefined || raw === '') return fallback;
   const n = Number(raw);
-  if (!Number.isInteger(n) || n < 0 || n > 65535) throw new Error(`PORT must be an integer 0–65535, got "${raw}"`);
+  if (!Number.isInteger(n) || n < 0 || n > 65535)
+    throw new Error(`PORT must be an integer 0–65535, got "${raw}"`);
   return n;
 }
 
 /** Read the server configuration from environment variables (see DEVELOPERS.md). */
-export function loadConfig(env: NodeJS.ProcessEnv = process.env, overrides: Partial<ServerConfig> = {}): ServerConfig {
+export function loadConfig(
+  env: NodeJS.ProcessEnv = process.env,
+  overrides: Partial<ServerConfig> = {},
+): ServerConfig {
   const port = overrides.port ?? parsePort(env.PORT, 5174);
   const host = overrides.host ?? (env.HOST || '127.0.0.1');
-  const nodeEnv = overrides.nodeEnv ?? (env.NODE_ENV === 'production' ? 'production' : env.NODE_ENV === 'test' ? 'test' : 'development');
-  const publicUrl = (overrides.publicUrl ?? (env.PUBLIC_URL || `http://${host}:${port}`)).replace(/\/+$/, '');
+  const nodeEnv =
+    overrides.nodeEnv ??
+    (env.NODE_ENV === 'production'
+      ? 'production'
+      : env.NODE_ENV === 'test'
+        ? 'test'
+        : 'development');
+  const publicUrl = (overrides.publicUrl ?? (env.PUBLIC_URL || `http://${host}:${port}`)).replace(
+    /\/+$/,
+    '',
+  );
   const secret = overrides.authSecret ?? env.AUTH_SECRET ?? env.BETTER_AUTH_SECRET ?? DEV_SECRET;
-  const origins = new Set<string>([publicUrl, `http://localhost:${port}`, `http://127.0.0.1:${port}`, 'http://localhost:5173', 'http://127.0.0.1:5173']);
+  const origins = new Set<string>([
+    publicUrl,
+    `http://localhost:${port}`,
+    `http://127.0.0.1:${port}`,
+    'http://localhost:5173',
+    'http://127.0.0.1:5173',
+  ]);
   for (const o of (env.TRUSTED_ORIGINS ?? '').split(',')) if (o.trim()) origins.add(o.trim());
   return {
     port,

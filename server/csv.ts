@@ -7,7 +7,10 @@ import { findTextProblem } from '../shared/model/fields';
 /** Largest CSV upload accepted. */
 export const CSV_LIMIT_BYTES = 1024 * 1024;
 
-const upload = multer({ storage: multer.memoryStorage(), limits: { fileSize: CSV_LIMIT_BYTES, files: 1, fields: 10 } }).single('file');
+const upload = multer({
+  storage: multer.memoryStorage(),
+  limits: { fileSize: CSV_LIMIT_BYTES, files: 1, fields: 10 },
+}).single('file');
 
 /**
  * Accept a CSV as a multipart upload (field `file`) or as a raw `text/csv` body; the text
@@ -19,15 +22,26 @@ export const receiveCsv: RequestHandler = (req, res, next) => {
     upload(req, res, (err: unknown) => {
       if (err) {
         const code = (err as { code?: string }).code;
-        next(code === 'LIMIT_FILE_SIZE' ? new HttpError(413, 'payload_too_large', 'The CSV file is larger than 1 MB') : new HttpError(400, 'bad_request', 'The upload could not be read'));
+        next(
+          code === 'LIMIT_FILE_SIZE'
+            ? new HttpError(413, 'payload_too_large', 'The CSV file is larger than 1 MB')
+            : new HttpError(400, 'bad_request', 'The upload could not be read'),
+        );
         return;
       }
       if (!req.file) {
-        next(new HttpError(422, 'validation', 'Attach the CSV as the "file" field', [{ path: 'file', message: 'is required' }]));
+        next(
+          new HttpError(422, 'validation', 'Attach the CSV as the "file" field', [
+            { path: 'file', message: 'is required' },
+          ]),
+        );
         return;
       }
       try {
-        res.locals.csv = decodeCsvUpload(req.file.buffer, req.file.originalname || 'the uploaded file');
+        res.locals.csv = decodeCsvUpload(
+          req.file.buffer,
+          req.file.originalname || 'the uploaded file',
+        );
       } catch (e) {
         next(e);
         return;
@@ -59,11 +73,22 @@ export const receiveCsv: RequestHandler = (req, res, next) => {
     req.on('error', next);
     return;
   }
-  next(new HttpError(415, 'bad_request', 'Send the CSV as multipart/form-data (field "file") or as text/csv'));
+  next(
+    new HttpError(
+      415,
+      'bad_request',
+      'Send the CSV as multipart/form-data (field "file") or as text/csv',
+    ),
+  );
 };
 
 const notUtf8 = (name: string, message: string) =>
-  new HttpError(422, 'validation', `${name} ${message}; save it as "CSV UTF-8" and upload it again`, [{ path: 'file', message }]);
+  new HttpError(
+    422,
+    'validation',
+    `${name} ${message}; save it as "CSV UTF-8" and upload it again`,
+    [{ path: 'file', message }],
+  );
 
 /**
  * The text of an uploaded CSV, which must be UTF-8 (a UTF-8 byte-order mark is dropped). UTF-16
@@ -71,22 +96,32 @@ const notUtf8 = (name: string, message: string) =>
  * Windows-1252 are refused with a 422 that names the file and, for the latter, the line.
  */
 export function decodeCsvUpload(buf: Buffer, name: string): string {
-  if (buf.length >= 2 && ((buf[0] === 0xff && buf[1] === 0xfe) || (buf[0] === 0xfe && buf[1] === 0xff))) {
-    throw notUtf8(name, `is UTF-16 text (byte-order mark ${buf[0] === 0xff ? 'FF FE' : 'FE FF'}), not UTF-8`);
+  if (
+    buf.length >= 2 &&
+    ((buf[0] === 0xff && buf[1] === 0xfe) || (buf[0] === 0xfe && buf[1] === 0xff))
+  ) {
+    throw notUtf8(
+      name,
+      `is UTF-16 text (byte-order mark ${buf[0] === 0xff ? 'FF FE' : 'FE FF'}), not UTF-8`,
+    );
   }
   const start = buf.length >= 3 && buf[0] === 0xef && buf[1] === 0xbb && buf[2] === 0xbf ? 3 : 0;
   const body = buf.subarray(start);
   const sample = body.subarray(0, 4096);
   let nuls = 0;
   for (const b of sample) if (b === 0) nuls++;
-  if (sample.length > 0 && nuls * 4 >= sample.length) throw notUtf8(name, 'looks like UTF-16 text (every other byte is zero), not UTF-8');
+  if (sample.length > 0 && nuls * 4 >= sample.length)
+    throw notUtf8(name, 'looks like UTF-16 text (every other byte is zero), not UTF-8');
   try {
     return new TextDecoder('utf-8', { fatal: true }).decode(body);
   } catch {
     const bad = firstInvalidUtf8(body);
     let line = 1;
     for (let i = 0; i < bad; i++) if (body[i] === 0x0a) line++;
-    throw notUtf8(name, `is not UTF-8 (for example Latin-1 or Windows-1252): the first byte that is not UTF-8 is on line ${line}`);
+    throw notUtf8(
+      name,
+      `is not UTF-8 (for example Latin-1 or Windows-1252): the first byte that is not UTF-8 is on line ${line}`,
+    );
   }
 }
 
@@ -94,7 +129,16 @@ export function decodeCsvUpload(buf: Buffer, name: string): string {
 function firstInvalidUtf8(b: Uint8Array): number {
   for (let i = 0; i < b.length; ) {
     const c = b[i]!;
-    const n = c < 0x80 ? 0 : c >= 0xc2 && c <= 0xdf ? 1 : c >= 0xe0 && c <= 0xef ? 2 : c >= 0xf0 && c <= 0xf4 ? 3 : -1;
+    const n =
+      c < 0x80
+        ? 0
+        : c >= 0xc2 && c <= 0xdf
+          ? 1
+          : c >= 0xe0 && c <= 0xef
+            ? 2
+            : c >= 0xf0 && c <= 0xf4
+              ? 3
+              : -1;
     if (n < 0) return i;
     for (let k = 1; k <= n; k++) if (i + k >= b.length || (b[i + k]! & 0xc0) !== 0x80) return i;
     i += n + 1;
@@ -109,7 +153,11 @@ export interface CsvRow {
 }
 
 /** Parse CSV text with a header row; header names are trimmed and lower-cased. */
-export function parseCsv(text: string): { headers: string[]; rows: CsvRow[]; errors: { line: number; message: string }[] } {
+export function parseCsv(text: string): {
+  headers: string[];
+  rows: CsvRow[];
+  errors: { line: number; message: string }[];
+} {
   const out = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
     header: true,
     skipEmptyLines: 'greedy',
@@ -128,7 +176,11 @@ export function parseCsv(text: string): { headers: string[]; rows: CsvRow[]; err
   for (const row of rows) {
     for (const [h, v] of Object.entries(row.values)) {
       const problem = typeof v === 'string' ? findTextProblem(v) : undefined;
-      if (problem) errors.push({ line: row.line, message: `column "${findTextProblem(h) ? '?' : h}" ${problem}` });
+      if (problem)
+        errors.push({
+          line: row.line,
+          message: `column "${findTextProblem(h) ? '?' : h}" ${problem}`,
+        });
     }
   }
   return { headers, rows, errors };
@@ -149,14 +201,18 @@ export function countCsvRows(text: string, cap: number): number {
     return at;
   };
   let newlines = 0;
-  for (let i = text.indexOf('\n'); i !== -1 && newlines <= cap + 1; i = text.indexOf('\n', i + 1)) newlines++;
+  for (let i = text.indexOf('\n'); i !== -1 && newlines <= cap + 1; i = text.indexOf('\n', i + 1))
+    newlines++;
   // Data rows are at most the newlines (header, then one per row; the last may lack its own).
   if (newlines <= cap) return newlines;
   let lines = cap + 2;
   for (;;) {
     const end = endOfLine(lines);
     const prefix = text.slice(0, end).replace(/^\uFEFF/, '');
-    const rows = Math.max(0, Papa.parse<string[]>(prefix, { skipEmptyLines: 'greedy' }).data.length - 1);
+    const rows = Math.max(
+      0,
+      Papa.parse<string[]>(prefix, { skipEmptyLines: 'greedy' }).data.length - 1,
+    );
     if (rows > cap || end >= text.length) return Math.min(rows, cap + 1);
     lines *= 2;
   }

@@ -37,22 +37,37 @@ function readOrCreateSecret(dataDir: string): string {
 }
 
 /** Open the database, migrate, seed demo data into an empty one, and listen. */
-export async function startServer(config: ServerConfig, logger: Logger = createLogger()): Promise<RunningServer> {
+export async function startServer(
+  config: ServerConfig,
+  logger: Logger = createLogger(),
+): Promise<RunningServer> {
   const t0 = Date.now();
-  if (config.authSecret === DEV_SECRET) config = { ...config, authSecret: readOrCreateSecret(config.dataDir) };
+  if (config.authSecret === DEV_SECRET)
+    config = { ...config, authSecret: readOrCreateSecret(config.dataDir) };
   const database = await openDatabase(config);
   // Without SMTP_URL an in-process SMTP catcher receives the mail (DATA_DIR/mail, the outbox);
   // it starts while the database migrates.
-  const mailerReady = createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger, mailDir: path.join(config.dataDir, 'mail') });
+  const mailerReady = createMailer({
+    db: database.db,
+    smtpUrl: config.smtpUrl,
+    from: config.mailFrom,
+    logger,
+    mailDir: path.join(config.dataDir, 'mail'),
+  });
   mailerReady.catch(() => undefined);
   try {
     await database.migrate();
     if (await isDatabaseEmpty(database.db)) {
       const seeded = await seedDemo(database.db);
-      logger.info(`seeded demo data: team "${seeded.team.name}", ${seeded.users} users, ${seeded.spools} spools (password spoolwright-demo)`);
+      logger.info(
+        `seeded demo data: team "${seeded.team.name}", ${seeded.users} users, ${seeded.spools} spools (password spoolwright-demo)`,
+      );
     }
   } catch (err) {
-    await mailerReady.then((m) => m.close(), () => undefined);
+    await mailerReady.then(
+      (m) => m.close(),
+      () => undefined,
+    );
     await database.close();
     throw err;
   }
@@ -65,9 +80,18 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
   }
   const auth = createAuth({ db: database.db, config, mailer, logger });
   const serveClient = config.nodeEnv === 'production' || fs.existsSync(`${DIST_DIR}/index.html`);
-  const app = createApp({ db: database.db, auth, mailer, config, logger, staticDir: serveClient ? DIST_DIR : undefined });
+  const app = createApp({
+    db: database.db,
+    auth,
+    mailer,
+    config,
+    logger,
+    staticDir: serveClient ? DIST_DIR : undefined,
+  });
   // Re-checks left unfinished by an earlier process run again (in the background).
-  getAppServices(app).jobs.resume().catch((err: unknown) => logger.error('could not resume background jobs', err));
+  getAppServices(app)
+    .jobs.resume()
+    .catch((err: unknown) => logger.error('could not resume background jobs', err));
   const server = app.listen(config.port, config.host);
   await new Promise<void>((resolve, reject) => {
     server.once('listening', resolve);
@@ -77,10 +101,13 @@ export async function startServer(config: ServerConfig, logger: Logger = createL
     await database.close();
     throw err;
   });
-  if (mailer.kind === 'outbox') logger.info(`mail goes to the development catcher: ${mailer.mailDir} (no SMTP_URL)`);
+  if (mailer.kind === 'outbox')
+    logger.info(`mail goes to the development catcher: ${mailer.mailDir} (no SMTP_URL)`);
   const port = (server.address() as AddressInfo).port;
   const url = config.port === 0 ? `http://${config.host}:${port}` : config.publicUrl;
-  logger.info(`ready in ${Date.now() - t0} ms (${database.kind}${database.kind === 'pglite' ? ` in ${config.dataDir}` : ''})`);
+  logger.info(
+    `ready in ${Date.now() - t0} ms (${database.kind}${database.kind === 'pglite' ? ` in ${config.dataDir}` : ''})`,
+  );
   let closing: Promise<void> | undefined;
   return {
     url,

@@ -28,7 +28,14 @@ export function describeFault(err: unknown): string {
   let e: unknown = err;
   let fromDatabase = false;
   for (let depth = 0; e && depth < 4; depth++) {
-    const x = e as { name?: unknown; message?: unknown; code?: unknown; stack?: unknown; cause?: unknown; query?: unknown };
+    const x = e as {
+      name?: unknown;
+      message?: unknown;
+      code?: unknown;
+      stack?: unknown;
+      cause?: unknown;
+      query?: unknown;
+    };
     const name = typeof x.name === 'string' ? x.name : 'Error';
     let message = typeof x.message === 'string' ? x.message : String(e);
     const isQuery = typeof x.query === 'string' || /^Failed query:/.test(message);
@@ -37,7 +44,8 @@ export function describeFault(err: unknown): string {
     else if (fromDatabase) message = message.replace(/"[^"]*"|'[^']*'/g, '"…"');
     fromDatabase ||= isQuery;
     const code = typeof x.code === 'string' ? ` [${x.code}]` : '';
-    const stack = !isQuery && typeof x.stack === 'string' ? x.stack.split('\n').slice(1, 6).join('\n') : '';
+    const stack =
+      !isQuery && typeof x.stack === 'string' ? x.stack.split('\n').slice(1, 6).join('\n') : '';
     parts.push(`${name}${code}: ${message}${stack ? `\n${stack}` : ''}`);
     e = x.cause;
   }

@@ -17,7 +17,13 @@ export function shareRateLimit(enabled: boolean): RequestHandler {
     standardHeaders: 'draft-7',
     legacyHeaders: false,
     handler: (_req, _res, next) => {
-      next(new HttpError(429, 'rate_limited', `Too many requests for shared spools from this address; at most ${SHARE_REQUESTS_PER_MINUTE} a minute`));
+      next(
+        new HttpError(
+          429,
+          'rate_limited',
+          `Too many requests for shared spools from this address; at most ${SHARE_REQUESTS_PER_MINUTE} a minute`,
+        ),
+      );
     },
   });
 }

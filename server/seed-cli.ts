@@ -12,11 +12,15 @@ try {
     await database.migrate();
     await clearDatabase(database.db);
     const r = await seedDemo(database.db);
-    console.log(`Demo data loaded: team "${r.team.name}", ${r.users} users, ${r.spools} spools. Password: spoolwright-demo`);
+    console.log(
+      `Demo data loaded: team "${r.team.name}", ${r.users} users, ${r.spools} spools. Password: spoolwright-demo`,
+    );
   } finally {
     await database.close();
   }
 } catch (err) {
-  console.error(err instanceof DataDirLockedError ? err.message : err instanceof Error ? err.message : err);
+  console.error(
+    err instanceof DataDirLockedError ? err.message : err instanceof Error ? err.message : err,
+  );
   process.exit(1);
 }

@@ -1,6 +1,11 @@
 import type { RequestHandler } from 'express';
 import type { z } from 'zod';
-import { formatPath, spoolDocumentSchema, type FieldIssue, type SpoolDocument } from '../shared/model/spool';
+import {
+  formatPath,
+  spoolDocumentSchema,
+  type FieldIssue,
+  type SpoolDocument,
+} from '../shared/model/spool';
 import { INT4_MAX, TEXT_LIMITS, findTextProblem } from '../shared/model/fields';
 import { HttpError, notFound, validationError } from './errors';
 
@@ -13,12 +18,22 @@ import { HttpError, notFound, validationError } from './errors';
  */
 
 /** Map zod issues to `{ path, message }` with paths such as `document.elements[2].bendRadius`. */
-export function toFieldIssues(error: z.ZodError, prefix: readonly PropertyKey[] = []): FieldIssue[] {
-  return error.issues.map((iss) => ({ path: formatPath([...prefix, ...iss.path]), message: iss.message }));
+export function toFieldIssues(
+  error: z.ZodError,
+  prefix: readonly PropertyKey[] = [],
+): FieldIssue[] {
+  return error.issues.map((iss) => ({
+    path: formatPath([...prefix, ...iss.path]),
+    message: iss.message,
+  }));
 }
 
 /** Parse with a zod schema or throw a 422 naming each bad field. */
-export function parseBody<S extends z.ZodType>(schema: S, input: unknown, prefix: readonly PropertyKey[] = []): z.output<S> {
+export function parseBody<S extends z.ZodType>(
+  schema: S,
+  input: unknown,
+  prefix: readonly PropertyKey[] = [],
+): z.output<S> {
   const r = schema.safeParse(input);
   if (!r.success) throw validationError(toFieldIssues(r.error, prefix));
   return r.data;
@@ -26,7 +41,8 @@ export function parseBody<S extends z.ZodType>(schema: S, input: unknown, prefix
 
 /** Validate a spool document; `prefix` names where it sits in the body (e.g. ['document']). */
 export function parseDocument(input: unknown, prefix: readonly PropertyKey[] = []): SpoolDocument {
-  if (input === undefined) throw validationError([{ path: formatPath(prefix), message: 'is required' }]);
+  if (input === undefined)
+    throw validationError([{ path: formatPath(prefix), message: 'is required' }]);
   return parseBody(spoolDocumentSchema, input, prefix) as SpoolDocument;
 }
 
@@ -37,7 +53,11 @@ const MAX_SEGMENT = 200;
  * A text id from the URL (spool, share, member, material ids): anything that cannot be a stored
  * id is simply not found. The path gate has already refused undecodable or unstorable segments.
  */
-export function textParam(raw: unknown, what = 'Not found', max: number = TEXT_LIMITS.name): string {
+export function textParam(
+  raw: unknown,
+  what = 'Not found',
+  max: number = TEXT_LIMITS.name,
+): string {
   const id = typeof raw === 'string' ? raw : '';
   if (id.length === 0 || id.length > max || findTextProblem(id) !== undefined) throw notFound(what);
   return id;
@@ -61,16 +81,31 @@ export const guardPath: RequestHandler = (req, _res, next) => {
     try {
       decoded = decodeURIComponent(seg);
     } catch {
-      next(new HttpError(400, 'bad_request', 'The URL is not valid percent-encoding', [{ path: 'url', message: `segment "${seg.slice(0, 40)}" is not valid percent-encoding` }]));
+      next(
+        new HttpError(400, 'bad_request', 'The URL is not valid percent-encoding', [
+          { path: 'url', message: `segment "${seg.slice(0, 40)}" is not valid percent-encoding` },
+        ]),
+      );
       return;
     }
     const problem = findTextProblem(decoded);
     if (problem) {
-      next(new HttpError(400, 'bad_request', `The URL ${problem}`, [{ path: 'url', message: problem }]));
+      next(
+        new HttpError(400, 'bad_request', `The URL ${problem}`, [
+          { path: 'url', message: problem },
+        ]),
+      );
       return;
     }
     if (decoded.length > MAX_SEGMENT) {
-      next(new HttpError(400, 'bad_request', `A URL segment is longer than ${MAX_SEGMENT} characters`, [{ path: 'url', message: `segment is longer than ${MAX_SEGMENT} characters` }]));
+      next(
+        new HttpError(
+          400,
+          'bad_request',
+          `A URL segment is longer than ${MAX_SEGMENT} characters`,
+          [{ path: 'url', message: `segment is longer than ${MAX_SEGMENT} characters` }],
+        ),
+      );
       return;
     }
   }
@@ -88,7 +123,12 @@ export const guardQuery: RequestHandler = (req, _res, next) => {
     const path = `query.${key.slice(0, 60)}`;
     const keyProblem = findTextProblem(key);
     if (keyProblem || key.length > 100) {
-      issues.push({ path: 'query', message: keyProblem ? `a parameter name ${keyProblem}` : 'a parameter name is longer than 100 characters' });
+      issues.push({
+        path: 'query',
+        message: keyProblem
+          ? `a parameter name ${keyProblem}`
+          : 'a parameter name is longer than 100 characters',
+      });
       continue;
     }
     const values = Array.isArray(q[key]) ? (q[key] as unknown[]) : [q[key]];
@@ -96,10 +136,13 @@ export const guardQuery: RequestHandler = (req, _res, next) => {
       if (typeof v !== 'string') continue;
       const problem = findTextProblem(v);
       if (problem) issues.push({ path, message: problem });
-      else if (v.length > MAX_QUERY_VALUE) issues.push({ path, message: `must be at most ${MAX_QUERY_VALUE} characters` });
+      else if (v.length > MAX_QUERY_VALUE)
+        issues.push({ path, message: `must be at most ${MAX_QUERY_VALUE} characters` });
     }
   }
-  next(issues.length > 0 ? validationError(issues, 'The query string has invalid values') : undefined);
+  next(
+    issues.length > 0 ? validationError(issues, 'The query string has invalid values') : undefined,
+  );
 };
 
 /** Most problems reported for one body. */
@@ -109,7 +152,10 @@ const MAX_ISSUES = 50;
  * Find strings (values and keys) PostgreSQL could not store, anywhere in a parsed JSON body.
  * Iterative, so a deeply nested body cannot overflow the stack.
  */
-export function findBodyTextIssues(body: unknown, prefix: readonly PropertyKey[] = []): FieldIssue[] {
+export function findBodyTextIssues(
+  body: unknown,
+  prefix: readonly PropertyKey[] = [],
+): FieldIssue[] {
   interface Node {
     value: unknown;
     parent: Node | null;
@@ -130,11 +176,13 @@ export function findBodyTextIssues(body: unknown, prefix: readonly PropertyKey[]
       const problem = findTextProblem(value);
       if (problem) issues.push({ path: pathOf(node), message: problem });
     } else if (Array.isArray(value)) {
-      for (let i = value.length - 1; i >= 0; i--) stack.push({ value: value[i], parent: node, key: i });
+      for (let i = value.length - 1; i >= 0; i--)
+        stack.push({ value: value[i], parent: node, key: i });
     } else if (value !== null && typeof value === 'object') {
       for (const [k, v] of Object.entries(value)) {
         const problem = findTextProblem(k);
-        if (problem) issues.push({ path: pathOf(node, '(key)'), message: `a field name ${problem}` });
+        if (problem)
+          issues.push({ path: pathOf(node, '(key)'), message: `a field name ${problem}` });
         else stack.push({ value: v, parent: node, key: k });
       }
     }

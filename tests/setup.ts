@@ -10,6 +10,8 @@ afterEach(() => {
   const mocked = errorSpy?.getMockImplementation() !== undefined;
   errorSpy?.mockRestore();
   if (!mocked && calls.length > 0) {
-    throw new Error(`console.error was called unexpectedly: ${calls.map((c: unknown[]) => c.map(String).join(' ')).join(' | ')}`);
+    throw new Error(
+      `console.error was called unexpectedly: ${calls.map((c: unknown[]) => c.map(String).join(' ')).join(' | ')}`,
+    );
   }
 });

@@ -45,13 +45,20 @@ function newestMtime(p: string): number {
 export function clientBuildIsStale(root = ROOT): boolean {
   const index = path.join(root, 'dist', 'index.html');
   if (!fs.existsSync(index)) return true;
-  const inputs = ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts'].map((p) => newestMtime(path.join(root, p)));
+  const inputs = ['src', 'shared', 'index.html', 'vite.config.ts', 'tailwind.config.ts'].map((p) =>
+    newestMtime(path.join(root, p)),
+  );
   return Math.max(...inputs) > fs.statSync(index).mtimeMs;
 }
 
 /** Run `vite build`; returns the exit status. */
 export function buildClient(root = ROOT, timeoutMs = 300_000): number {
-  const r = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], { cwd: root, stdio: 'inherit', env: process.env, timeout: timeoutMs });
+  const r = spawnSync('npx', ['vite', 'build', '--logLevel', 'warn'], {
+    cwd: root,
+    stdio: 'inherit',
+    env: process.env,
+    timeout: timeoutMs,
+  });
   return r.status ?? 1;
 }
 

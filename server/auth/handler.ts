@@ -1,4 +1,8 @@
-import type { Request as ExpressRequest, RequestHandler, Response as ExpressResponse } from 'express';
+import type {
+  Request as ExpressRequest,
+  RequestHandler,
+  Response as ExpressResponse,
+} from 'express';
 import { HttpError, validationError } from '../errors';
 import { findBodyTextIssues } from '../validation';
 
@@ -13,7 +17,17 @@ function readBody(req: ExpressRequest): Promise<Buffer> {
       size += c.length;
       if (size <= AUTH_BODY_LIMIT) chunks.push(c);
     });
-    req.on('end', () => (size > AUTH_BODY_LIMIT ? reject(new HttpError(413, 'payload_too_large', 'The request body is larger than the server accepts')) : resolve(Buffer.concat(chunks))));
+    req.on('end', () =>
+      size > AUTH_BODY_LIMIT
+        ? reject(
+            new HttpError(
+              413,
+              'payload_too_large',
+              'The request body is larger than the server accepts',
+            ),
+          )
+        : resolve(Buffer.concat(chunks)),
+    );
     req.on('error', reject);
   });
 }
@@ -46,7 +60,9 @@ export function authHandler(handle: (request: Request) => Promise<Response>): Re
         try {
           parsed = JSON.parse(body.toString('utf8'));
         } catch {
-          throw new HttpError(400, 'bad_request', 'The request body is not valid JSON', [{ path: 'body', message: 'is not valid JSON' }]);
+          throw new HttpError(400, 'bad_request', 'The request body is not valid JSON', [
+            { path: 'body', message: 'is not valid JSON' },
+          ]);
         }
         const issues = findBodyTextIssues(parsed);
         if (issues.length > 0) throw validationError(issues);
@@ -58,7 +74,13 @@ export function authHandler(handle: (request: Request) => Promise<Response>): Re
         else headers.set(k, v);
       }
       const url = new URL(req.originalUrl, `http://${req.headers.host ?? '127.0.0.1'}`);
-      const answer = await handle(new Request(url, { method: req.method, headers, body: body && body.length > 0 ? new Uint8Array(body) : undefined }));
+      const answer = await handle(
+        new Request(url, {
+          method: req.method,
+          headers,
+          body: body && body.length > 0 ? new Uint8Array(body) : undefined,
+        }),
+      );
       await sendAnswer(res, answer);
     } catch (err) {
       next(err);
@@ -82,7 +104,8 @@ async function sendAnswer(res: ExpressResponse, answer: Response) {
   let data: Record<string, unknown> = {};
   try {
     const parsed: unknown = raw.length > 0 ? JSON.parse(raw.toString('utf8')) : {};
-    if (parsed && typeof parsed === 'object' && !Array.isArray(parsed)) data = parsed as Record<string, unknown>;
+    if (parsed && typeof parsed === 'object' && !Array.isArray(parsed))
+      data = parsed as Record<string, unknown>;
   } catch {
     data = raw.length > 0 ? { message: raw.toString('utf8').slice(0, 300) } : {};
   }
@@ -93,8 +116,20 @@ async function sendAnswer(res: ExpressResponse, answer: Response) {
     res.end(raw);
     return;
   }
-  const message = typeof data.message === 'string' && data.message !== '' ? data.message : `The sign-in service refused the request (${answer.status})`;
-  const details = typeof data.code === 'string' ? [{ path: 'body', message: data.code }] : [{ path: 'body', message }];
+  const message =
+    typeof data.message === 'string' && data.message !== ''
+      ? data.message
+      : `The sign-in service refused the request (${answer.status})`;
+  const details =
+    typeof data.code === 'string'
+      ? [{ path: 'body', message: data.code }]
+      : [{ path: 'body', message }];
   res.setHeader('content-type', 'application/json; charset=utf-8');
-  res.end(JSON.stringify({ ...data, message, error: { code: codeForStatus(answer.status), message, details } }));
+  res.end(
+    JSON.stringify({
+      ...data,
+      message,
+      error: { code: codeForStatus(answer.status), message, details },
+    }),
+  );
 }

@@ -11,13 +11,17 @@ import { INVITATION_DAYS, type InviteMemberInput } from '../../shared/model/team
 import type { Role } from '../../shared/model/permissions';
 
 /** The stored form of a one-use token: only its SHA-256 is kept. */
-export const hashToken = (token: string) => createHash('sha256').update(token, 'utf8').digest('hex');
+export const hashToken = (token: string) =>
+  createHash('sha256').update(token, 'utf8').digest('hex');
 
 export type InvitationState = 'pending' | 'accepted' | 'expired' | 'revoked';
 
 type InvitationRow = typeof teamInvitations.$inferSelect;
 
-export function invitationState(row: Pick<InvitationRow, 'acceptedAt' | 'revokedAt' | 'expiresAt'>, now = new Date()): InvitationState {
+export function invitationState(
+  row: Pick<InvitationRow, 'acceptedAt' | 'revokedAt' | 'expiresAt'>,
+  now = new Date(),
+): InvitationState {
   if (row.acceptedAt) return 'accepted';
   if (row.revokedAt) return 'revoked';
   if (row.expiresAt <= now) return 'expired';
@@ -67,11 +71,18 @@ export async function createInvitation(
     .where(eq(user.email, email))
     .limit(1);
   if (existing?.teamId) {
-    throw new HttpError(409, 'conflict', `${email} is already a member of ${existing.teamId === v.teamId ? 'this' : 'another'} team`, [
-      { path: 'email', message: 'is already a team member' },
-    ]);
+    throw new HttpError(
+      409,
+      'conflict',
+      `${email} is already a member of ${existing.teamId === v.teamId ? 'this' : 'another'} team`,
+      [{ path: 'email', message: 'is already a team member' }],
+    );
   }
-  const [team] = await db.select({ name: teams.name }).from(teams).where(eq(teams.id, v.teamId)).limit(1);
+  const [team] = await db
+    .select({ name: teams.name })
+    .from(teams)
+    .where(eq(teams.id, v.teamId))
+    .limit(1);
   const token = randomBytes(32).toString('base64url');
   const now = new Date();
   const row = {
@@ -89,7 +100,14 @@ export async function createInvitation(
     await tx
       .update(teamInvitations)
       .set({ revokedAt: now })
-      .where(and(eq(teamInvitations.teamId, v.teamId), eq(teamInvitations.email, email), isNull(teamInvitations.acceptedAt), isNull(teamInvitations.revokedAt)));
+      .where(
+        and(
+          eq(teamInvitations.teamId, v.teamId),
+          eq(teamInvitations.email, email),
+          isNull(teamInvitations.acceptedAt),
+          isNull(teamInvitations.revokedAt),
+        ),
+      );
     await tx.insert(teamInvitations).values(row);
   });
   const url = `${deps.publicUrl}/accept-invite?token=${token}`;
@@ -104,7 +122,12 @@ export async function createInvitation(
     teamId: v.teamId,
   };
   await sendQuietly(deps.mailer, deps.logger, message);
-  return invitationView({ ...row, acceptedAt: null, revokedAt: null, invitedByName: v.invitedBy.name });
+  return invitationView({
+    ...row,
+    acceptedAt: null,
+    revokedAt: null,
+    invitedByName: v.invitedBy.name,
+  });
 }
 
 export async function listInvitations(db: Db, teamId: string) {
@@ -126,13 +149,19 @@ export async function revokeInvitation(db: Db, teamId: string, id: string) {
     .limit(1);
   if (!row) throw notFound('Invitation not found');
   const state = invitationState(row);
-  if (state !== 'pending') throw new HttpError(409, 'conflict', `The invitation is already ${state}`);
-  const [updated] = await db.update(teamInvitations).set({ revokedAt: new Date() }).where(eq(teamInvitations.id, id)).returning();
+  if (state !== 'pending')
+    throw new HttpError(409, 'conflict', `The invitation is already ${state}`);
+  const [updated] = await db
+    .update(teamInvitations)
+    .set({ revokedAt: new Date() })
+    .where(eq(teamInvitations.id, id))
+    .returning();
   return invitationView(updated!);
 }
 
 const GONE: Record<Exclude<InvitationState, 'pending'>, string> = {
-  accepted: 'This invitation has already been used. Sign in with the password you chose, or use "Forgot password".',
+  accepted:
+    'This invitation has already been used. Sign in with the password you chose, or use "Forgot password".',
   expired: 'This invitation has expired. Ask your team admin to invite you again.',
   revoked: 'This invitation was withdrawn (a newer one may have been sent). Ask your team admin.',
 };
@@ -144,7 +173,8 @@ async function findByToken(db: Db, token: string) {
     .innerJoin(teams, eq(teams.id, teamInvitations.teamId))
     .where(eq(teamInvitations.tokenHash, hashToken(token)))
     .limit(1);
-  if (!row) throw notFound('This invitation link is not valid. Check that the whole link was copied.');
+  if (!row)
+    throw notFound('This invitation link is not valid. Check that the whole link was copied.');
   const state = invitationState(row.inv);
   if (state !== 'pending') throw new HttpError(410, 'gone', GONE[state], { state });
   return row;
@@ -153,7 +183,13 @@ async function findByToken(db: Db, token: string) {
 /** What the accept page shows before the person chooses a password. */
 export async function describeInvitation(db: Db, token: string) {
   const { inv, teamName } = await findByToken(db, token);
-  return { email: inv.email, name: inv.name, role: inv.role, team: { name: teamName }, expiresAt: inv.expiresAt.toISOString() };
+  return {
+    email: inv.email,
+    name: inv.name,
+    role: inv.role,
+    team: { name: teamName },
+    expiresAt: inv.expiresAt.toISOString(),
+  };
 }
 
 /**
@@ -167,16 +203,29 @@ export async function acceptInvitation(db: Db, token: string, password: string) 
     const claimed = await t
       .update(teamInvitations)
       .set({ acceptedAt: new Date() })
-      .where(and(eq(teamInvitations.id, inv.id), isNull(teamInvitations.acceptedAt), isNull(teamInvitations.revokedAt), gt(teamInvitations.expiresAt, new Date())))
+      .where(
+        and(
+          eq(teamInvitations.id, inv.id),
+          isNull(teamInvitations.acceptedAt),
+          isNull(teamInvitations.revokedAt),
+          gt(teamInvitations.expiresAt, new Date()),
+        ),
+      )
       .returning({ id: teamInvitations.id });
-    if (claimed.length === 0) throw new HttpError(410, 'gone', GONE.accepted, { state: 'accepted' });
+    if (claimed.length === 0)
+      throw new HttpError(410, 'gone', GONE.accepted, { state: 'accepted' });
     const [existing] = await t
       .select({ id: user.id, teamId: teamMembers.teamId })
       .from(user)
       .leftJoin(teamMembers, eq(teamMembers.userId, user.id))
       .where(eq(user.email, inv.email))
       .limit(1);
-    if (existing?.teamId) throw new HttpError(409, 'conflict', `${inv.email} is already a team member; sign in instead`);
+    if (existing?.teamId)
+      throw new HttpError(
+        409,
+        'conflict',
+        `${inv.email} is already a team member; sign in instead`,
+      );
     let userId: string;
     if (existing) {
       // A former member: the chosen password replaces the old one and their sessions end.
@@ -189,7 +238,15 @@ export async function acceptInvitation(db: Db, token: string, password: string) 
         .returning({ id: account.id });
       if (updated.length === 0) {
         const now = new Date();
-        await t.insert(account).values({ id: randomUUID(), accountId: userId, providerId: 'credential', userId, password: hash, createdAt: now, updatedAt: now });
+        await t.insert(account).values({
+          id: randomUUID(),
+          accountId: userId,
+          providerId: 'credential',
+          userId,
+          password: hash,
+          createdAt: now,
+          updatedAt: now,
+        });
       }
       await t.delete(session).where(eq(session.userId, userId));
     } else {

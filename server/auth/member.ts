@@ -86,7 +86,11 @@ export function loadSession(auth: Auth, memberships: MembershipCache): RequestHa
     if (!found) return null;
     const value: CachedSession = {
       user: { id: found.user.id, email: found.user.email, name: found.user.name },
-      session: { token: found.session.token, userId: found.session.userId, expiresAt: new Date(found.session.expiresAt) },
+      session: {
+        token: found.session.token,
+        userId: found.session.userId,
+        expiresAt: new Date(found.session.expiresAt),
+      },
     };
     cache.set(cookie, value, generation);
     return value;
@@ -125,7 +129,13 @@ export function requirePermission(action: Action): RequestHandler {
       return;
     }
     if (!ctx.team || !can(ctx.role, action)) {
-      next(forbidden(ctx.team ? `Your role (${ctx.role ?? 'none'}) does not allow ${action}` : 'You are not a member of a team'));
+      next(
+        forbidden(
+          ctx.team
+            ? `Your role (${ctx.role ?? 'none'}) does not allow ${action}`
+            : 'You are not a member of a team',
+        ),
+      );
       return;
     }
     next();

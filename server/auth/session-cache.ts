@@ -57,7 +57,8 @@ export class SessionCache {
 
   revokeUser(userId: string): void {
     this.generation++;
-    for (const [k, e] of this.entries) if (e.value.session.userId === userId) this.entries.delete(k);
+    for (const [k, e] of this.entries)
+      if (e.value.session.userId === userId) this.entries.delete(k);
   }
 
   get size(): number {

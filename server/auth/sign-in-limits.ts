@@ -55,10 +55,17 @@ const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 
 function tooMany(resetAt: number, message: string): Response {
   const retryAfter = Math.max(1, Math.ceil((resetAt - Date.now()) / 1000));
-  return new Response(JSON.stringify({ error: { code: 'rate_limited', message, details: { retryAfter } } }), {
-    status: 429,
-    headers: { 'content-type': 'application/json', 'retry-after': String(retryAfter), 'cache-control': 'no-store' },
-  });
+  return new Response(
+    JSON.stringify({ error: { code: 'rate_limited', message, details: { retryAfter } } }),
+    {
+      status: 429,
+      headers: {
+        'content-type': 'application/json',
+        'retry-after': String(retryAfter),
+        'cache-control': 'no-store',
+      },
+    },
+  );
 }
 
 async function readEmail(request: Request): Promise<string> {
@@ -81,8 +88,12 @@ export function guardAuthHandler(
   handler: (request: Request) => Promise<Response>,
   opts: { limits: SignInLimits | null; resetAnswerMs?: number },
 ): (request: Request) => Promise<Response> {
-  const perAccount = opts.limits ? new WindowCounter(opts.limits.perAccount.max, opts.limits.perAccount.windowMs) : null;
-  const perAddress = opts.limits ? new WindowCounter(opts.limits.perAddress.max, opts.limits.perAddress.windowMs) : null;
+  const perAccount = opts.limits
+    ? new WindowCounter(opts.limits.perAccount.max, opts.limits.perAccount.windowMs)
+    : null;
+  const perAddress = opts.limits
+    ? new WindowCounter(opts.limits.perAddress.max, opts.limits.perAddress.windowMs)
+    : null;
   const resetAnswerMs = opts.resetAnswerMs ?? RESET_ANSWER_MS;
   return async (request) => {
     if (request.method !== 'POST') return handler(request);
@@ -98,10 +109,12 @@ export function guardAuthHandler(
       const address = request.headers.get('x-forwarded-for') ?? 'unknown';
       const email = await readEmail(request);
       const a = perAddress.hit(address);
-      if (!a.ok) return tooMany(a.resetAt, 'Too many sign-in attempts from your address; try again shortly');
+      if (!a.ok)
+        return tooMany(a.resetAt, 'Too many sign-in attempts from your address; try again shortly');
       const accountKey = `account:${email}`;
       const b = perAccount.hit(accountKey);
-      if (!b.ok) return tooMany(b.resetAt, 'Too many failed sign-ins for this account; try again shortly');
+      if (!b.ok)
+        return tooMany(b.resetAt, 'Too many failed sign-ins for this account; try again shortly');
       const res = await handler(request);
       if (res.ok) perAccount.undo(accountKey);
       return res;

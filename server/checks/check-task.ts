@@ -1,7 +1,12 @@
 import { gunzipSync, gzipSync } from 'node:zlib';
 import { checkSpool, type MaterialFinder } from '../../shared/engine/index';
 import { createMaterialLookup, findMaterial, type Material } from '../../shared/data/materials';
-import { formatPath, spoolDocumentSchema, type FieldIssue, type SpoolDocument } from '../../shared/model/spool';
+import {
+  formatPath,
+  spoolDocumentSchema,
+  type FieldIssue,
+  type SpoolDocument,
+} from '../../shared/model/spool';
 import { findBodyTextIssues } from '../validation';
 import { summarizeDocument } from '../spools/check';
 import { parseCsv } from '../csv';
@@ -26,9 +31,20 @@ export type CheckTask =
   /** Validate raw JSON text as a spool document and check it: the answer of POST /api/check. */
   | { kind: 'check-json'; text: string; materials: MaterialsRef }
   /** Check a validated document; the full result as gzip'd JSON (stored with a share link). */
-  | { kind: 'check-document'; document: SpoolDocument; materials: MaterialsRef; omitNotes?: readonly string[] }
+  | {
+      kind: 'check-document';
+      document: SpoolDocument;
+      materials: MaterialsRef;
+      omitNotes?: readonly string[];
+    }
   /** The public share answer: `head` + the stored check (gzip bytes, or their base64) gunzipped + `tail`, as bytes. */
-  | { kind: 'share-view'; head: string; checkGz: Uint8Array | string; tail: string; materials: MaterialsRef }
+  | {
+      kind: 'share-view';
+      head: string;
+      checkGz: Uint8Array | string;
+      tail: string;
+      materials: MaterialsRef;
+    }
   /** Check validated documents and keep what the spool list shows. */
   | { kind: 'summaries'; documents: readonly SpoolDocument[]; materials: MaterialsRef }
   /** Read a line-list CSV (text already within the row cap) into checked documents, or its problems. */
@@ -60,17 +76,45 @@ const encoder = new TextEncoder();
 export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
   const find = finderFor(task.materials);
   if (task.kind === 'share-view') {
-    const check = gunzipSync(typeof task.checkGz === 'string' ? Buffer.from(task.checkGz, 'base64') : task.checkGz);
-    return { kind: 'json', bytes: Buffer.concat([Buffer.from(task.head), check, Buffer.from(task.tail)]) };
+    const check = gunzipSync(
+      typeof task.checkGz === 'string' ? Buffer.from(task.checkGz, 'base64') : task.checkGz,
+    );
+    return {
+      kind: 'json',
+      bytes: Buffer.concat([Buffer.from(task.head), check, Buffer.from(task.tail)]),
+    };
   }
   if (task.kind === 'line-list') {
     const csv = parseCsv(task.text);
     if (csv.errors.length > 0) {
-      return { kind: 'invalid', status: 422, message: 'The CSV could not be read', issues: csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message }) as FieldIssue) };
+      return {
+        kind: 'invalid',
+        status: 422,
+        message: 'The CSV could not be read',
+        issues: csv.errors.map(
+          (e) =>
+            ({
+              path: `line ${e.line}`,
+              line: e.line,
+              column: null,
+              message: e.message,
+            }) as FieldIssue,
+        ),
+      };
     }
     const { docs, issues } = await readLineList(csv.headers, csv.rows);
-    if (issues.length > 0) return { kind: 'invalid', status: 422, message: `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`, issues };
-    return { kind: 'line-list', documents: docs, summaries: docs.map((d) => summarizeDocument(d, find)) };
+    if (issues.length > 0)
+      return {
+        kind: 'invalid',
+        status: 422,
+        message: `${issues.length} problem${issues.length === 1 ? '' : 's'} in the line list; nothing was imported`,
+        issues,
+      };
+    return {
+      kind: 'line-list',
+      documents: docs,
+      summaries: docs.map((d) => summarizeDocument(d, find)),
+    };
   }
   if (task.kind === 'summaries') {
     return { kind: 'summaries', summaries: task.documents.map((d) => summarizeDocument(d, find)) };
@@ -81,19 +125,39 @@ export async function runCheckTask(task: CheckTask): Promise<CheckAnswer> {
     try {
       input = JSON.parse(task.text);
     } catch {
-      return { kind: 'invalid', status: 400, message: 'The request body is not valid JSON', issues: [{ path: 'body', message: 'is not valid JSON' }] };
+      return {
+        kind: 'invalid',
+        status: 400,
+        message: 'The request body is not valid JSON',
+        issues: [{ path: 'body', message: 'is not valid JSON' }],
+      };
     }
     const textIssues = findBodyTextIssues(input);
-    if (textIssues.length > 0) return { kind: 'invalid', status: 422, message: 'The request has invalid fields', issues: textIssues };
+    if (textIssues.length > 0)
+      return {
+        kind: 'invalid',
+        status: 422,
+        message: 'The request has invalid fields',
+        issues: textIssues,
+      };
     const r = spoolDocumentSchema.safeParse(input);
     if (!r.success) {
-      return { kind: 'invalid', status: 422, message: 'The request has invalid fields', issues: r.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })) };
+      return {
+        kind: 'invalid',
+        status: 422,
+        message: 'The request has invalid fields',
+        issues: r.error.issues.map((i) => ({ path: formatPath(i.path), message: i.message })),
+      };
     }
     document = r.data as SpoolDocument;
   } else document = task.document;
   const result = checkSpool(document, { findMaterial: find });
   // A check stored with a share link leaves out the team's own material source notes.
-  const json = JSON.stringify(task.kind === 'check-document' && task.omitNotes ? omitSourceNotes(result, task.omitNotes) : result);
+  const json = JSON.stringify(
+    task.kind === 'check-document' && task.omitNotes
+      ? omitSourceNotes(result, task.omitNotes)
+      : result,
+  );
   if (task.kind === 'check-document') return { kind: 'gzip', bytes: gzipSync(json, { level: 6 }) };
   return { kind: 'json', bytes: encoder.encode(json) };
 }

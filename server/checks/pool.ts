@@ -61,22 +61,44 @@ export class CheckPool {
   async checkJson(text: string, materials: MaterialsRef): Promise<Uint8Array> {
     const out = await this.run({ kind: 'check-json', text, materials });
     if (out instanceof Uint8Array) return out;
-    if (out.kind === 'invalid') throw new HttpError(out.status, out.status === 400 ? 'bad_request' : 'validation', out.message, out.issues);
+    if (out.kind === 'invalid')
+      throw new HttpError(
+        out.status,
+        out.status === 400 ? 'bad_request' : 'validation',
+        out.message,
+        out.issues,
+      );
     throw new Error('check pool: unexpected answer');
   }
 
   /** The full check of a validated document, gzip'd JSON (kept with a share link). */
-  async checkDocumentGz(document: SpoolDocument, materials: MaterialsRef, omitNotes?: readonly string[]): Promise<Uint8Array> {
+  async checkDocumentGz(
+    document: SpoolDocument,
+    materials: MaterialsRef,
+    omitNotes?: readonly string[],
+  ): Promise<Uint8Array> {
     const small = document.elements.length <= INLINE_ELEMENTS;
-    const task: CheckTask = { kind: 'check-document', document, materials, ...(omitNotes ? { omitNotes } : {}) };
+    const task: CheckTask = {
+      kind: 'check-document',
+      document,
+      materials,
+      ...(omitNotes ? { omitNotes } : {}),
+    };
     const out = small ? await runCheckTask(task) : await this.run(task);
-    if (out instanceof Uint8Array || out.kind !== 'gzip') throw new Error('check pool: unexpected answer');
+    if (out instanceof Uint8Array || out.kind !== 'gzip')
+      throw new Error('check pool: unexpected answer');
     return out.bytes;
   }
 
   /** The public share answer: `head` + the stored check + `tail` as JSON bytes, assembled off the event loop. */
   async shareView(head: string, checkGz: Uint8Array | string, tail: string): Promise<Uint8Array> {
-    const task: CheckTask = { kind: 'share-view', head, checkGz, tail, materials: { key: 'library', rows: null } };
+    const task: CheckTask = {
+      kind: 'share-view',
+      head,
+      checkGz,
+      tail,
+      materials: { key: 'library', rows: null },
+    };
     const size = typeof checkGz === 'string' ? checkGz.length : checkGz.byteLength;
     const out = size < 16 * 1024 ? await runCheckTask(task) : await this.run(task);
     if (out instanceof Uint8Array) return out;
@@ -85,18 +107,29 @@ export class CheckPool {
   }
 
   /** Check summaries of validated documents (small ones inline, the rest in the pool). */
-  async summaries(documents: readonly SpoolDocument[], materials: MaterialsRef): Promise<StoredCheckSummary[]> {
+  async summaries(
+    documents: readonly SpoolDocument[],
+    materials: MaterialsRef,
+  ): Promise<StoredCheckSummary[]> {
     const elements = documents.reduce((n, d) => n + d.elements.length, 0);
-    const out = elements <= INLINE_ELEMENTS && documents.length <= INLINE_ELEMENTS ? await runCheckTask({ kind: 'summaries', documents, materials }) : await this.run({ kind: 'summaries', documents, materials });
-    if (out instanceof Uint8Array || out.kind !== 'summaries') throw new Error('check pool: unexpected answer');
+    const out =
+      elements <= INLINE_ELEMENTS && documents.length <= INLINE_ELEMENTS
+        ? await runCheckTask({ kind: 'summaries', documents, materials })
+        : await this.run({ kind: 'summaries', documents, materials });
+    if (out instanceof Uint8Array || out.kind !== 'summaries')
+      throw new Error('check pool: unexpected answer');
     return out.summaries;
   }
 
   /** Read and check a line-list CSV in the pool: the documents with their summaries, or a 422. */
-  async lineList(text: string, materials: MaterialsRef): Promise<{ documents: SpoolDocument[]; summaries: StoredCheckSummary[] }> {
+  async lineList(
+    text: string,
+    materials: MaterialsRef,
+  ): Promise<{ documents: SpoolDocument[]; summaries: StoredCheckSummary[] }> {
     const out = await this.run({ kind: 'line-list', text, materials });
     if (out instanceof Uint8Array) throw new Error('check pool: unexpected answer');
-    if (out.kind === 'invalid') throw new HttpError(out.status, 'validation', out.message, out.issues);
+    if (out.kind === 'invalid')
+      throw new HttpError(out.status, 'validation', out.message, out.issues);
     if (out.kind !== 'line-list') throw new Error('check pool: unexpected answer');
     return out;
   }
@@ -108,4 +141,5 @@ export class CheckPool {
   }
 }
 
-const busy = () => new HttpError(503, 'busy', 'The server is checking many spools right now; try again in a moment');
+const busy = () =>
+  new HttpError(503, 'busy', 'The server is checking many spools right now; try again in a moment');

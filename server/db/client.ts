@@ -75,7 +75,10 @@ export async function openPglite(dataDir: string): Promise<Database> {
 }
 
 /** Open the configured database: PostgreSQL when a URL is given, else the embedded one. */
-export function openDatabase(opts: { databaseUrl?: string | undefined; dataDir: string }): Promise<Database> {
+export function openDatabase(opts: {
+  databaseUrl?: string | undefined;
+  dataDir: string;
+}): Promise<Database> {
   if (opts.databaseUrl) return Promise.resolve(openPostgres(opts.databaseUrl));
   return openPglite(opts.dataDir);
 }

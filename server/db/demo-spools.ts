@@ -8,13 +8,32 @@ import type { Direction, SpoolDocument, SpoolElement } from '../../shared/model/
 
 type Leg = { direction: Direction; length: number };
 
-function buildRun(prefix: string, legs: readonly Leg[], pipe: { nps: string; schedule: string }, bendRadius: { multipleOfD: number }): SpoolElement[] {
+function buildRun(
+  prefix: string,
+  legs: readonly Leg[],
+  pipe: { nps: string; schedule: string },
+  bendRadius: { multipleOfD: number },
+): SpoolElement[] {
   const out: SpoolElement[] = [];
   legs.forEach((leg, i) => {
     if (i > 0) {
-      out.push({ kind: 'bend', id: `${prefix}-B${i}`, ...pipe, bendRadius, angle: 90, direction: leg.direction });
+      out.push({
+        kind: 'bend',
+        id: `${prefix}-B${i}`,
+        ...pipe,
+        bendRadius,
+        angle: 90,
+        direction: leg.direction,
+      });
     }
-    out.push({ kind: 'straight', id: `${prefix}-S${i + 1}`, ...pipe, direction: leg.direction, length: leg.length, endType: 'bevel' });
+    out.push({
+      kind: 'straight',
+      id: `${prefix}-S${i + 1}`,
+      ...pipe,
+      direction: leg.direction,
+      length: leg.length,
+      endType: 'bevel',
+    });
   });
   return out;
 }
@@ -24,13 +43,23 @@ export function buildLongSpool(count: number, name = `Long run ${count}`): Spool
   const dirs: Direction[] = ['east', 'north', 'up', 'west', 'south', 'down'];
   const legs: Leg[] = [];
   const legCount = Math.ceil((count + 1) / 2);
-  for (let i = 0; i < legCount; i++) legs.push({ direction: dirs[i % dirs.length]!, length: 36 + (i % 5) * 6 });
-  const elements = buildRun('L', legs, { nps: '4', schedule: '40' }, { multipleOfD: 3 }).slice(0, count);
+  for (let i = 0; i < legCount; i++)
+    legs.push({ direction: dirs[i % dirs.length]!, length: 36 + (i % 5) * 6 });
+  const elements = buildRun('L', legs, { nps: '4', schedule: '40' }, { multipleOfD: 3 }).slice(
+    0,
+    count,
+  );
   return {
     units: 'imperial',
     name,
     line: '4"-HW-9000-A1',
-    conditions: { pressure: 150, temperature: 200, material: 'A106-B', corrosionAllowance: 0.0625, millTolerance: 0.125 },
+    conditions: {
+      pressure: 150,
+      temperature: 200,
+      material: 'A106-B',
+      corrosionAllowance: 0.0625,
+      millTolerance: 0.125,
+    },
     elements,
   };
 }
@@ -40,7 +69,13 @@ export const DEMO_SPOOLS: readonly SpoolDocument[] = [
     units: 'imperial',
     name: 'CW-101-01 Cooling water header drop',
     line: '4"-CW-1012-A1',
-    conditions: { pressure: 150, temperature: 120, material: 'A106-B', corrosionAllowance: 0.0625, millTolerance: 0.125 },
+    conditions: {
+      pressure: 150,
+      temperature: 120,
+      material: 'A106-B',
+      corrosionAllowance: 0.0625,
+      millTolerance: 0.125,
+    },
     defaultBendRadius: { multipleOfD: 3 },
     elements: buildRun(
       'CW',
@@ -57,7 +92,13 @@ export const DEMO_SPOOLS: readonly SpoolDocument[] = [
     units: 'imperial',
     name: 'SV-204-03 Solvent transfer to day tank',
     line: '2"-SV-2040-S2',
-    conditions: { pressure: 1250, temperature: 300, material: 'A312-TP316L', corrosionAllowance: 0, millTolerance: 0.125 },
+    conditions: {
+      pressure: 1250,
+      temperature: 300,
+      material: 'A312-TP316L',
+      corrosionAllowance: 0,
+      millTolerance: 0.125,
+    },
     defaultBendRadius: { multipleOfD: 5 },
     elements: buildRun(
       'SV',
@@ -74,7 +115,13 @@ export const DEMO_SPOOLS: readonly SpoolDocument[] = [
     units: 'imperial',
     name: 'HP-310-02 Boiler feed discharge',
     line: '6"-BF-3102-C3',
-    conditions: { pressure: 1900, temperature: 400, material: 'A106-B', corrosionAllowance: 0.0625, millTolerance: 0.125 },
+    conditions: {
+      pressure: 1900,
+      temperature: 400,
+      material: 'A106-B',
+      corrosionAllowance: 0.0625,
+      millTolerance: 0.125,
+    },
     defaultBendRadius: { multipleOfD: 3 },
     elements: buildRun(
       'BF',
@@ -90,7 +137,13 @@ export const DEMO_SPOOLS: readonly SpoolDocument[] = [
     units: 'imperial',
     name: 'ST-415-01 Steam supply to reboiler',
     line: '3"-ST-4150-B1',
-    conditions: { pressure: 1100, temperature: 450, material: 'A106-B', corrosionAllowance: 0.0625, millTolerance: 0.125 },
+    conditions: {
+      pressure: 1100,
+      temperature: 450,
+      material: 'A106-B',
+      corrosionAllowance: 0.0625,
+      millTolerance: 0.125,
+    },
     defaultBendRadius: { multipleOfD: 3 },
     elements: buildRun(
       'ST',

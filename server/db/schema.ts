@@ -1,5 +1,16 @@
 import { sql } from 'drizzle-orm';
-import { customType, index, integer, jsonb, pgTable, primaryKey, serial, text, timestamp, uniqueIndex } from 'drizzle-orm/pg-core';
+import {
+  customType,
+  index,
+  integer,
+  jsonb,
+  pgTable,
+  primaryKey,
+  serial,
+  text,
+  timestamp,
+  uniqueIndex,
+} from 'drizzle-orm/pg-core';
 import type { SpoolDocument } from '../../shared/model/spool';
 import type { CheckSummary, CheckStatus } from '../../shared/engine/types';
 import type { Material } from '../../shared/data/materials';
@@ -40,7 +51,10 @@ export const teamMembers = pgTable(
     role: text('role').notNull(),
     createdAt: timestamp('created_at', { withTimezone: true }).defaultNow().notNull(),
   },
-  (t) => [primaryKey({ columns: [t.teamId, t.userId] }), uniqueIndex('team_members_user_idx').on(t.userId)],
+  (t) => [
+    primaryKey({ columns: [t.teamId, t.userId] }),
+    uniqueIndex('team_members_user_idx').on(t.userId),
+  ],
 );
 
 export const spools = pgTable(
@@ -68,7 +82,9 @@ export const spools = pgTable(
   (t) => [
     index('spools_team_updated_idx').on(t.teamId, t.updatedAt),
     index('spools_team_name_idx').on(t.teamId, t.name),
-    index('spools_live_idx').on(t.teamId).where(sql`${t.deletedAt} is null`),
+    index('spools_live_idx')
+      .on(t.teamId)
+      .where(sql`${t.deletedAt} is null`),
   ],
 );
 
@@ -135,7 +151,10 @@ export const shareLinks = pgTable(
     /** The check of the shared revision as gzip'd JSON, made once when the link is created (the revision is frozen). */
     checkGz: bytea('check_gz'),
   },
-  (t) => [index('share_links_spool_idx').on(t.spoolId), uniqueIndex('share_links_token_hash_idx').on(t.tokenHash)],
+  (t) => [
+    index('share_links_spool_idx').on(t.spoolId),
+    uniqueIndex('share_links_token_hash_idx').on(t.tokenHash),
+  ],
 );
 
 /**
@@ -215,8 +234,11 @@ export const teamInvitations = pgTable(
     acceptedAt: timestamp('accepted_at', { withTimezone: true }),
     revokedAt: timestamp('revoked_at', { withTimezone: true }),
   },
-  (t) => [uniqueIndex('team_invitations_token_idx').on(t.tokenHash), index('team_invitations_team_idx').on(t.teamId, t.createdAt)],
- );
+  (t) => [
+    uniqueIndex('team_invitations_token_idx').on(t.tokenHash),
+    index('team_invitations_team_idx').on(t.teamId, t.createdAt),
+  ],
+);
 
 /**
  * Background work of a team, e.g. re-checking every spool after its materials changed. Rows

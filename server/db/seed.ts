@@ -23,10 +23,20 @@ export const DEMO_USERS: readonly { email: string; name: string; role: Role }[] 
 ];
 
 /** Create a user with an email/password account (the way better-auth stores credentials). */
-export async function createUserWithPassword(db: Db, v: { email: string; name: string; password: string; id?: string }) {
+export async function createUserWithPassword(
+  db: Db,
+  v: { email: string; name: string; password: string; id?: string },
+) {
   const id = v.id ?? randomUUID();
   const now = new Date();
-  await db.insert(user).values({ id, email: v.email.toLowerCase(), name: v.name, emailVerified: true, createdAt: now, updatedAt: now });
+  await db.insert(user).values({
+    id,
+    email: v.email.toLowerCase(),
+    name: v.name,
+    emailVerified: true,
+    createdAt: now,
+    updatedAt: now,
+  });
   await db.insert(account).values({
     id: randomUUID(),
     accountId: id,
@@ -60,7 +70,11 @@ export async function seedDemo(db: Db) {
   await db.insert(teams).values({ id: DEMO_TEAM.id, name: DEMO_TEAM.name });
   const ids = new Map<Role, string>();
   for (const u of DEMO_USERS) {
-    const id = await createUserWithPassword(db, { email: u.email, name: u.name, password: DEMO_PASSWORD });
+    const id = await createUserWithPassword(db, {
+      email: u.email,
+      name: u.name,
+      password: DEMO_PASSWORD,
+    });
     await db.insert(teamMembers).values({ teamId: DEMO_TEAM.id, userId: id, role: u.role });
     ids.set(u.role, id);
   }
@@ -68,18 +82,56 @@ export async function seedDemo(db: Db) {
   const spoolIds: string[] = [];
   for (const raw of DEMO_SPOOLS) {
     const parsed = parseSpoolDocument(raw);
-    if (!parsed.ok) throw new Error(`demo spool ${raw.name ?? ''} is invalid: ${parsed.issues.map((i) => `${i.path} ${i.message}`).join('; ')}`);
-    spoolIds.push(await insertSpool(db, { teamId: DEMO_TEAM.id, userId: designer, document: parsed.doc, checkSummary: summarizeDocument(parsed.doc) }));
+    if (!parsed.ok)
+      throw new Error(
+        `demo spool ${raw.name ?? ''} is invalid: ${parsed.issues.map((i) => `${i.path} ${i.message}`).join('; ')}`,
+      );
+    spoolIds.push(
+      await insertSpool(db, {
+        teamId: DEMO_TEAM.id,
+        userId: designer,
+        document: parsed.doc,
+        checkSummary: summarizeDocument(parsed.doc),
+      }),
+    );
   }
   const allow = () => true;
   const [first, second] = spoolIds;
   if (first) {
-    await transitionSpool(db, { teamId: DEMO_TEAM.id, id: first, userId: designer, to: 'submitted', note: 'Ready for check', isAllowed: allow });
-    await transitionSpool(db, { teamId: DEMO_TEAM.id, id: first, userId: ids.get('checker')!, to: 'checked', note: 'Walls and bend radii verified', isAllowed: allow });
-    await transitionSpool(db, { teamId: DEMO_TEAM.id, id: first, userId: ids.get('lead')!, to: 'released', note: 'Approved for fabrication', isAllowed: allow });
+    await transitionSpool(db, {
+      teamId: DEMO_TEAM.id,
+      id: first,
+      userId: designer,
+      to: 'submitted',
+      note: 'Ready for check',
+      isAllowed: allow,
+    });
+    await transitionSpool(db, {
+      teamId: DEMO_TEAM.id,
+      id: first,
+      userId: ids.get('checker')!,
+      to: 'checked',
+      note: 'Walls and bend radii verified',
+      isAllowed: allow,
+    });
+    await transitionSpool(db, {
+      teamId: DEMO_TEAM.id,
+      id: first,
+      userId: ids.get('lead')!,
+      to: 'released',
+      note: 'Approved for fabrication',
+      isAllowed: allow,
+    });
   }
   if (second) {
-    await transitionSpool(db, { teamId: DEMO_TEAM.id, id: second, userId: designer, to: 'submitted', note: 'Please check the bend margins', isAllowed: allow });
+    await transitionSpool(db, {
+      teamId: DEMO_TEAM.id,
+      id: second,
+      userId: designer,
+      to: 'submitted',
+      note: 'Please check the bend margins',
+      isAllowed: allow,
+    });
     await db.insert(spoolComments).values({
       spoolId: second,
       revision: 0,

@@ -47,7 +47,8 @@ export function toJobView(r: JobRow): JobView {
 }
 
 const turn = () => new Promise<void>((resolve) => setImmediate(resolve));
-const sameSummary = (a: StoredCheckSummary | null, b: StoredCheckSummary) => a !== null && JSON.stringify(a) === JSON.stringify(b);
+const sameSummary = (a: StoredCheckSummary | null, b: StoredCheckSummary) =>
+  a !== null && JSON.stringify(a) === JSON.stringify(b);
 
 /**
  * Background re-checks of a team's spools after its materials changed. Spools are read in
@@ -73,7 +74,10 @@ export class RecheckJobs {
       const [row] = await db.select().from(jobs).where(eq(jobs.id, waiting)).limit(1);
       if (row && row.status === 'queued') return toJobView(row);
     }
-    const [row] = await db.insert(jobs).values({ teamId, kind: 'recheck', status: 'queued', reason, createdBy: userId }).returning();
+    const [row] = await db
+      .insert(jobs)
+      .values({ teamId, kind: 'recheck', status: 'queued', reason, createdBy: userId })
+      .returning();
     this.pending.set(teamId, row!.id);
     this.kick(teamId);
     return toJobView(row!);
@@ -81,10 +85,17 @@ export class RecheckJobs {
 
   /** Jobs left queued or running by an earlier process are run again. */
   async resume(): Promise<void> {
-    const rows = await this.deps.db.select().from(jobs).where(inArray(jobs.status, ['queued', 'running'])).orderBy(asc(jobs.id));
+    const rows = await this.deps.db
+      .select()
+      .from(jobs)
+      .where(inArray(jobs.status, ['queued', 'running']))
+      .orderBy(asc(jobs.id));
     for (const r of rows) {
       if (this.pending.get(r.teamId) !== undefined) {
-        await this.deps.db.update(jobs).set({ status: 'done', finishedAt: new Date(), error: 'superseded by a later re-check' }).where(eq(jobs.id, r.id));
+        await this.deps.db
+          .update(jobs)
+          .set({ status: 'done', finishedAt: new Date(), error: 'superseded by a later re-check' })
+          .where(eq(jobs.id, r.id));
         continue;
       }
       await this.deps.db.update(jobs).set({ status: 'queued' }).where(eq(jobs.id, r.id));
@@ -94,19 +105,31 @@ export class RecheckJobs {
   }
 
   async list(teamId: string, limit = 20): Promise<JobView[]> {
-    const rows = await this.deps.db.select().from(jobs).where(eq(jobs.teamId, teamId)).orderBy(desc(jobs.id)).limit(limit);
+    const rows = await this.deps.db
+      .select()
+      .from(jobs)
+      .where(eq(jobs.teamId, teamId))
+      .orderBy(desc(jobs.id))
+      .limit(limit);
     return rows.map(toJobView);
   }
 
   async get(teamId: string, id: number): Promise<JobView | undefined> {
-    const [row] = await this.deps.db.select().from(jobs).where(and(eq(jobs.teamId, teamId), eq(jobs.id, id))).limit(1);
+    const [row] = await this.deps.db
+      .select()
+      .from(jobs)
+      .where(and(eq(jobs.teamId, teamId), eq(jobs.id, id)))
+      .limit(1);
     return row ? toJobView(row) : undefined;
   }
 
   /** Resolves once the team has no queued or running job (tests, shutdown). */
   async idle(teamId?: string): Promise<void> {
     for (;;) {
-      const running = teamId === undefined ? [...this.active.values()] : [this.active.get(teamId)].filter((p): p is Promise<void> => !!p);
+      const running =
+        teamId === undefined
+          ? [...this.active.values()]
+          : [this.active.get(teamId)].filter((p): p is Promise<void> => !!p);
       if (running.length === 0) return;
       await Promise.all(running);
     }
@@ -135,8 +158,21 @@ export class RecheckJobs {
     const { db, materials, checks, logger } = this.deps;
     const live = and(eq(spools.teamId, teamId), isNull(spools.deletedAt));
     try {
-      const [{ n } = { n: 0 }] = await db.select({ n: sql<number>`count(*)::int` }).from(spools).where(live);
-      await db.update(jobs).set({ status: 'running', startedAt: new Date(), total: n, done: 0, changed: 0, error: null }).where(eq(jobs.id, jobId));
+      const [{ n } = { n: 0 }] = await db
+        .select({ n: sql<number>`count(*)::int` })
+        .from(spools)
+        .where(live);
+      await db
+        .update(jobs)
+        .set({
+          status: 'running',
+          startedAt: new Date(),
+          total: n,
+          done: 0,
+          changed: 0,
+          error: null,
+        })
+        .where(eq(jobs.id, jobId));
       const ref = await materials.ref(teamId);
       const slice = createSlicer();
       let last = '';
@@ -145,13 +181,21 @@ export class RecheckJobs {
       for (;;) {
         if (this.stopped) return;
         const rows = await db
-          .select({ id: spools.id, version: spools.version, document: spools.document, checkSummary: spools.checkSummary })
+          .select({
+            id: spools.id,
+            version: spools.version,
+            document: spools.document,
+            checkSummary: spools.checkSummary,
+          })
           .from(spools)
           .where(and(live, gt(spools.id, last)))
           .orderBy(asc(spools.id))
           .limit(RECHECK_BATCH);
         if (rows.length === 0) break;
-        const summaries = await checks.summaries(rows.map((r) => r.document as SpoolDocument), ref);
+        const summaries = await checks.summaries(
+          rows.map((r) => r.document as SpoolDocument),
+          ref,
+        );
         for (const [i, r] of rows.entries()) {
           await slice();
           const s = summaries[i]!;
@@ -169,12 +213,20 @@ export class RecheckJobs {
         await db.update(jobs).set({ done, changed }).where(eq(jobs.id, jobId));
         await turn();
       }
-      await db.update(jobs).set({ status: 'done', done, changed, finishedAt: new Date() }).where(eq(jobs.id, jobId));
+      await db
+        .update(jobs)
+        .set({ status: 'done', done, changed, finishedAt: new Date() })
+        .where(eq(jobs.id, jobId));
     } catch (err) {
       logger.error(`re-check job ${jobId} failed`, err);
       await db
         .update(jobs)
-        .set({ status: 'failed', error: 'The re-check stopped on an error; start it again by re-importing or ask an administrator', finishedAt: new Date() })
+        .set({
+          status: 'failed',
+          error:
+            'The re-check stopped on an error; start it again by re-importing or ask an administrator',
+          finishedAt: new Date(),
+        })
         .where(eq(jobs.id, jobId))
         .catch(() => undefined);
     }

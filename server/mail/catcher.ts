@@ -31,7 +31,11 @@ function emlName(): string {
 }
 
 /** Team of each addressee that is a member; the rest map to `fallback` (if that team exists) or null. */
-async function teamsOf(db: Db, addresses: readonly string[], fallback: string | undefined): Promise<Map<string | null, string[]>> {
+async function teamsOf(
+  db: Db,
+  addresses: readonly string[],
+  fallback: string | undefined,
+): Promise<Map<string | null, string[]>> {
   const rows =
     addresses.length === 0
       ? []
@@ -43,7 +47,11 @@ async function teamsOf(db: Db, addresses: readonly string[], fallback: string | 
   const byEmail = new Map(rows.map((r) => [r.email.toLowerCase(), r.teamId]));
   let fallbackTeam: string | null = null;
   if (fallback && addresses.some((a) => !byEmail.has(a))) {
-    const [t] = await db.select({ id: teams.id }).from(teams).where(eq(teams.id, fallback)).limit(1);
+    const [t] = await db
+      .select({ id: teams.id })
+      .from(teams)
+      .where(eq(teams.id, fallback))
+      .limit(1);
     fallbackTeam = t?.id ?? null;
   }
   const groups = new Map<string | null, string[]>();
@@ -59,7 +67,11 @@ async function teamsOf(db: Db, addresses: readonly string[], fallback: string | 
  * whole as an .eml file in `mailDir` (the addressees' mailbox on this machine) and as outbox
  * rows, one per addressees' team, with one-use links redacted.
  */
-export async function startMailCatcher(opts: { db: Db; mailDir: string; logger: Logger }): Promise<MailCatcher> {
+export async function startMailCatcher(opts: {
+  db: Db;
+  mailDir: string;
+  logger: Logger;
+}): Promise<MailCatcher> {
   const { db, mailDir, logger } = opts;
   fs.mkdirSync(mailDir, { recursive: true });
   const auth = { user: 'spoolwright', pass: randomBytes(18).toString('base64url') };
@@ -92,7 +104,10 @@ export async function startMailCatcher(opts: { db: Db; mailDir: string; logger: 
         store(raw, recipients).then(
           () => cb(),
           (err: unknown) => {
-            logger.error('mail catcher could not store a message', err instanceof Error ? err.message : err);
+            logger.error(
+              'mail catcher could not store a message',
+              err instanceof Error ? err.message : err,
+            );
             cb(err instanceof Error ? err : new Error(String(err)));
           },
         );
@@ -122,7 +137,9 @@ export async function startMailCatcher(opts: { db: Db; mailDir: string; logger: 
       resolve();
     });
   });
-  server.on('error', (err) => logger.warn('mail catcher', err instanceof Error ? err.message : err));
+  server.on('error', (err) =>
+    logger.warn('mail catcher', err instanceof Error ? err.message : err),
+  );
   const port = (server.server.address() as AddressInfo).port;
   let closing: Promise<void> | undefined;
   return {

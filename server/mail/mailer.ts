@@ -67,8 +67,13 @@ export async function createMailer(opts: {
     };
   }
 
-  if (!opts.mailDir) throw new Error('createMailer: mailDir is required when no SMTP URL is configured');
-  const catcher = await startMailCatcher({ db: opts.db, mailDir: opts.mailDir, logger: opts.logger });
+  if (!opts.mailDir)
+    throw new Error('createMailer: mailDir is required when no SMTP URL is configured');
+  const catcher = await startMailCatcher({
+    db: opts.db,
+    mailDir: opts.mailDir,
+    logger: opts.logger,
+  });
   const transport = nodemailer.createTransport({
     host: catcher.host,
     port: catcher.port,
@@ -108,11 +113,18 @@ export async function createMailer(opts: {
 }
 
 /** Send without failing the caller: mail trouble is logged, the request still succeeds. */
-export async function sendQuietly(mailer: Mailer, logger: Logger, message: MailMessage): Promise<void> {
+export async function sendQuietly(
+  mailer: Mailer,
+  logger: Logger,
+  message: MailMessage,
+): Promise<void> {
   try {
     await mailer.send(message);
   } catch (err) {
-    logger.warn(`mail to ${recipients(message.to).join(', ')} failed`, err instanceof Error ? err.message : err);
+    logger.warn(
+      `mail to ${recipients(message.to).join(', ')} failed`,
+      err instanceof Error ? err.message : err,
+    );
   }
 }
 

@@ -40,10 +40,16 @@ function decodeQuotedPrintable(s: string): Buffer {
 export function decodeEncodedWords(value: string): string {
   return value
     .replace(/(=\?[^?]+\?[BbQq]\?[^?]*\?=)\s+(?==\?)/g, '$1')
-    .replace(/=\?([^?]+)\?([BbQq])\?([^?]*)\?=/g, (_m, charset: string, enc: string, data: string) => {
-      const bytes = enc.toUpperCase() === 'B' ? Buffer.from(data, 'base64') : decodeQuotedPrintable(data.replace(/_/g, ' '));
-      return decoder(charset.split('*')[0]).decode(bytes);
-    });
+    .replace(
+      /=\?([^?]+)\?([BbQq])\?([^?]*)\?=/g,
+      (_m, charset: string, enc: string, data: string) => {
+        const bytes =
+          enc.toUpperCase() === 'B'
+            ? Buffer.from(data, 'base64')
+            : decodeQuotedPrintable(data.replace(/_/g, ' '));
+        return decoder(charset.split('*')[0]).decode(bytes);
+      },
+    );
 }
 
 function splitHead(raw: string): { head: string; body: string } {
@@ -74,7 +80,8 @@ function param(header: string | undefined, name: string): string | undefined {
 export function parseAddresses(value: string | undefined): string[] {
   if (!value) return [];
   const out: string[] = [];
-  for (const m of value.matchAll(/<([^<>\s]+@[^<>\s]+)>|([^\s,<>"]+@[^\s,<>"]+)/g)) out.push((m[1] ?? m[2] ?? '').toLowerCase());
+  for (const m of value.matchAll(/<([^<>\s]+@[^<>\s]+)>|([^\s,<>"]+@[^\s,<>"]+)/g))
+    out.push((m[1] ?? m[2] ?? '').toLowerCase());
   return out;
 }
 

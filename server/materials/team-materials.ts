@@ -2,7 +2,12 @@ import { eq } from 'drizzle-orm';
 import { z } from 'zod';
 import type { Db } from '../db/client';
 import { teamMaterials } from '../db/schema';
-import { MATERIALS, createMaterialLookup, findMaterial, type Material } from '../../shared/data/materials';
+import {
+  MATERIALS,
+  createMaterialLookup,
+  findMaterial,
+  type Material,
+} from '../../shared/data/materials';
 import type { MaterialFinder } from '../../shared/engine/index';
 import { PRODUCT_FORMS } from '../../shared/model/spool';
 import type { CsvRow } from '../csv';
@@ -15,7 +20,10 @@ import { TEXT_LIMITS, text } from '../../shared/model/fields';
  * rebuilt after an upload or delete in this process.
  */
 export class TeamMaterials {
-  private readonly cache = new Map<string, Promise<{ rows: TeamMaterialRow[]; find: MaterialFinder; ref: MaterialsRef }>>();
+  private readonly cache = new Map<
+    string,
+    Promise<{ rows: TeamMaterialRow[]; find: MaterialFinder; ref: MaterialsRef }>
+  >();
   private loads = 0;
   constructor(private readonly db: Db) {}
 
@@ -28,8 +36,14 @@ export class TeamMaterials {
         .from(teamMaterials)
         .where(eq(teamMaterials.teamId, teamId))
         .then((rows) => ({
-          rows: rows.map((r) => ({ ...r.material, origin: 'team' as const, sourceNote: r.sourceNote, updatedAt: r.updatedAt.toISOString() })),
-          find: rows.length === 0 ? findMaterial : createMaterialLookup(rows.map((r) => r.material)),
+          rows: rows.map((r) => ({
+            ...r.material,
+            origin: 'team' as const,
+            sourceNote: r.sourceNote,
+            updatedAt: r.updatedAt.toISOString(),
+          })),
+          find:
+            rows.length === 0 ? findMaterial : createMaterialLookup(rows.map((r) => r.material)),
           ref: { key, rows: rows.length === 0 ? null : rows.map((r) => r.material) },
         }));
       p.catch(() => this.cache.delete(teamId));
@@ -53,7 +67,10 @@ export class TeamMaterials {
   async list(teamId: string) {
     const { rows } = await this.load(teamId);
     const ids = new Set(rows.map((r) => r.id));
-    return [...rows, ...MATERIALS.filter((m) => !ids.has(m.id)).map((m) => ({ ...m, origin: 'library' as const }))];
+    return [
+      ...rows,
+      ...MATERIALS.filter((m) => !ids.has(m.id)).map((m) => ({ ...m, origin: 'library' as const })),
+    ];
   }
 
   invalidate(teamId: string) {
@@ -92,18 +109,36 @@ const materialColumns = z.object({
   spec: text(TEXT_LIMITS.id, { min: 1 }),
   grade: text(TEXT_LIMITS.id, { min: 1 }),
   name: text(TEXT_LIMITS.name).optional(),
-  category: z.enum(['carbon', 'low-temp-carbon', 'cr-mo', 'austenitic', 'other']).optional().default('other'),
-  yfamily: z.enum(['ferritic', 'austenitic', 'nickel', 'gray-iron', 'other']).optional().default('ferritic'),
-  wfamily: z.enum(['carbon', 'cr-mo', 'csef', 'austenitic', 'nickel', 'none']).optional().default('carbon'),
-  modulusgroup: z.enum(['carbon', 'cr-mo-low', 'cr-mo-2-1/4', 'cr-mo-5-9', 'austenitic']).optional().default('carbon'),
+  category: z
+    .enum(['carbon', 'low-temp-carbon', 'cr-mo', 'austenitic', 'other'])
+    .optional()
+    .default('other'),
+  yfamily: z
+    .enum(['ferritic', 'austenitic', 'nickel', 'gray-iron', 'other'])
+    .optional()
+    .default('ferritic'),
+  wfamily: z
+    .enum(['carbon', 'cr-mo', 'csef', 'austenitic', 'nickel', 'none'])
+    .optional()
+    .default('carbon'),
+  modulusgroup: z
+    .enum(['carbon', 'cr-mo-low', 'cr-mo-2-1/4', 'cr-mo-5-9', 'austenitic'])
+    .optional()
+    .default('carbon'),
   productforms: z
     .string()
     .optional()
     .transform((s, ctx) => {
-      const forms = (s ?? 'seamless').split(/[;|]/).map((f) => f.trim()).filter(Boolean);
+      const forms = (s ?? 'seamless')
+        .split(/[;|]/)
+        .map((f) => f.trim())
+        .filter(Boolean);
       const bad = forms.find((f) => !(PRODUCT_FORMS as readonly string[]).includes(f));
       if (bad) {
-        ctx.addIssue({ code: 'custom', message: `unknown product form "${bad}" (use ${PRODUCT_FORMS.join(', ')}; separate with ;)` });
+        ctx.addIssue({
+          code: 'custom',
+          message: `unknown product form "${bad}" (use ${PRODUCT_FORMS.join(', ')}; separate with ;)`,
+        });
         return z.NEVER;
       }
       return forms as Material['productForms'];
@@ -113,17 +148,31 @@ const materialColumns = z.object({
 });
 const pointColumns = z.object({
   tempf: num('temp_f').refine((v) => v >= -459 && v <= 2000, 'must be a temperature in °F'),
-  stressksi: num('stress_ksi').refine((v) => v > 0 && v < 200, 'must be an allowable stress in ksi'),
-  yieldatksi: num('yield_at_ksi').refine((v) => v > 0 && v < 300, 'must be a yield strength in ksi').optional(),
+  stressksi: num('stress_ksi').refine(
+    (v) => v > 0 && v < 200,
+    'must be an allowable stress in ksi',
+  ),
+  yieldatksi: num('yield_at_ksi')
+    .refine((v) => v > 0 && v < 300, 'must be a yield strength in ksi')
+    .optional(),
   frommemory: z
     .string()
     .transform((s) => s.toLowerCase())
-    .pipe(z.enum(['yes', 'no', 'true', 'false', '1', '0', 'y', 'n'], { error: 'from_memory must be yes or no' }))
+    .pipe(
+      z.enum(['yes', 'no', 'true', 'false', '1', '0', 'y', 'n'], {
+        error: 'from_memory must be yes or no',
+      }),
+    )
     .transform((s) => ['yes', 'true', '1', 'y'].includes(s))
     .optional(),
 });
 
-const issue = (line: number, column: string | null, message: string): CsvIssue => ({ line, column, path: column ? `line ${line}: ${column}` : `line ${line}`, message });
+const issue = (line: number, column: string | null, message: string): CsvIssue => ({
+  line,
+  column,
+  path: column ? `line ${line}: ${column}` : `line ${line}`,
+  message,
+});
 const ksi = (v: number) => Math.round(v * 1000);
 
 /**
@@ -132,7 +181,11 @@ const ksi = (v: number) => Math.round(v * 1000);
  * product_forms, yield_at_ksi, from_memory` (yes/no: the row's values were recalled, not read
  * from the source)). Material columns are read from each id's first row.
  */
-export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvRow[], sourceNote: string): { materials: Material[]; issues: CsvIssue[] } {
+export function readMaterialsCsv(
+  headers: readonly string[],
+  rows: readonly CsvRow[],
+  sourceNote: string,
+): { materials: Material[]; issues: CsvIssue[] } {
   const issues: CsvIssue[] = [];
   const colOf = new Map<string, string>();
   for (const h of headers) {
@@ -140,7 +193,8 @@ export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvR
     if ((COLUMNS as readonly string[]).includes(k)) colOf.set(k, h);
     else issues.push(issue(1, h, `unknown column (use ${COLUMNS.join(', ')})`));
   }
-  for (const r of REQUIRED) if (!colOf.has(r)) issues.push(issue(1, r, 'required column is missing'));
+  for (const r of REQUIRED)
+    if (!colOf.has(r)) issues.push(issue(1, r, 'required column is missing'));
   if (rows.length === 0) issues.push(issue(2, null, 'the file has no data rows'));
   if (issues.length > 0) return { materials: [], issues };
 
@@ -166,26 +220,68 @@ export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvR
   }
   const materials: Material[] = [];
   for (const [id, g] of byId) {
-    const pick = (ks: readonly string[]) => Object.fromEntries(ks.map((k) => [k, get(g.first, k)]).filter(([, v]) => v !== undefined));
-    const head = materialColumns.safeParse(pick(['spec', 'grade', 'name', 'category', 'yfamily', 'wfamily', 'modulusgroup', 'productforms', 'tensileksi', 'yieldksi']));
-    if (!head.success) for (const iss of head.error.issues) issues.push(issue(g.first.line, colOf.get(String(iss.path[0] ?? '')) ?? String(iss.path[0] ?? ''), iss.message));
+    const pick = (ks: readonly string[]) =>
+      Object.fromEntries(ks.map((k) => [k, get(g.first, k)]).filter(([, v]) => v !== undefined));
+    const head = materialColumns.safeParse(
+      pick([
+        'spec',
+        'grade',
+        'name',
+        'category',
+        'yfamily',
+        'wfamily',
+        'modulusgroup',
+        'productforms',
+        'tensileksi',
+        'yieldksi',
+      ]),
+    );
+    if (!head.success)
+      for (const iss of head.error.issues)
+        issues.push(
+          issue(
+            g.first.line,
+            colOf.get(String(iss.path[0] ?? '')) ?? String(iss.path[0] ?? ''),
+            iss.message,
+          ),
+        );
     const stress: Material['stress'] = [];
     const yieldPts: NonNullable<Material['yield']> = [];
     const seen = new Set<number>();
     for (const row of g.rows) {
-      const p = pointColumns.safeParse(Object.fromEntries(['tempf', 'stressksi', 'yieldatksi', 'frommemory'].map((k) => [k, get(row, k)]).filter(([, v]) => v !== undefined)));
+      const p = pointColumns.safeParse(
+        Object.fromEntries(
+          ['tempf', 'stressksi', 'yieldatksi', 'frommemory']
+            .map((k) => [k, get(row, k)])
+            .filter(([, v]) => v !== undefined),
+        ),
+      );
       if (!p.success) {
-        for (const iss of p.error.issues) issues.push(issue(row.line, colOf.get(String(iss.path[0] ?? '')) ?? String(iss.path[0] ?? ''), iss.message));
+        for (const iss of p.error.issues)
+          issues.push(
+            issue(
+              row.line,
+              colOf.get(String(iss.path[0] ?? '')) ?? String(iss.path[0] ?? ''),
+              iss.message,
+            ),
+          );
         continue;
       }
       if (seen.has(p.data.tempf)) {
-        issues.push(issue(row.line, colOf.get('tempf') ?? 'temp_f', `temperature ${p.data.tempf} °F appears twice for ${id}`));
+        issues.push(
+          issue(
+            row.line,
+            colOf.get('tempf') ?? 'temp_f',
+            `temperature ${p.data.tempf} °F appears twice for ${id}`,
+          ),
+        );
         continue;
       }
       seen.add(p.data.tempf);
       const flag = p.data.frommemory ? { fromMemory: true as const } : {};
       stress.push({ tempF: p.data.tempf, value: ksi(p.data.stressksi), ...flag });
-      if (p.data.yieldatksi !== undefined) yieldPts.push({ tempF: p.data.tempf, value: ksi(p.data.yieldatksi), ...flag });
+      if (p.data.yieldatksi !== undefined)
+        yieldPts.push({ tempF: p.data.tempf, value: ksi(p.data.yieldatksi), ...flag });
     }
     if (!head.success) continue;
     stress.sort((a, b) => a.tempF - b.tempF);
@@ -206,7 +302,9 @@ export function readMaterialsCsv(headers: readonly string[], rows: readonly CsvR
       stress,
       ...(yieldPts.length > 0 ? { yield: yieldPts } : {}),
       source: `Team materials upload: ${sourceNote}`,
-      notes: [`Uploaded by the team with the source note "${sourceNote}"; verify against that source.`],
+      notes: [
+        `Uploaded by the team with the source note "${sourceNote}"; verify against that source.`,
+      ],
     });
   }
   return { materials, issues };

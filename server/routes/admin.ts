@@ -15,10 +15,22 @@ import { parseBody } from '../validation';
 export function adminRouter(deps: { db: Db; mailer: Mailer }) {
   const r = Router();
   r.get('/outbox', requirePermission('outbox:read'), async (req, res) => {
-    if (deps.mailer.kind !== 'outbox') throw notFound('Mail goes to an SMTP server; there is no outbox');
-    const q = parseBody(z.object({ limit: z.coerce.number().int().min(1).max(500).optional().default(50) }), req.query, ['query']);
+    if (deps.mailer.kind !== 'outbox')
+      throw notFound('Mail goes to an SMTP server; there is no outbox');
+    const q = parseBody(
+      z.object({ limit: z.coerce.number().int().min(1).max(500).optional().default(50) }),
+      req.query,
+      ['query'],
+    );
     const rows = await deps.db
-      .select({ id: outbox.id, to: outbox.to, from: outbox.from, subject: outbox.subject, text: outbox.text, createdAt: outbox.createdAt })
+      .select({
+        id: outbox.id,
+        to: outbox.to,
+        from: outbox.from,
+        subject: outbox.subject,
+        text: outbox.text,
+        createdAt: outbox.createdAt,
+      })
       .from(outbox)
       .where(eq(outbox.teamId, getTeamId(res)))
       .orderBy(desc(outbox.id))

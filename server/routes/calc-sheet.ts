@@ -16,13 +16,19 @@ const querySchema = z.object({
   revision: z
     .string()
     .optional()
-    .refine((s) => s === undefined || /^\d{1,9}$/.test(s), { message: 'must be a whole revision number (0, 1, 2 …)' })
+    .refine((s) => s === undefined || /^\d{1,9}$/.test(s), {
+      message: 'must be a whole revision number (0, 1, 2 …)',
+    })
     .transform((s) => (s === undefined ? undefined : Number(s))),
 });
 
 /** A file name from the spool name and revision: "CW-101-01-rev2-calc-sheet.pdf". */
 export function calcSheetFileName(name: string, revision: number): string {
-  const base = name.replace(/[^\w.-]+/g, '-').replace(/^-+|-+$/g, '').slice(0, 80) || 'spool';
+  const base =
+    name
+      .replace(/[^\w.-]+/g, '-')
+      .replace(/^-+|-+$/g, '')
+      .slice(0, 80) || 'spool';
   return `${base}-rev${revision}-calc-sheet.pdf`;
 }
 
@@ -86,7 +92,10 @@ export function publicCalcSheetRouter(deps: { db: Db; materials: TeamMaterials }
   const r = Router();
   r.get('/:token/calc-sheet.pdf', async (req, res) => {
     const row = await findActiveShare(deps.db, String(req.params.token));
-    const check = omitSourceNotes(runCheck(row.document, await deps.materials.finder(row.teamId)), await teamSourceNotes(deps.materials, row.teamId));
+    const check = omitSourceNotes(
+      runCheck(row.document, await deps.materials.finder(row.teamId)),
+      await teamSourceNotes(deps.materials, row.teamId),
+    );
     const sheet = buildCalcSheet({
       team: null,
       revision: row.revision,
@@ -94,7 +103,8 @@ export function publicCalcSheetRouter(deps: { db: Db; materials: TeamMaterials }
       document: row.document,
       check,
       history: [],
-      historyNote: 'A shared copy does not include the history of the revision; ask the spool\'s team for the filed record.',
+      historyNote:
+        "A shared copy does not include the history of the revision; ask the spool's team for the filed record.",
       generatedAt: new Date().toISOString(),
       origin: `shared read-only link, created ${formatUtc(row.createdAt.toISOString())}, expires ${formatUtc(row.expiresAt.toISOString())}`,
     });

@@ -12,19 +12,33 @@ const INLINE_BYTES = 8 * 1024;
 export function checkRouter(deps: { materials: TeamMaterials; checks: CheckPool }) {
   const r = Router();
   // The raw body goes to the check pool, which parses, validates, checks and serialises it.
-  r.post('/', requireSignedIn, express.raw({ type: () => true, limit: '2mb' }), async (req, res) => {
-    const raw = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
-    const text = raw.toString('utf8');
-    if (text.trim() === '') throw validationError([{ path: '(document)', message: 'is required' }]);
-    const materials = await deps.materials.ref(getContext(res).team?.id);
-    let bytes: Uint8Array;
-    if (raw.length <= INLINE_BYTES) {
-      const out = await runCheckTask({ kind: 'check-json', text, materials });
-      if (out.kind === 'invalid') throw new HttpError(out.status, out.status === 400 ? 'bad_request' : 'validation', out.message, out.issues);
-      if (out.kind !== 'json') throw new Error('unexpected check answer');
-      bytes = out.bytes;
-    } else bytes = await deps.checks.checkJson(text, materials);
-    res.type('application/json').send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
-  });
+  r.post(
+    '/',
+    requireSignedIn,
+    express.raw({ type: () => true, limit: '2mb' }),
+    async (req, res) => {
+      const raw = Buffer.isBuffer(req.body) ? req.body : Buffer.alloc(0);
+      const text = raw.toString('utf8');
+      if (text.trim() === '')
+        throw validationError([{ path: '(document)', message: 'is required' }]);
+      const materials = await deps.materials.ref(getContext(res).team?.id);
+      let bytes: Uint8Array;
+      if (raw.length <= INLINE_BYTES) {
+        const out = await runCheckTask({ kind: 'check-json', text, materials });
+        if (out.kind === 'invalid')
+          throw new HttpError(
+            out.status,
+            out.status === 400 ? 'bad_request' : 'validation',
+            out.message,
+            out.issues,
+          );
+        if (out.kind !== 'json') throw new Error('unexpected check answer');
+        bytes = out.bytes;
+      } else bytes = await deps.checks.checkJson(text, materials);
+      res
+        .type('application/json')
+        .send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+    },
+  );
   return r;
 }

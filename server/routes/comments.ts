@@ -38,7 +38,11 @@ export function commentsRouter(deps: { db: Db }) {
       .from(spoolComments)
       .leftJoin(author, eq(author.id, spoolComments.userId))
       .leftJoin(resolver, eq(resolver.id, spoolComments.resolvedBy))
-      .where(commentId === undefined ? eq(spoolComments.spoolId, spoolId) : and(eq(spoolComments.spoolId, spoolId), eq(spoolComments.id, commentId)))
+      .where(
+        commentId === undefined
+          ? eq(spoolComments.spoolId, spoolId)
+          : and(eq(spoolComments.spoolId, spoolId), eq(spoolComments.id, commentId)),
+      )
       .orderBy(asc(spoolComments.id));
     return rows.map((x) => ({
       id: x.c.id,
@@ -52,7 +56,8 @@ export function commentsRouter(deps: { db: Db }) {
     }));
   }
 
-  const spoolId = (params: unknown) => textParam((params as { id?: unknown }).id, 'Spool not found', 100);
+  const spoolId = (params: unknown) =>
+    textParam((params as { id?: unknown }).id, 'Spool not found', 100);
 
   r.get('/', requirePermission('spool:view'), async (req, res) => {
     const id = spoolId(req.params);
@@ -67,13 +72,30 @@ export function commentsRouter(deps: { db: Db }) {
     const spool = await getSpool(db, teamId, id);
     if (!spool) throw notFound('Spool not found');
     const rev = await getRevision(db, teamId, id, body.revision ?? spool.revision);
-    if (!rev) throw validationError([{ path: 'revision', message: `spool has no revision ${body.revision ?? ''}` }]);
-    if (body.elementId !== undefined && !rev.document.elements.some((e) => e.id === body.elementId)) {
-      throw validationError([{ path: 'elementId', message: `no element "${body.elementId}" in revision ${rev.revision}` }]);
+    if (!rev)
+      throw validationError([
+        { path: 'revision', message: `spool has no revision ${body.revision ?? ''}` },
+      ]);
+    if (
+      body.elementId !== undefined &&
+      !rev.document.elements.some((e) => e.id === body.elementId)
+    ) {
+      throw validationError([
+        {
+          path: 'elementId',
+          message: `no element "${body.elementId}" in revision ${rev.revision}`,
+        },
+      ]);
     }
     const [row] = await db
       .insert(spoolComments)
-      .values({ spoolId: id, revision: rev.revision, elementId: body.elementId ?? null, body: body.body, userId: getContext(res).user.id })
+      .values({
+        spoolId: id,
+        revision: rev.revision,
+        elementId: body.elementId ?? null,
+        body: body.body,
+        userId: getContext(res).user.id,
+      })
       .returning({ id: spoolComments.id });
     const [out] = await readComments(id, row!.id);
     res.status(201).json(out);
@@ -86,7 +108,11 @@ export function commentsRouter(deps: { db: Db }) {
     if (!(await getSpool(db, getTeamId(res), id))) throw notFound('Spool not found');
     const done = await db
       .update(spoolComments)
-      .set(body.resolved ? { resolvedAt: new Date(), resolvedBy: getContext(res).user.id } : { resolvedAt: null, resolvedBy: null })
+      .set(
+        body.resolved
+          ? { resolvedAt: new Date(), resolvedBy: getContext(res).user.id }
+          : { resolvedAt: null, resolvedBy: null },
+      )
       .where(and(eq(spoolComments.id, cid), eq(spoolComments.spoolId, id)))
       .returning({ id: spoolComments.id });
     if (done.length === 0) throw notFound('Comment not found');

@@ -14,7 +14,11 @@ const tokenSchema = z.object({ token: acceptInvitationSchema.shape.token });
  * Public invitation routes (no session): the accept page reads what the invitation is for,
  * then posts the chosen password. The token travels in the body, never in a URL the server logs.
  */
-export function invitationsRouter(deps: { db: Db; memberships: MembershipCache; rateLimit: boolean }) {
+export function invitationsRouter(deps: {
+  db: Db;
+  memberships: MembershipCache;
+  rateLimit: boolean;
+}) {
   const r = Router();
   const limit: RequestHandler = deps.rateLimit
     ? rateLimit({
@@ -22,7 +26,8 @@ export function invitationsRouter(deps: { db: Db; memberships: MembershipCache; 
         limit: 20,
         standardHeaders: 'draft-8',
         legacyHeaders: false,
-        handler: (_req, _res, next) => next(new HttpError(429, 'bad_request', 'Too many attempts; wait a minute and try again')),
+        handler: (_req, _res, next) =>
+          next(new HttpError(429, 'bad_request', 'Too many attempts; wait a minute and try again')),
       })
     : (_req, _res, next) => next();
 

@@ -7,7 +7,12 @@ export function meRouter() {
   const r = Router();
   r.get('/', requireSignedIn, (_req, res) => {
     const ctx = getContext(res);
-    res.json({ user: ctx.user, team: ctx.team, role: ctx.role, permissions: listPermissions(ctx.role) });
+    res.json({
+      user: ctx.user,
+      team: ctx.team,
+      role: ctx.role,
+      permissions: listPermissions(ctx.role),
+    });
   });
   return r;
 }

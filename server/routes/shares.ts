@@ -52,7 +52,12 @@ function toShare(r: ShareRow, by: { id: string | null; name: string | null }) {
 }
 
 /** Share links of a spool: /api/spools/:id/shares (lead, admin). */
-export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: TeamMaterials; checks: CheckPool }) {
+export function spoolSharesRouter(deps: {
+  db: Db;
+  publicUrl: string;
+  materials: TeamMaterials;
+  checks: CheckPool;
+}) {
   const { db } = deps;
   const r = Router({ mergeParams: true });
 
@@ -80,7 +85,11 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: 
     const ctx = getContext(res);
     // The shared revision is frozen, so its check is made once, here, and served as stored
     // (without the team's material source notes).
-    const checkGz = await deps.checks.checkDocumentGz(rev.document, await deps.materials.ref(teamId), await teamSourceNotes(deps.materials, teamId));
+    const checkGz = await deps.checks.checkDocumentGz(
+      rev.document,
+      await deps.materials.ref(teamId),
+      await teamSourceNotes(deps.materials, teamId),
+    );
     const { token, hash } = newShareToken();
     const [row] = await db
       .insert(shareLinks)
@@ -101,15 +110,32 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: 
       })
       .returning(shareListColumns);
     // The only time the token is shown: it is not stored, only its hash.
-    res.status(201).json({ ...toShare(row!, { id: ctx.user.id, name: ctx.user.name }), token, url: `${deps.publicUrl}/share/${token}` });
+    res.status(201).json({
+      ...toShare(row!, { id: ctx.user.id, name: ctx.user.name }),
+      token,
+      url: `${deps.publicUrl}/share/${token}`,
+    });
   });
 
   r.delete('/:shareId', requirePermission('share:manage'), async (req, res) => {
-    const params = { id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100), shareId: textParam((req.params as { shareId?: unknown }).shareId, 'Share link not found', 100) };
+    const params = {
+      id: textParam((req.params as { id?: unknown }).id, 'Spool not found', 100),
+      shareId: textParam(
+        (req.params as { shareId?: unknown }).shareId,
+        'Share link not found',
+        100,
+      ),
+    };
     const out = await db
       .update(shareLinks)
       .set({ revokedAt: new Date() })
-      .where(and(eq(shareLinks.id, params.shareId), eq(shareLinks.spoolId, params.id), eq(shareLinks.teamId, getTeamId(res))))
+      .where(
+        and(
+          eq(shareLinks.id, params.shareId),
+          eq(shareLinks.spoolId, params.id),
+          eq(shareLinks.teamId, getTeamId(res)),
+        ),
+      )
       .returning({ id: shareLinks.id });
     if (out.length === 0) throw notFound('Share link not found');
     res.status(204).end();
@@ -119,7 +145,10 @@ export function spoolSharesRouter(deps: { db: Db; publicUrl: string; materials: 
 }
 
 /** The share link of a public token: 404 when unknown, 410 when revoked or expired. */
-export async function findActiveShare(db: Db, token: string): Promise<typeof shareLinks.$inferSelect> {
+export async function findActiveShare(
+  db: Db,
+  token: string,
+): Promise<typeof shareLinks.$inferSelect> {
   if (token.length > 100) throw notFound('Share link not found');
   // Only the token's hash is stored; a deleted spool's links are revoked with it.
   const [found] = await db
@@ -130,8 +159,10 @@ export async function findActiveShare(db: Db, token: string): Promise<typeof sha
     .limit(1);
   if (!found) throw notFound('Share link not found');
   const row = found.row;
-  if (row.revokedAt || found.spoolDeletedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
-  if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
+  if (row.revokedAt || found.spoolDeletedAt)
+    throw new HttpError(410, 'gone', 'This share link was revoked');
+  if (row.expiresAt.getTime() <= Date.now())
+    throw new HttpError(410, 'gone', 'This share link has expired');
   return row;
 }
 
@@ -169,21 +200,52 @@ export function publicShareRouter(deps: { db: Db; materials: TeamMaterials; chec
       .where(eq(shareLinks.tokenHash, hashShareToken(token)))
       .limit(1);
     if (!row) throw notFound('Share link not found');
-    if (row.revokedAt || row.spoolDeletedAt) throw new HttpError(410, 'gone', 'This share link was revoked');
-    if (row.expiresAt.getTime() <= Date.now()) throw new HttpError(410, 'gone', 'This share link has expired');
+    if (row.revokedAt || row.spoolDeletedAt)
+      throw new HttpError(410, 'gone', 'This share link was revoked');
+    if (row.expiresAt.getTime() <= Date.now())
+      throw new HttpError(410, 'gone', 'This share link has expired');
     let check: Uint8Array | string | null = row.checkB64;
     if (check === null) {
       // A link made before checks were stored: check once in the pool and keep the result.
-      const [full] = await deps.db.select({ document: shareLinks.document }).from(shareLinks).where(eq(shareLinks.id, row.id)).limit(1);
-      check = await deps.checks.checkDocumentGz(full!.document, await deps.materials.ref(row.teamId), await teamSourceNotes(deps.materials, row.teamId));
+      const [full] = await deps.db
+        .select({ document: shareLinks.document })
+        .from(shareLinks)
+        .where(eq(shareLinks.id, row.id))
+        .limit(1);
+      check = await deps.checks.checkDocumentGz(
+        full!.document,
+        await deps.materials.ref(row.teamId),
+        await teamSourceNotes(deps.materials, row.teamId),
+      );
       await deps.db.update(shareLinks).set({ checkGz: check }).where(eq(shareLinks.id, row.id));
     }
-    const meta = JSON.stringify({ name: row.name, line: row.line, revision: row.revision, status: row.status });
+    const meta = JSON.stringify({
+      name: row.name,
+      line: row.line,
+      revision: row.revision,
+      status: row.status,
+    });
     // The name of who made the link (no e-mail, no other team data).
-    const [by] = row.createdBy ? await deps.db.select({ name: user.name }).from(user).where(eq(user.id, row.createdBy)).limit(1) : [];
-    const tail = JSON.stringify({ sharedAt: row.createdAt.toISOString(), expiresAt: row.expiresAt.toISOString(), sharedBy: by?.name ?? null });
-    const bytes = await deps.checks.shareView(`{"spool":${meta.slice(0, -1)},"document":${row.documentJson}},"check":`, check, `,${tail.slice(1)}`);
-    res.type('application/json').send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
+    const [by] = row.createdBy
+      ? await deps.db
+          .select({ name: user.name })
+          .from(user)
+          .where(eq(user.id, row.createdBy))
+          .limit(1)
+      : [];
+    const tail = JSON.stringify({
+      sharedAt: row.createdAt.toISOString(),
+      expiresAt: row.expiresAt.toISOString(),
+      sharedBy: by?.name ?? null,
+    });
+    const bytes = await deps.checks.shareView(
+      `{"spool":${meta.slice(0, -1)},"document":${row.documentJson}},"check":`,
+      check,
+      `,${tail.slice(1)}`,
+    );
+    res
+      .type('application/json')
+      .send(Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength));
   });
   return r;
 }

@@ -12,7 +12,14 @@ import { sendQuietly, type Mailer } from '../mail/mailer';
 import type { Logger } from '../logger';
 import { intParam, parseBody, parseDocument, textParam } from '../validation';
 import { int, ownKeyOf, text } from '../../shared/model/fields';
-import { can, findTransition, SPOOL_STATUSES, type Action, type Role, type SpoolStatus } from '../../shared/model/permissions';
+import {
+  can,
+  findTransition,
+  SPOOL_STATUSES,
+  type Action,
+  type Role,
+  type SpoolStatus,
+} from '../../shared/model/permissions';
 import type { CheckPool } from '../checks/pool';
 import type { SpoolDocument } from '../../shared/model/spool';
 import {
@@ -39,16 +46,25 @@ const listQuerySchema = z.object({
     .optional()
     .transform((s, ctx) => {
       if (!s) return undefined;
-      const parts = s.split(',').map((p) => p.trim()).filter(Boolean);
+      const parts = s
+        .split(',')
+        .map((p) => p.trim())
+        .filter(Boolean);
       const bad = parts.find((p) => !(SPOOL_STATUSES as readonly string[]).includes(p));
       if (bad !== undefined) {
-        ctx.addIssue({ code: 'custom', message: `unknown status "${bad}" (use ${SPOOL_STATUSES.join(', ')})` });
+        ctx.addIssue({
+          code: 'custom',
+          message: `unknown status "${bad}" (use ${SPOOL_STATUSES.join(', ')})`,
+        });
         return z.NEVER;
       }
       return parts as SpoolStatus[];
     }),
   // Own keys only: `__proto__`, `toString` and other inherited names are not sorts.
-  sort: ownKeyOf(SORTS).optional().default('-updatedAt') as z.ZodType<SpoolSort, string | undefined>,
+  sort: ownKeyOf(SORTS).optional().default('-updatedAt') as z.ZodType<
+    SpoolSort,
+    string | undefined
+  >,
   page: z.coerce.number().int().min(1).max(100_000).optional().default(1),
   pageSize: z.coerce.number().int().min(1).max(500).optional().default(50),
 });
@@ -80,15 +96,22 @@ const NEXT_ROLES: Partial<Record<SpoolStatus, Role[]>> = {
   released: ['fabricator'],
 };
 
-
 const idParam = (raw: unknown): string => textParam(raw, 'Spool not found', 100);
 
-export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; publicUrl: string; materials: TeamMaterials; checks: CheckPool }) {
+export function spoolsRouter(deps: {
+  db: Db;
+  mailer: Mailer;
+  logger: Logger;
+  publicUrl: string;
+  materials: TeamMaterials;
+  checks: CheckPool;
+}) {
   const { db, mailer, logger } = deps;
   const r = Router();
 
   /** Check with the team's materials and keep what the list shows. */
-  const checkDocument = async (teamId: string, doc: SpoolDocument) => (await deps.checks.summaries([doc], await deps.materials.ref(teamId)))[0]!;
+  const checkDocument = async (teamId: string, doc: SpoolDocument) =>
+    (await deps.checks.summaries([doc], await deps.materials.ref(teamId)))[0]!;
 
   r.get('/', requirePermission('spool:view'), async (req, res) => {
     const q = parseBody(listQuerySchema, req.query, ['query']);
@@ -100,8 +123,16 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const document = parseDocument(body.document, ['document']);
     const ctx = getContext(res);
     const teamId = getTeamId(res);
-    const id = await insertSpool(db, { teamId, userId: ctx.user.id, document, checkSummary: await checkDocument(teamId, document) });
-    res.status(201).location(`/api/spools/${id}`).json(await getSpool(db, teamId, id));
+    const id = await insertSpool(db, {
+      teamId,
+      userId: ctx.user.id,
+      document,
+      checkSummary: await checkDocument(teamId, document),
+    });
+    res
+      .status(201)
+      .location(`/api/spools/${id}`)
+      .json(await getSpool(db, teamId, id));
   });
 
   // Dry run of the line-list CSV: the spools it would create and every bad cell by line and column. Never writes.
@@ -109,17 +140,37 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const text = String(res.locals.csv ?? '');
     if (countCsvRows(text, LINE_LIST_MAX_ROWS) > LINE_LIST_MAX_ROWS) {
       throw validationError(
-        [{ path: 'file', message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows` }],
+        [
+          {
+            path: 'file',
+            message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows`,
+          },
+        ],
         `A line list may hold at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows per import`,
       );
     }
     const csv = parseCsv(text);
     if (csv.errors.length > 0) {
-      res.json({ ok: false, issues: csv.errors.map((e) => ({ path: `line ${e.line}`, line: e.line, column: null, message: e.message })), items: [] });
+      res.json({
+        ok: false,
+        issues: csv.errors.map((e) => ({
+          path: `line ${e.line}`,
+          line: e.line,
+          column: null,
+          message: e.message,
+        })),
+        items: [],
+      });
       return;
     }
     const { docs, lines, issues } = await readLineList(csv.headers, csv.rows);
-    const items = docs.map((document, i) => ({ line: lines[i] ?? null, name: document.name, pipeLine: document.line ?? '', units: document.units, conditions: document.conditions }));
+    const items = docs.map((document, i) => ({
+      line: lines[i] ?? null,
+      name: document.name,
+      pipeLine: document.line ?? '',
+      units: document.units,
+      conditions: document.conditions,
+    }));
     res.json({ ok: issues.length === 0, issues, items, rows: csv.rows.length });
   });
 
@@ -131,16 +182,26 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const rowCount = countCsvRows(text, LINE_LIST_MAX_ROWS);
     if (rowCount > LINE_LIST_MAX_ROWS) {
       throw validationError(
-        [{ path: 'file', message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows` }],
+        [
+          {
+            path: 'file',
+            message: `has more than ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} data rows; split it into files of at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows`,
+          },
+        ],
         `A line list may hold at most ${LINE_LIST_MAX_ROWS.toLocaleString('en-US')} rows per import; nothing was imported`,
       );
     }
     const teamId = getTeamId(res);
     const userId = getContext(res).user.id;
     // Parsing, validating and checking the rows happen in the check pool.
-    const { documents: docs, summaries } = await deps.checks.lineList(text, await deps.materials.ref(teamId));
+    const { documents: docs, summaries } = await deps.checks.lineList(
+      text,
+      await deps.materials.ref(teamId),
+    );
     const items = docs.map((document, i) => ({ document, checkSummary: summaries[i] ?? null }));
-    const ids = await db.transaction((tx) => insertSpools(tx as unknown as Db, { teamId, userId, items }, 25));
+    const ids = await db.transaction((tx) =>
+      insertSpools(tx as unknown as Db, { teamId, userId, items }, 25),
+    );
     res.status(201).json({ created: ids.length, items: await getSpools(db, teamId, ids, 50) });
   });
 
@@ -167,7 +228,12 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     if (out.kind === 'conflict') {
       const current = await getSpool(db, teamId, id);
       if (!current) throw notFound('Spool not found');
-      throw new HttpError(409, 'conflict', `Someone saved this spool since you loaded it (now version ${current.version})`, { current });
+      throw new HttpError(
+        409,
+        'conflict',
+        `Someone saved this spool since you loaded it (now version ${current.version})`,
+        { current },
+      );
     }
     res.json(await getSpool(db, teamId, id));
   });
@@ -178,7 +244,16 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const ok = await softDeleteSpool(db, teamId, id, getContext(res).user.id);
     if (!ok) throw notFound('Spool not found');
     // Its share links stop working with it.
-    await db.update(shareLinks).set({ revokedAt: new Date() }).where(and(eq(shareLinks.spoolId, id), eq(shareLinks.teamId, teamId), isNull(shareLinks.revokedAt)));
+    await db
+      .update(shareLinks)
+      .set({ revokedAt: new Date() })
+      .where(
+        and(
+          eq(shareLinks.spoolId, id),
+          eq(shareLinks.teamId, teamId),
+          isNull(shareLinks.revokedAt),
+        ),
+      );
     res.status(204).end();
   });
 
@@ -186,19 +261,35 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     const id = idParam(req.params.id);
     const body = parseBody(transitionBodySchema, req.body ?? {});
     const ctx = getContext(res);
-    if (!can(ctx.role, ACTION_FOR_TARGET[body.to])) throw forbidden(`Your role (${ctx.role ?? 'none'}) cannot move a spool to ${body.to}`);
+    if (!can(ctx.role, ACTION_FOR_TARGET[body.to]))
+      throw forbidden(`Your role (${ctx.role ?? 'none'}) cannot move a spool to ${body.to}`);
     const teamId = getTeamId(res);
     if (body.to === 'checked') {
       // A spool is not checked while a comment of the revision under check is still open.
       const before = await getSpool(db, teamId, id);
       if (!before) throw notFound('Spool not found');
       const open = await db
-        .select({ id: spoolComments.id, elementId: spoolComments.elementId, body: spoolComments.body })
+        .select({
+          id: spoolComments.id,
+          elementId: spoolComments.elementId,
+          body: spoolComments.body,
+        })
         .from(spoolComments)
-        .where(and(eq(spoolComments.spoolId, id), eq(spoolComments.revision, before.revision), isNull(spoolComments.resolvedAt)))
+        .where(
+          and(
+            eq(spoolComments.spoolId, id),
+            eq(spoolComments.revision, before.revision),
+            isNull(spoolComments.resolvedAt),
+          ),
+        )
         .orderBy(asc(spoolComments.id));
       if (open.length > 0) {
-        const where = open.map((c) => `${c.elementId ?? 'spool'} (“${c.body.length > 40 ? `${c.body.slice(0, 40)}…` : c.body}”)`).join(', ');
+        const where = open
+          .map(
+            (c) =>
+              `${c.elementId ?? 'spool'} (“${c.body.length > 40 ? `${c.body.slice(0, 40)}…` : c.body}”)`,
+          )
+          .join(', ');
         throw new HttpError(
           409,
           'open_comments',
@@ -218,21 +309,48 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
     });
     if (out.kind === 'not_found') throw notFound('Spool not found');
     if (out.kind === 'conflict') {
-      throw new HttpError(409, 'conflict', 'Someone changed this spool since you loaded it', { current: await getSpool(db, teamId, id) });
+      throw new HttpError(409, 'conflict', 'Someone changed this spool since you loaded it', {
+        current: await getSpool(db, teamId, id),
+      });
     }
     if (out.kind === 'invalid') {
-      throw new HttpError(409, 'invalid_transition', `A ${out.from} spool cannot move to ${body.to}`, { from: out.from, to: body.to });
+      throw new HttpError(
+        409,
+        'invalid_transition',
+        `A ${out.from} spool cannot move to ${body.to}`,
+        { from: out.from, to: body.to },
+      );
     }
     if (out.kind === 'check_failed') {
-      throw new HttpError(409, 'check_failed', 'A spool with failing or invalid elements cannot be released', { summary: out.summary });
+      throw new HttpError(
+        409,
+        'check_failed',
+        'A spool with failing or invalid elements cannot be released',
+        { summary: out.summary },
+      );
     }
     if (body.to === 'draft' && body.note) {
       // The reason for a return is the first comment the designer reads on the revision.
-      await db.insert(spoolComments).values({ spoolId: id, revision: out.revision, elementId: null, body: body.note, userId: ctx.user.id });
+      await db.insert(spoolComments).values({
+        spoolId: id,
+        revision: out.revision,
+        elementId: null,
+        body: body.note,
+        userId: ctx.user.id,
+      });
     }
     const spool = await getSpool(db, teamId, id);
     if (!spool) throw notFound('Spool not found');
-    await notifyTransition({ teamId, spoolName: spool.name, spoolId: id, from: out.from, to: body.to, note: body.note, actor: ctx.user, lastEditors: out.lastEditors });
+    await notifyTransition({
+      teamId,
+      spoolName: spool.name,
+      spoolId: id,
+      from: out.from,
+      to: body.to,
+      note: body.note,
+      actor: ctx.user,
+      lastEditors: out.lastEditors,
+    });
     res.json(spool);
   });
 
@@ -275,7 +393,10 @@ export function spoolsRouter(deps: { db: Db; mailer: Mailer; logger: Logger; pub
         .innerJoin(user, eq(user.id, teamMembers.userId))
         .where(and(eq(teamMembers.teamId, n.teamId), inArray(teamMembers.role, roles)));
     } else if (n.lastEditors.length > 0) {
-      rows = await db.select({ email: user.email, id: user.id }).from(user).where(inArray(user.id, n.lastEditors));
+      rows = await db
+        .select({ email: user.email, id: user.id })
+        .from(user)
+        .where(inArray(user.id, n.lastEditors));
     } else rows = [];
     const to = [...new Set(rows.filter((r) => r.id !== n.actor.id).map((r) => r.email))];
     if (to.length === 0) return;

@@ -35,20 +35,36 @@ const addSchema = z.object({
  * /api/team/members: everyone in the team may list; admins invite, add, re-role and remove.
  * /api/team/invitations: admins list, send and withdraw invitations.
  */
-export function teamRouter(deps: { db: Db; memberships: MembershipCache; sessions: SessionCache; mailer: Mailer; logger: Logger; publicUrl: string }) {
+export function teamRouter(deps: {
+  db: Db;
+  memberships: MembershipCache;
+  sessions: SessionCache;
+  mailer: Mailer;
+  logger: Logger;
+  publicUrl: string;
+}) {
   const { db } = deps;
   const r = Router();
 
   const listMembers = (teamId: string) =>
     db
-      .select({ userId: user.id, email: user.email, name: user.name, role: teamMembers.role, createdAt: teamMembers.createdAt })
+      .select({
+        userId: user.id,
+        email: user.email,
+        name: user.name,
+        role: teamMembers.role,
+        createdAt: teamMembers.createdAt,
+      })
       .from(teamMembers)
       .innerJoin(user, eq(user.id, teamMembers.userId))
       .where(eq(teamMembers.teamId, teamId))
       .orderBy(asc(user.name));
 
   const adminCount = async (teamId: string) => {
-    const [x] = await db.select({ n: count() }).from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, 'admin')));
+    const [x] = await db
+      .select({ n: count() })
+      .from(teamMembers)
+      .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.role, 'admin')));
     return x?.n ?? 0;
   };
 
@@ -67,7 +83,8 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache; session
       .leftJoin(teamMembers, eq(teamMembers.userId, user.id))
       .where(eq(user.email, email))
       .limit(1);
-    if (existing?.teamId) throw new HttpError(409, 'conflict', 'A user with this e-mail already exists');
+    if (existing?.teamId)
+      throw new HttpError(409, 'conflict', 'A user with this e-mail already exists');
     let id: string;
     if (existing) {
       // A former member (removed from a team): join again with the name and password given now.
@@ -82,7 +99,15 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache; session
           .where(and(eq(account.userId, id), eq(account.providerId, 'credential')))
           .returning({ id: account.id });
         if (done.length === 0) {
-          await tx.insert(account).values({ id: randomUUID(), accountId: id, providerId: 'credential', userId: id, password: passwordHash, createdAt: new Date(), updatedAt: new Date() });
+          await tx.insert(account).values({
+            id: randomUUID(),
+            accountId: id,
+            providerId: 'credential',
+            userId: id,
+            password: passwordHash,
+            createdAt: new Date(),
+            updatedAt: new Date(),
+          });
         }
         await tx.insert(teamMembers).values({ teamId, userId: id, role: body.role });
       });
@@ -99,12 +124,21 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache; session
     const body = parseBody(changeRoleSchema, req.body ?? {});
     const teamId = getTeamId(res);
     const userId = textParam(req.params.userId, 'Member not found');
-    const [m] = await db.select().from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId))).limit(1);
+    const [m] = await db
+      .select()
+      .from(teamMembers)
+      .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)))
+      .limit(1);
     if (!m) throw notFound('Member not found');
     if (m.role === 'admin' && body.role !== 'admin' && (await adminCount(teamId)) <= 1) {
-      throw new HttpError(409, 'conflict', LAST_ADMIN, [{ path: 'role', message: 'the last admin keeps the admin role' }]);
+      throw new HttpError(409, 'conflict', LAST_ADMIN, [
+        { path: 'role', message: 'the last admin keeps the admin role' },
+      ]);
     }
-    await db.update(teamMembers).set({ role: body.role }).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
+    await db
+      .update(teamMembers)
+      .set({ role: body.role })
+      .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
     deps.memberships.invalidate(userId);
     const [row] = (await listMembers(teamId)).filter((x) => x.userId === userId);
     res.json({ ...row!, createdAt: row!.createdAt.toISOString() });
@@ -113,10 +147,17 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache; session
   r.delete('/members/:userId', requirePermission('team:manage'), async (req, res) => {
     const teamId = getTeamId(res);
     const userId = textParam(req.params.userId, 'Member not found');
-    const [m] = await db.select().from(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId))).limit(1);
+    const [m] = await db
+      .select()
+      .from(teamMembers)
+      .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)))
+      .limit(1);
     if (!m) throw notFound('Member not found');
-    if (m.role === 'admin' && (await adminCount(teamId)) <= 1) throw new HttpError(409, 'conflict', LAST_ADMIN);
-    await db.delete(teamMembers).where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
+    if (m.role === 'admin' && (await adminCount(teamId)) <= 1)
+      throw new HttpError(409, 'conflict', LAST_ADMIN);
+    await db
+      .delete(teamMembers)
+      .where(and(eq(teamMembers.teamId, teamId), eq(teamMembers.userId, userId)));
     // A removed member is signed out everywhere; the account stays, so they can be added again.
     await db.delete(session).where(eq(session.userId, userId));
     deps.sessions.revokeUser(userId);
@@ -131,7 +172,11 @@ export function teamRouter(deps: { db: Db; memberships: MembershipCache; session
   r.post('/invitations', requirePermission('team:manage'), async (req, res) => {
     const input = parseBody(inviteMemberSchema, req.body ?? {});
     const ctx = getContext(res);
-    const invitation = await createInvitation(deps, { teamId: getTeamId(res), invitedBy: { id: ctx.user.id, name: ctx.user.name || ctx.user.email }, input });
+    const invitation = await createInvitation(deps, {
+      teamId: getTeamId(res),
+      invitedBy: { id: ctx.user.id, name: ctx.user.name || ctx.user.email },
+      input,
+    });
     res.status(201).json(invitation);
   });
 

@@ -51,19 +51,40 @@ export function waitingRouter(deps: { db: Db }) {
   r.get('/', requirePermission('spool:view'), async (_req, res) => {
     const role = getContext(res).role as Role;
     const state = WAITING_STATE[role];
-    const page = await listSpools(db, getTeamId(res), { status: [state], sort: '-updatedAt', page: 1, pageSize: LIMIT });
+    const page = await listSpools(db, getTeamId(res), {
+      status: [state],
+      sort: '-updatedAt',
+      page: 1,
+      pageSize: LIMIT,
+    });
     const ids = page.items.map((s) => s.id);
-    const lastEvent = new Map<string, { from: string; to: string; note: string | null; createdAt: Date }>();
+    const lastEvent = new Map<
+      string,
+      { from: string; to: string; note: string | null; createdAt: Date }
+    >();
     const open = new Map<string, WaitingComment[]>();
     if (ids.length > 0) {
       const events = await db
-        .select({ spoolId: spoolEvents.spoolId, from: spoolEvents.fromStatus, to: spoolEvents.toStatus, note: spoolEvents.note, createdAt: spoolEvents.createdAt })
+        .select({
+          spoolId: spoolEvents.spoolId,
+          from: spoolEvents.fromStatus,
+          to: spoolEvents.toStatus,
+          note: spoolEvents.note,
+          createdAt: spoolEvents.createdAt,
+        })
         .from(spoolEvents)
         .where(inArray(spoolEvents.spoolId, ids))
         .orderBy(desc(spoolEvents.id));
       for (const e of events) if (!lastEvent.has(e.spoolId)) lastEvent.set(e.spoolId, e);
       const comments = await db
-        .select({ spoolId: spoolComments.spoolId, id: spoolComments.id, revision: spoolComments.revision, elementId: spoolComments.elementId, body: spoolComments.body, createdAt: spoolComments.createdAt })
+        .select({
+          spoolId: spoolComments.spoolId,
+          id: spoolComments.id,
+          revision: spoolComments.revision,
+          elementId: spoolComments.elementId,
+          body: spoolComments.body,
+          createdAt: spoolComments.createdAt,
+        })
         .from(spoolComments)
         .where(and(inArray(spoolComments.spoolId, ids), isNull(spoolComments.resolvedAt)))
         .orderBy(asc(spoolComments.id));
@@ -71,7 +92,13 @@ export function waitingRouter(deps: { db: Db }) {
       for (const c of comments) {
         if (c.revision !== revisionOf.get(c.spoolId)) continue;
         const list = open.get(c.spoolId) ?? [];
-        list.push({ id: c.id, revision: c.revision, elementId: c.elementId, body: c.body, createdAt: c.createdAt.toISOString() });
+        list.push({
+          id: c.id,
+          revision: c.revision,
+          elementId: c.elementId,
+          body: c.body,
+          createdAt: c.createdAt.toISOString(),
+        });
         open.set(c.spoolId, list);
       }
     }

@@ -1,9 +1,20 @@
 import { checkSpool, visitSpoolFigures, type MaterialFinder } from '../../shared/engine/index';
-import type { CheckStatus, CheckSummary, ElementCheck, SpoolCheck } from '../../shared/engine/types';
+import type {
+  CheckStatus,
+  CheckSummary,
+  ElementCheck,
+  SpoolCheck,
+} from '../../shared/engine/types';
 import type { SpoolDocument } from '../../shared/model/spool';
 import type { StoredCheckSummary } from '../db/schema';
 
-const SEVERITY: Record<CheckStatus, number> = { pass: 0, marginal: 1, review: 2, fail: 3, invalid: 4 };
+const SEVERITY: Record<CheckStatus, number> = {
+  pass: 0,
+  marginal: 1,
+  review: 2,
+  fail: 3,
+  invalid: 4,
+};
 
 export const EMPTY_SUMMARY: CheckSummary = { pass: 0, marginal: 0, fail: 0, review: 0, invalid: 0 };
 
@@ -13,7 +24,8 @@ type Ranked = Pick<ElementCheck, 'id' | 'status' | 'margin'>;
 /** True when `el` is worse than `worst`: higher severity, then the smaller margin (the first wins ties). */
 function isWorse(el: Ranked, worst: Ranked | undefined): boolean {
   if (!worst) return true;
-  if (SEVERITY[el.status] !== SEVERITY[worst.status]) return SEVERITY[el.status] > SEVERITY[worst.status];
+  if (SEVERITY[el.status] !== SEVERITY[worst.status])
+    return SEVERITY[el.status] > SEVERITY[worst.status];
   return (el.margin ?? Infinity) < (worst.margin ?? Infinity);
 }
 
@@ -29,7 +41,10 @@ export function findWorstElement<E extends Ranked>(elements: readonly E[]): E | 
  * text, nothing kept per element): what saves, team-material changes and batch re-checks store.
  * Equal to `summarizeCheck(runCheck(doc, findMaterial))`.
  */
-export function summarizeDocument(doc: SpoolDocument, findMaterial?: MaterialFinder): StoredCheckSummary {
+export function summarizeDocument(
+  doc: SpoolDocument,
+  findMaterial?: MaterialFinder,
+): StoredCheckSummary {
   let worst: Ranked | undefined;
   const s = visitSpoolFigures(
     doc,
@@ -38,13 +53,19 @@ export function summarizeDocument(doc: SpoolDocument, findMaterial?: MaterialFin
     },
     findMaterial ? { findMaterial } : {},
   );
-  return { summary: { ...s.summary }, worst: worst ? { elementId: worst.id, status: worst.status } : null };
+  return {
+    summary: { ...s.summary },
+    worst: worst ? { elementId: worst.id, status: worst.status } : null,
+  };
 }
 
 /** What a saved spool keeps of its check for lists: counts per status and the worst element. */
 export function summarizeCheck(check: SpoolCheck): StoredCheckSummary {
   const worst = findWorstElement(check.elements);
-  return { summary: { ...check.summary }, worst: worst ? { elementId: worst.id, status: worst.status } : null };
+  return {
+    summary: { ...check.summary },
+    worst: worst ? { elementId: worst.id, status: worst.status } : null,
+  };
 }
 
 /**

@@ -14,7 +14,6 @@ export interface CsvIssue {
 /** Most data rows one line-list import may hold. */
 export const LINE_LIST_MAX_ROWS = 2_000;
 
-
 const key = (h: string) => h.toLowerCase().replace(/[\s_\-()]/g, '');
 
 /** Line-list columns and where each goes in the document. */
@@ -47,7 +46,10 @@ const issue = (line: number, column: string | null, message: string): CsvIssue =
  * Turn line-list rows into spool documents holding design conditions (no elements yet).
  * Every problem is reported with its line; callers write nothing unless `issues` is empty.
  */
-export async function readLineList(headers: readonly string[], rows: readonly CsvRow[]): Promise<{ docs: SpoolDocument[]; lines: number[]; issues: CsvIssue[] }> {
+export async function readLineList(
+  headers: readonly string[],
+  rows: readonly CsvRow[],
+): Promise<{ docs: SpoolDocument[]; lines: number[]; issues: CsvIssue[] }> {
   const issues: CsvIssue[] = [];
   const known = new Map<string, string>();
   for (const h of headers) {
@@ -55,7 +57,8 @@ export async function readLineList(headers: readonly string[], rows: readonly Cs
     if (COLUMNS[k]) known.set(h, k);
     else issues.push(issue(1, h, `unknown column (use ${Object.keys(COLUMNS).join(', ')})`));
   }
-  for (const r of REQUIRED) if (![...known.values()].includes(r)) issues.push(issue(1, r, 'required column is missing'));
+  for (const r of REQUIRED)
+    if (![...known.values()].includes(r)) issues.push(issue(1, r, 'required column is missing'));
   if (rows.length === 0) issues.push(issue(2, null, 'the file has no data rows'));
   if (issues.length > 0) return { docs: [], lines: [], issues };
 
@@ -71,8 +74,10 @@ export async function readLineList(headers: readonly string[], rows: readonly Cs
       const col = known.get(header);
       if (!col || raw === '' || raw === undefined) continue;
       const spec = COLUMNS[col]!;
-      const value = spec.numeric && /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(raw) ? Number(raw) : raw;
-      if (spec.target === 'doc') doc[spec.field] = spec.field === 'units' ? raw.toLowerCase() : value;
+      const value =
+        spec.numeric && /^[-+]?(\d+\.?\d*|\.\d+)(e[-+]?\d+)?$/i.test(raw) ? Number(raw) : raw;
+      if (spec.target === 'doc')
+        doc[spec.field] = spec.field === 'units' ? raw.toLowerCase() : value;
       else conditions[spec.field] = value;
     }
     doc.conditions = conditions;
@@ -81,7 +86,10 @@ export async function readLineList(headers: readonly string[], rows: readonly Cs
     if (!parsed.success) {
       for (const iss of parsed.error.issues) {
         const field = iss.path[iss.path.length - 1];
-        const column = typeof field === 'string' ? (FIELD_TO_COLUMN.get(field) ?? formatPath(iss.path)) : formatPath(iss.path);
+        const column =
+          typeof field === 'string'
+            ? (FIELD_TO_COLUMN.get(field) ?? formatPath(iss.path))
+            : formatPath(iss.path);
         issues.push(issue(row.line, column, iss.message));
       }
     } else if (doc.name !== undefined) {

@@ -94,12 +94,19 @@ export function describeDocument(doc: SpoolDocument) {
   return { name: doc.name?.trim() || 'Untitled spool', line: doc.line?.trim() ?? '' };
 }
 
-const live = (teamId: string, id: string) => and(eq(spools.id, id), eq(spools.teamId, teamId), isNull(spools.deletedAt));
+const live = (teamId: string, id: string) =>
+  and(eq(spools.id, id), eq(spools.teamId, teamId), isNull(spools.deletedAt));
 
 export async function listSpools(
   db: Db,
   teamId: string,
-  q: { search?: string | undefined; status?: readonly SpoolStatus[] | undefined; sort: SpoolSort; page: number; pageSize: number },
+  q: {
+    search?: string | undefined;
+    status?: readonly SpoolStatus[] | undefined;
+    sort: SpoolSort;
+    page: number;
+    pageSize: number;
+  },
 ) {
   const where: SQL[] = [eq(spools.teamId, teamId), isNull(spools.deletedAt)];
   if (q.search) {
@@ -118,7 +125,12 @@ export async function listSpools(
       .offset((q.page - 1) * q.pageSize),
     db.select({ n: count() }).from(spools).where(cond),
   ]);
-  return { items: rows.map(toSummary), total: totals[0]?.n ?? 0, page: q.page, pageSize: q.pageSize };
+  return {
+    items: rows.map(toSummary),
+    total: totals[0]?.n ?? 0,
+    page: q.page,
+    pageSize: q.pageSize,
+  };
 }
 
 const creator = alias(user, 'creator');
@@ -149,7 +161,12 @@ export async function getSpool(db: Db, teamId: string, id: string): Promise<Spoo
 }
 
 /** Several spools by id, in the order given (missing ones left out); one query. */
-export async function getSpools(db: Db, teamId: string, ids: readonly string[], chunk = 200): Promise<Spool[]> {
+export async function getSpools(
+  db: Db,
+  teamId: string,
+  ids: readonly string[],
+  chunk = 200,
+): Promise<Spool[]> {
   if (ids.length === 0) return [];
   if (ids.length > chunk) {
     const out: Spool[] = [];
@@ -188,7 +205,13 @@ export async function getSpools(db: Db, teamId: string, ids: readonly string[], 
 
 export async function insertSpool(
   db: Db,
-  v: { teamId: string; userId: string; document: SpoolDocument; checkSummary: StoredCheckSummary | null; id?: string },
+  v: {
+    teamId: string;
+    userId: string;
+    document: SpoolDocument;
+    checkSummary: StoredCheckSummary | null;
+    id?: string;
+  },
 ): Promise<string> {
   const id = v.id ?? randomUUID();
   await db.insert(spools).values({
@@ -206,7 +229,11 @@ export async function insertSpool(
 /** Insert many new spools with multi-row INSERTs of `chunk` rows, yielding between chunks; ids in order. */
 export async function insertSpools(
   db: Db,
-  v: { teamId: string; userId: string; items: readonly { document: SpoolDocument; checkSummary: StoredCheckSummary | null }[] },
+  v: {
+    teamId: string;
+    userId: string;
+    items: readonly { document: SpoolDocument; checkSummary: StoredCheckSummary | null }[];
+  },
   chunk = 250,
 ): Promise<string[]> {
   const ids: string[] = [];
@@ -214,7 +241,15 @@ export async function insertSpools(
     const rows = v.items.slice(i, i + chunk).map((it) => {
       const id = randomUUID();
       ids.push(id);
-      return { id, teamId: v.teamId, ...describeDocument(it.document), document: it.document, checkSummary: it.checkSummary, createdBy: v.userId, updatedBy: v.userId };
+      return {
+        id,
+        teamId: v.teamId,
+        ...describeDocument(it.document),
+        document: it.document,
+        checkSummary: it.checkSummary,
+        createdBy: v.userId,
+        updatedBy: v.userId,
+      };
     });
     await db.insert(spools).values(rows);
     await new Promise<void>((resolve) => setImmediate(resolve));
@@ -231,7 +266,14 @@ export type SaveOutcome = { kind: 'saved' } | { kind: 'not_found' } | { kind: 'c
  */
 export async function saveSpool(
   db: Db,
-  v: { teamId: string; id: string; userId: string; baseVersion: number; document: SpoolDocument; checkSummary: StoredCheckSummary | null },
+  v: {
+    teamId: string;
+    id: string;
+    userId: string;
+    baseVersion: number;
+    document: SpoolDocument;
+    checkSummary: StoredCheckSummary | null;
+  },
 ): Promise<SaveOutcome> {
   return db.transaction(async (tx) => {
     const [cur] = await tx
@@ -264,7 +306,9 @@ export async function saveSpool(
         revision,
         fromStatus: cur.status,
         toStatus: 'draft',
-        note: opensRevision ? `Edited: revision ${revision} opened` : 'Edited while submitted: withdrawn to draft',
+        note: opensRevision
+          ? `Edited: revision ${revision} opened`
+          : 'Edited while submitted: withdrawn to draft',
         userId: v.userId,
       });
     }
@@ -272,7 +316,12 @@ export async function saveSpool(
   });
 }
 
-export async function softDeleteSpool(db: Db, teamId: string, id: string, userId: string): Promise<boolean> {
+export async function softDeleteSpool(
+  db: Db,
+  teamId: string,
+  id: string,
+  userId: string,
+): Promise<boolean> {
   const r = await db
     .update(spools)
     .set({ deletedAt: sql`now()`, updatedBy: userId })
@@ -304,7 +353,8 @@ export async function transitionSpool(
   return db.transaction(async (tx) => {
     const [cur] = await tx.select().from(spools).where(live(v.teamId, v.id)).for('update');
     if (!cur) return { kind: 'not_found' } as const;
-    if (v.baseVersion !== undefined && cur.version !== v.baseVersion) return { kind: 'conflict' } as const;
+    if (v.baseVersion !== undefined && cur.version !== v.baseVersion)
+      return { kind: 'conflict' } as const;
     const from = cur.status as SpoolStatus;
     if (!v.isAllowed(from, v.to)) return { kind: 'invalid', from } as const;
     const summary = cur.checkSummary?.summary;
@@ -313,7 +363,12 @@ export async function transitionSpool(
     }
     await tx
       .update(spools)
-      .set({ status: v.to, version: sql`${spools.version} + 1`, updatedBy: v.userId, updatedAt: sql`now()` })
+      .set({
+        status: v.to,
+        version: sql`${spools.version} + 1`,
+        updatedBy: v.userId,
+        updatedAt: sql`now()`,
+      })
       .where(and(live(v.teamId, v.id), eq(spools.version, cur.version)));
     if (v.to === 'checked' || v.to === 'released') {
       const frozen = {
@@ -328,7 +383,10 @@ export async function transitionSpool(
       await tx
         .insert(spoolRevisions)
         .values({ spoolId: cur.id, revision: cur.revision, ...frozen })
-        .onConflictDoUpdate({ target: [spoolRevisions.spoolId, spoolRevisions.revision], set: { ...frozen, createdAt: sql`now()` } });
+        .onConflictDoUpdate({
+          target: [spoolRevisions.spoolId, spoolRevisions.revision],
+          set: { ...frozen, createdAt: sql`now()` },
+        });
     }
     await tx.insert(spoolEvents).values({
       spoolId: cur.id,
@@ -357,7 +415,11 @@ export interface RevisionInfo {
 }
 
 /** Every engineering revision: the frozen ones plus the live one (marked current). */
-export async function listRevisions(db: Db, teamId: string, id: string): Promise<RevisionInfo[] | undefined> {
+export async function listRevisions(
+  db: Db,
+  teamId: string,
+  id: string,
+): Promise<RevisionInfo[] | undefined> {
   const cur = await getSpool(db, teamId, id);
   if (!cur) return undefined;
   const rows = await db
@@ -399,7 +461,9 @@ export async function listRevisions(db: Db, teamId: string, id: string): Promise
     version: cur.version,
     current: true,
     frozenAt: frozenCurrent ? frozenCurrent.createdAt.toISOString() : null,
-    frozenBy: frozenCurrent?.byId ? { id: frozenCurrent.byId, name: frozenCurrent.byName ?? '' } : null,
+    frozenBy: frozenCurrent?.byId
+      ? { id: frozenCurrent.byId, name: frozenCurrent.byName ?? '' }
+      : null,
     summary: cur.summary,
     worst: cur.worst,
   });

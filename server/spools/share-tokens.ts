@@ -18,7 +18,9 @@ const WITHHELD = 'team material (its source note is not shown on shared links)';
  * of a share link shows the team's numbers but not its internal references.
  */
 export function omitSourceNotes<T>(value: T, notes: readonly string[]): T {
-  const usable = [...new Set(notes.filter((n) => n.trim().length > 0))].sort((a, b) => b.length - a.length);
+  const usable = [...new Set(notes.filter((n) => n.trim().length > 0))].sort(
+    (a, b) => b.length - a.length,
+  );
   if (usable.length === 0) return value;
   const scrub = (s: string): string => {
     let out = s;
@@ -32,7 +34,8 @@ export function omitSourceNotes<T>(value: T, notes: readonly string[]): T {
   const walk = (v: unknown): unknown => {
     if (typeof v === 'string') return scrub(v);
     if (Array.isArray(v)) return v.map(walk);
-    if (v && typeof v === 'object') return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, walk(x)]));
+    if (v && typeof v === 'object')
+      return Object.fromEntries(Object.entries(v).map(([k, x]) => [k, walk(x)]));
     return v;
   };
   return walk(value) as T;

@@ -7,7 +7,13 @@
 import { readFileSync, writeFileSync } from 'node:fs';
 import { parseSpoolDocument, type FieldIssue } from '../model/spool';
 import { CAUTION } from '../model/caution';
-import { checkSpool, EXTERNAL_BASIS_LABEL, fmt, type ElementCheck, type SpoolCheck } from '../engine/index';
+import {
+  checkSpool,
+  EXTERNAL_BASIS_LABEL,
+  fmt,
+  type ElementCheck,
+  type SpoolCheck,
+} from '../engine/index';
 import { UNIT_LABELS } from '../units/units';
 import { buildCalcSheet, type CalcSheet } from '../report/calc-sheet';
 
@@ -29,7 +35,9 @@ export function exitCodeFor(check: SpoolCheck): 0 | 1 {
 function badInput(json: boolean, message: string, details: readonly FieldIssue[]): CliResult {
   const lines = details.map((d) => `  ${d.path}: ${d.message}`);
   const stderr = `spoolwright check: ${message}\n${lines.join('\n')}${lines.length ? '\n' : ''}`;
-  const stdout = json ? `${JSON.stringify({ error: { code: 'invalid_input', message, details } })}\n` : '';
+  const stdout = json
+    ? `${JSON.stringify({ error: { code: 'invalid_input', message, details } })}\n`
+    : '';
   return { code: 2, stdout, stderr };
 }
 
@@ -38,14 +46,29 @@ function pad(s: string, n: number): string {
 }
 
 function sizeOf(e: ElementCheck, el: { nps?: unknown; schedule?: unknown }): string {
-  if (el.nps !== undefined) return `NPS ${String(el.nps)}${el.schedule !== undefined ? ` / ${String(el.schedule)}` : ''}`;
+  if (el.nps !== undefined)
+    return `NPS ${String(el.nps)}${el.schedule !== undefined ? ` / ${String(el.schedule)}` : ''}`;
   return `D ${fmt(e.outsideDiameter)}`;
 }
 
 /** The readable table: one row per element, its messages below, then the summary and caution. */
-export function formatTable(check: SpoolCheck, doc: { elements: readonly { nps?: unknown; schedule?: unknown }[] }): string {
+export function formatTable(
+  check: SpoolCheck,
+  doc: { elements: readonly { nps?: unknown; schedule?: unknown }[] },
+): string {
   const u = UNIT_LABELS[check.units];
-  const head = ['element', 'kind', 'size', `T ${u.length}`, `T req ${u.length}`, 'governs', 'margin', `MAWP ${u.pressure}`, 'lightest', 'status'];
+  const head = [
+    'element',
+    'kind',
+    'size',
+    `T ${u.length}`,
+    `T req ${u.length}`,
+    'governs',
+    'margin',
+    `MAWP ${u.pressure}`,
+    'lightest',
+    'status',
+  ];
   const rows = check.elements.map((e) => [
     e.id,
     e.kind,
@@ -59,28 +82,43 @@ export function formatTable(check: SpoolCheck, doc: { elements: readonly { nps?:
     e.status.toUpperCase(),
   ]);
   const widths = head.map((h, i) => Math.max(h.length, ...rows.map((r) => (r[i] ?? '').length)));
-  const line = (cells: string[]) => cells.map((c, i) => pad(c, widths[i] ?? 0)).join('  ').trimEnd();
+  const line = (cells: string[]) =>
+    cells
+      .map((c, i) => pad(c, widths[i] ?? 0))
+      .join('  ')
+      .trimEnd();
   const out: string[] = [line(head), widths.map((w) => '-'.repeat(w)).join('  ')];
   check.elements.forEach((e, i) => {
     out.push(line(rows[i] ?? []));
     if (e.preBend) {
-      out.push(`    before bending: ${fmt(e.preBend.requiredOrderedWall)} ${u.length} ordered wall${e.preBend.orderHeavier ? ` — ORDER HEAVIER${e.preBend.order ? ` (schedule ${e.preBend.order.label})` : ''}` : ''}`);
+      out.push(
+        `    before bending: ${fmt(e.preBend.requiredOrderedWall)} ${u.length} ordered wall${e.preBend.orderHeavier ? ` — ORDER HEAVIER${e.preBend.order ? ` (schedule ${e.preBend.order.label})` : ''}` : ''}`,
+      );
     }
     const ext = e.cases.find((c) => c.case === 'external');
     if (ext?.allowablePressure !== undefined) {
-      out.push(`    external: allowable ${fmt(ext.allowablePressure)} ${u.pressure} = min(UG-28 ${fmt(ext.allowableUg28 ?? 0)}, VIII-2 4.4.5.1 ${fmt(ext.allowableVIII2 ?? 0)}) — ${EXTERNAL_BASIS_LABEL[ext.allowableBasis ?? 'ug28-elastic']} governs`);
+      out.push(
+        `    external: allowable ${fmt(ext.allowablePressure)} ${u.pressure} = min(UG-28 ${fmt(ext.allowableUg28 ?? 0)}, VIII-2 4.4.5.1 ${fmt(ext.allowableVIII2 ?? 0)}) — ${EXTERNAL_BASIS_LABEL[ext.allowableBasis ?? 'ug28-elastic']} governs`,
+      );
     }
     for (const m of e.messages) if (m.level !== 'info') out.push(`    ${m.level}: ${m.text}`);
   });
   const s = check.summary;
-  out.push('', `summary: ${s.pass} pass, ${s.marginal} marginal, ${s.fail} fail, ${s.review} review`);
+  out.push(
+    '',
+    `summary: ${s.pass} pass, ${s.marginal} marginal, ${s.fail} fail, ${s.review} review`,
+  );
   out.push(`marginal = passing with less than 10 % margin on the ordered nominal wall.`);
   out.push('', CAUTION);
   return `${out.join('\n')}\n`;
 }
 
 /** Run the checker on already-read input text (testable without a process). */
-export function runCheck(args: readonly string[], readInput: (file: string) => string, now: () => Date = () => new Date()): CliResult {
+export function runCheck(
+  args: readonly string[],
+  readInput: (file: string) => string,
+  now: () => Date = () => new Date(),
+): CliResult {
   const json = args.includes('--json');
   let pdfFile: string | undefined;
   const rest: string[] = [];
@@ -89,7 +127,8 @@ export function runCheck(args: readonly string[], readInput: (file: string) => s
     if (a === '--json') continue;
     if (a === '--pdf' || a.startsWith('--pdf=')) {
       const f = a === '--pdf' ? args[++i] : a.slice('--pdf='.length);
-      if (f === undefined || f === '' || f.startsWith('--')) return badInput(json, `--pdf needs a file name; ${USAGE}`, []);
+      if (f === undefined || f === '' || f.startsWith('--'))
+        return badInput(json, `--pdf needs a file name; ${USAGE}`, []);
       pdfFile = f;
       continue;
     }
@@ -98,7 +137,11 @@ export function runCheck(args: readonly string[], readInput: (file: string) => s
   const files = rest;
   const unknown = files.filter((a) => a.startsWith('--'));
   if (unknown.length > 0 || files.length !== 1) {
-    return badInput(json, unknown.length > 0 ? `unknown option ${unknown[0] ?? ''}; ${USAGE}` : USAGE, []);
+    return badInput(
+      json,
+      unknown.length > 0 ? `unknown option ${unknown[0] ?? ''}; ${USAGE}` : USAGE,
+      [],
+    );
   }
   const file = files[0] ?? '-';
   const label = file === '-' ? 'standard input' : file;
@@ -122,14 +165,28 @@ export function runCheck(args: readonly string[], readInput: (file: string) => s
   const code = exitCodeFor(check);
   // A document outside the server has no team, revision or history.
   const pdf = pdfFile
-    ? { file: pdfFile, sheet: buildCalcSheet({ team: null, revision: null, state: null, document: parsed.doc, check, history: [], historyNote: `No history: made by the headless checker from ${label}.`, generatedAt: now().toISOString() }) }
+    ? {
+        file: pdfFile,
+        sheet: buildCalcSheet({
+          team: null,
+          revision: null,
+          state: null,
+          document: parsed.doc,
+          check,
+          history: [],
+          historyNote: `No history: made by the headless checker from ${label}.`,
+          generatedAt: now().toISOString(),
+        }),
+      }
     : undefined;
   const out = json ? `${JSON.stringify(check)}\n` : formatTable(check, parsed.doc);
   return { code, stdout: out, stderr: '', ...(pdf ? { pdf } : {}) };
 }
 
 async function main(): Promise<void> {
-  const result = runCheck(process.argv.slice(2), (file) => readFileSync(file === '-' ? 0 : file, 'utf8'));
+  const result = runCheck(process.argv.slice(2), (file) =>
+    readFileSync(file === '-' ? 0 : file, 'utf8'),
+  );
   let code: number = result.code;
   let stderr = result.stderr;
   if (result.pdf) {

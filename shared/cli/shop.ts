@@ -6,7 +6,17 @@
 import { readFileSync } from 'node:fs';
 import { parseSpoolDocument, type FieldIssue, type SpoolDocument } from '../model/spool';
 import { checkSpool, fmt } from '../engine/index';
-import { buildFabricationSheet, bomTable, cutListTable, elementTable, sheetTable, tableToCsv, toShopJson, type FabricationSheet, type Table } from '../shop/index';
+import {
+  buildFabricationSheet,
+  bomTable,
+  cutListTable,
+  elementTable,
+  sheetTable,
+  tableToCsv,
+  toShopJson,
+  type FabricationSheet,
+  type Table,
+} from '../shop/index';
 import { MASS_LABELS, UNIT_LABELS } from '../units/units';
 
 export interface ShopCliResult {
@@ -15,14 +25,17 @@ export interface ShopCliResult {
   readonly stderr: string;
 }
 
-const USAGE = 'usage: npm run shop -- [--json | --csv[=sheet|elements|cut-list|bom]] <spool.json | ->';
+const USAGE =
+  'usage: npm run shop -- [--json | --csv[=sheet|elements|cut-list|bom]] <spool.json | ->';
 const CSV_TABLES = ['sheet', 'elements', 'cut-list', 'bom'] as const;
 type CsvTable = (typeof CSV_TABLES)[number];
 
 function badInput(json: boolean, message: string, details: readonly FieldIssue[]): ShopCliResult {
   const lines = details.map((d) => `  ${d.path}: ${d.message}`);
   const stderr = `spoolwright shop: ${message}\n${lines.join('\n')}${lines.length ? '\n' : ''}`;
-  const stdout = json ? `${JSON.stringify({ error: { code: 'invalid_input', message, details } })}\n` : '';
+  const stdout = json
+    ? `${JSON.stringify({ error: { code: 'invalid_input', message, details } })}\n`
+    : '';
   return { code: 2, stdout, stderr };
 }
 
@@ -30,7 +43,11 @@ function layout(table: Table): string[] {
   const cells = table.rows.map((r) => r.map((c) => (c === null ? '-' : String(c))));
   const head = table.fields.map(String);
   const widths = head.map((h, i) => Math.max(h.length, ...cells.map((r) => (r[i] ?? '').length)));
-  const line = (row: readonly string[]) => row.map((c, i) => c.padEnd(widths[i] ?? 0)).join('  ').trimEnd();
+  const line = (row: readonly string[]) =>
+    row
+      .map((c, i) => c.padEnd(widths[i] ?? 0))
+      .join('  ')
+      .trimEnd();
   return [line(head), widths.map((w) => '-'.repeat(w)).join('  '), ...cells.map(line)];
 }
 
@@ -38,16 +55,43 @@ function layout(table: Table): string[] {
 export function formatSheet(sheet: FabricationSheet): string {
   const u = UNIT_LABELS[sheet.units];
   const m = MASS_LABELS[sheet.units];
-  const out: string[] = [`Fabrication sheet${sheet.name ? `: ${sheet.name}` : ''}${sheet.line ? ` (line ${sheet.line})` : ''}`, ''];
+  const out: string[] = [
+    `Fabrication sheet${sheet.name ? `: ${sheet.name}` : ''}${sheet.line ? ` (line ${sheet.line})` : ''}`,
+    '',
+  ];
   const bends = sheet.elements.filter((e) => e.bend);
   if (bends.length > 0) {
     out.push('Bend list');
     out.push(
       ...layout({
-        fields: ['bend', 'NPS', 'angle', `R ${u.length}`, 'R/D', 'factor', `before bending ${u.length}`, 'order', `extrados after ${u.length}`, `intrados after ${u.length}`, 'heavier'],
+        fields: [
+          'bend',
+          'NPS',
+          'angle',
+          `R ${u.length}`,
+          'R/D',
+          'factor',
+          `before bending ${u.length}`,
+          'order',
+          `extrados after ${u.length}`,
+          `intrados after ${u.length}`,
+          'heavier',
+        ],
         rows: bends.map((e) => {
           const b = e.bend!;
-          return [e.id, e.nps, `${fmt(b.angle)}°`, fmt(b.radius), fmt(b.radiusOverD), b.tableFactor === null ? '-' : fmt(b.tableFactor), `${fmt(b.wallBeforeBending)} (${b.governingEstimate})`, `${e.orderSchedule ?? '-'} / ${fmt(e.orderWall)}`, fmt(b.extradosWallAfter), fmt(b.intradosWallAfter), b.orderHeavier ? 'ORDER HEAVIER' : ''];
+          return [
+            e.id,
+            e.nps,
+            `${fmt(b.angle)}°`,
+            fmt(b.radius),
+            fmt(b.radiusOverD),
+            b.tableFactor === null ? '-' : fmt(b.tableFactor),
+            `${fmt(b.wallBeforeBending)} (${b.governingEstimate})`,
+            `${e.orderSchedule ?? '-'} / ${fmt(e.orderWall)}`,
+            fmt(b.extradosWallAfter),
+            fmt(b.intradosWallAfter),
+            b.orderHeavier ? 'ORDER HEAVIER' : '',
+          ];
         }),
       }),
     );
@@ -56,19 +100,50 @@ export function formatSheet(sheet: FabricationSheet): string {
   out.push('Cut list');
   out.push(
     ...layout({
-      fields: ['element', 'kind', 'NPS', 'order', `cut ${u.length}`, `arc ${u.length}`, 'end 1', 'end 2', `mass ${m.mass}`],
-      rows: sheet.elements.map((e) => [e.id, e.kind, e.nps, `${e.orderSchedule ?? '-'} / ${fmt(e.orderWall)}`, fmt(e.cutLength), e.bend ? fmt(e.bend.arcLength) : '-', e.ends[0].text, e.ends[1].text, fmt(e.mass)]),
+      fields: [
+        'element',
+        'kind',
+        'NPS',
+        'order',
+        `cut ${u.length}`,
+        `arc ${u.length}`,
+        'end 1',
+        'end 2',
+        `mass ${m.mass}`,
+      ],
+      rows: sheet.elements.map((e) => [
+        e.id,
+        e.kind,
+        e.nps,
+        `${e.orderSchedule ?? '-'} / ${fmt(e.orderWall)}`,
+        fmt(e.cutLength),
+        e.bend ? fmt(e.bend.arcLength) : '-',
+        e.ends[0].text,
+        e.ends[1].text,
+        fmt(e.mass),
+      ]),
     }),
   );
-  out.push(`  butt welds: ${sheet.welds}${sheet.otherJoints > 0 ? ` · other joints: ${sheet.otherJoints}` : ''}`, '');
+  out.push(
+    `  butt welds: ${sheet.welds}${sheet.otherJoints > 0 ? ` · other joints: ${sheet.otherJoints}` : ''}`,
+    '',
+  );
   out.push('Bill of materials');
   out.push(...layout(bomTable(sheet)).map((l) => l));
   out.push('');
-  out.push(`developed length ${fmt(sheet.developedLength)} ${u.length} · pipe to order ${fmt(sheet.orderLength)} ${u.length}`);
-  out.push(`spool mass ${fmt(sheet.totalMass)} ${m.mass} empty, ${fmt(sheet.filledMass)} ${m.mass} full of water`);
+  out.push(
+    `developed length ${fmt(sheet.developedLength)} ${u.length} · pipe to order ${fmt(sheet.orderLength)} ${u.length}`,
+  );
+  out.push(
+    `spool mass ${fmt(sheet.totalMass)} ${m.mass} empty, ${fmt(sheet.filledMass)} ${m.mass} full of water`,
+  );
   const h = sheet.hydrotest;
   if (h) {
-    out.push('', `Hydrotest at ${fmt(h.testTemperature)} ${u.temperature}: ${fmt(h.pressure)} ${u.pressure}`, `  ${h.equation}`);
+    out.push(
+      '',
+      `Hydrotest at ${fmt(h.testTemperature)} ${u.temperature}: ${fmt(h.pressure)} ${u.pressure}`,
+      `  ${h.equation}`,
+    );
     for (const n of h.notes) out.push(`  note: ${n}`);
     out.push(`  ${h.caution}`);
   }
@@ -78,7 +153,12 @@ export function formatSheet(sheet: FabricationSheet): string {
   return `${out.join('\n')}\n`;
 }
 
-function parseArgs(args: readonly string[]): { json: boolean; csv: CsvTable | null; files: string[]; error: string | null } {
+function parseArgs(args: readonly string[]): {
+  json: boolean;
+  csv: CsvTable | null;
+  files: string[];
+  error: string | null;
+} {
   let json = false;
   let csv: CsvTable | null = null;
   const files: string[] = [];
@@ -87,9 +167,16 @@ function parseArgs(args: readonly string[]): { json: boolean; csv: CsvTable | nu
     else if (a === '--csv') csv = 'sheet';
     else if (a.startsWith('--csv=')) {
       const t = a.slice(6);
-      if (!(CSV_TABLES as readonly string[]).includes(t)) return { json, csv, files, error: `unknown table "${t}" for --csv (sheet, elements, cut-list or bom); ${USAGE}` };
+      if (!(CSV_TABLES as readonly string[]).includes(t))
+        return {
+          json,
+          csv,
+          files,
+          error: `unknown table "${t}" for --csv (sheet, elements, cut-list or bom); ${USAGE}`,
+        };
       csv = t as CsvTable;
-    } else if (a.startsWith('--')) return { json, csv, files, error: `unknown option ${a}; ${USAGE}` };
+    } else if (a.startsWith('--'))
+      return { json, csv, files, error: `unknown option ${a}; ${USAGE}` };
     else files.push(a);
   }
   if (json && csv) return { json, csv, files, error: `give --json or --csv, not both; ${USAGE}` };
@@ -98,7 +185,10 @@ function parseArgs(args: readonly string[]): { json: boolean; csv: CsvTable | nu
 }
 
 /** Run the shop command on already-read input (testable without a process). */
-export function runShop(args: readonly string[], readInput: (file: string) => string): ShopCliResult {
+export function runShop(
+  args: readonly string[],
+  readInput: (file: string) => string,
+): ShopCliResult {
   const a = parseArgs(args);
   if (a.error) return badInput(a.json, a.error, []);
   const file = a.files[0] ?? '-';
@@ -120,18 +210,28 @@ export function runShop(args: readonly string[], readInput: (file: string) => st
   const doc: SpoolDocument = parsed.doc;
   const check = checkSpool(doc);
   const issues = check.elements.flatMap((e) => e.inputIssues);
-  if (issues.length > 0) return badInput(a.json, `${label}: some elements cannot be checked`, issues);
+  if (issues.length > 0)
+    return badInput(a.json, `${label}: some elements cannot be checked`, issues);
   const sheet = buildFabricationSheet(doc, check);
   if (a.json) return { code: 0, stdout: `${JSON.stringify(toShopJson(sheet))}\n`, stderr: '' };
   if (a.csv) {
-    const table = a.csv === 'sheet' ? sheetTable(sheet) : a.csv === 'elements' ? elementTable(doc, check) : a.csv === 'cut-list' ? cutListTable(sheet) : bomTable(sheet);
+    const table =
+      a.csv === 'sheet'
+        ? sheetTable(sheet)
+        : a.csv === 'elements'
+          ? elementTable(doc, check)
+          : a.csv === 'cut-list'
+            ? cutListTable(sheet)
+            : bomTable(sheet);
     return { code: 0, stdout: tableToCsv(table), stderr: '' };
   }
   return { code: 0, stdout: formatSheet(sheet), stderr: '' };
 }
 
 function main(): void {
-  const result = runShop(process.argv.slice(2), (file) => readFileSync(file === '-' ? 0 : file, 'utf8'));
+  const result = runShop(process.argv.slice(2), (file) =>
+    readFileSync(file === '-' ? 0 : file, 'utf8'),
+  );
   if (result.stdout) process.stdout.write(result.stdout);
   if (result.stderr) process.stderr.write(result.stderr);
   process.exitCode = result.code;

@@ -18,14 +18,27 @@ export interface Density {
  */
 export const CARBON_STEEL_DENSITY: Density = {
   value: 7850,
-  source: 'ASME B36.10M plain-end mass formula basis (10.69·(D − t)·t lb/ft; 0.0246615·(D − t)·t kg/m)',
+  source:
+    'ASME B36.10M plain-end mass formula basis (10.69·(D − t)·t lb/ft; 0.0246615·(D − t)·t kg/m)',
   fromMemory: false,
 };
 
-const AUSTENITIC_304: Density = { value: 7930, source: 'type 304/304L stainless, 7.93 g/cm³ (published product data)', fromMemory: false };
-const AUSTENITIC_316: Density = { value: 7980, source: 'type 316/316L stainless, 7.98 g/cm³ (published product data)', fromMemory: false };
+const AUSTENITIC_304: Density = {
+  value: 7930,
+  source: 'type 304/304L stainless, 7.93 g/cm³ (published product data)',
+  fromMemory: false,
+};
+const AUSTENITIC_316: Density = {
+  value: 7980,
+  source: 'type 316/316L stainless, 7.98 g/cm³ (published product data)',
+  fromMemory: false,
+};
 
-const mem = (value: number, what: string): Density => ({ value, source: `${what}, from memory, verify against the material's data`, fromMemory: true });
+const mem = (value: number, what: string): Density => ({
+  value,
+  source: `${what}, from memory, verify against the material's data`,
+  fromMemory: true,
+});
 
 /** Rows by library material id. */
 const BY_ID: Readonly<Record<string, Density>> = {
@@ -54,9 +67,18 @@ const BY_CATEGORY: Readonly<Record<Material['category'], Density>> = {
 
 /** Density of a material (its own row, else its category's); carbon steel, flagged, when none is known. */
 export function densityOf(material: Pick<Material, 'id' | 'category'> | null | undefined): Density {
-  if (!material) return { ...CARBON_STEEL_DENSITY, source: `no material given: ${CARBON_STEEL_DENSITY.source} assumed`, fromMemory: true };
+  if (!material)
+    return {
+      ...CARBON_STEEL_DENSITY,
+      source: `no material given: ${CARBON_STEEL_DENSITY.source} assumed`,
+      fromMemory: true,
+    };
   return BY_ID[material.id] ?? BY_CATEGORY[material.category] ?? BY_CATEGORY.other;
 }
 
 /** Water for the filled mass: 1000 kg/m³ (common practice; 998 kg/m³ at 21 °C). */
-export const WATER_DENSITY: Density = { value: 1000, source: 'fresh water 1000 kg/m³ (common practice; 998 kg/m³ at 21 °C)', fromMemory: false };
+export const WATER_DENSITY: Density = {
+  value: 1000,
+  source: 'fresh water 1000 kg/m³ (common practice; 998 kg/m³ at 21 °C)',
+  fromMemory: false,
+};

@@ -57,9 +57,18 @@ export const FROM_MEMORY_NOTE = 'from memory, verify against the licensed editio
 /** ksi as published → psi (rounded to whole psi so 18.9 ksi is exactly 18 900 psi). */
 const ksi = (v: number): number => Math.round(v * 1000);
 
-function row(temps: readonly number[], valuesKsi: readonly number[], fromMemory: boolean): MaterialPoint[] {
-  if (temps.length !== valuesKsi.length) throw new Error('material row: temperature and value counts differ');
-  return temps.map((tempF, i) => (fromMemory ? { tempF, value: ksi(valuesKsi[i]!), fromMemory: true } : { tempF, value: ksi(valuesKsi[i]!) }));
+function row(
+  temps: readonly number[],
+  valuesKsi: readonly number[],
+  fromMemory: boolean,
+): MaterialPoint[] {
+  if (temps.length !== valuesKsi.length)
+    throw new Error('material row: temperature and value counts differ');
+  return temps.map((tempF, i) =>
+    fromMemory
+      ? { tempF, value: ksi(valuesKsi[i]!), fromMemory: true }
+      : { tempF, value: ksi(valuesKsi[i]!) },
+  );
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -70,10 +79,13 @@ const CS_PUB_T = [100, 200, 300, 400, 500, 600, 650, 700];
 const CS_PUB_S = [20.0, 20.0, 20.0, 20.0, 18.9, 17.3, 17.0, 16.5];
 const CS_MEM_T = [750, 800, 850, 900, 950, 1000];
 const CS_MEM_S = [13.0, 10.8, 8.7, 6.5, 4.5, 2.5];
-const carbonStress = (): MaterialPoint[] => [...row(CS_PUB_T, CS_PUB_S, false), ...row(CS_MEM_T, CS_MEM_S, true)];
+const carbonStress = (): MaterialPoint[] => [
+  ...row(CS_PUB_T, CS_PUB_S, false),
+  ...row(CS_MEM_T, CS_MEM_S, true),
+];
 
 const CS_SOURCE =
-  'ASME B31.3 Table A-1: ≤100–700 °F as reproduced on a pipe mill\'s pressure–temperature rating page citing B31.3-2002 ' +
+  "ASME B31.3 Table A-1: ≤100–700 °F as reproduced on a pipe mill's pressure–temperature rating page citing B31.3-2002 " +
   '(20.0 ksi at 400 °F and 18.9 ksi at 500 °F also on a second published rating page); 750–1000 °F ' +
   FROM_MEMORY_NOTE +
   '. Minimum yield 35 ksi per ASME B31.8 Appendix D.';
@@ -84,7 +96,8 @@ const CS_NOTES = [
   'The Table A-1 stress is listed for the material; the quality factor E comes from the product form (Table A-1B).',
 ];
 
-const NO_MIN_TEMP = 'No minimum temperature without impact testing is held for this material; check B31.3 para. 323.2.2 and Fig. 323.2.2A.';
+const NO_MIN_TEMP =
+  'No minimum temperature without impact testing is held for this material; check B31.3 para. 323.2.2 and Fig. 323.2.2A.';
 
 // ---------------------------------------------------------------------------------------------
 // Low-alloy ferritic: A335 (seamless)
@@ -93,15 +106,27 @@ const NO_MIN_TEMP = 'No minimum temperature without impact testing is held for t
 const A335_T = [100, 300, 400, 500, 600, 700, 800, 900, 1000, 1100, 1200];
 const A335_SOURCE =
   'ASME B31.3 Table A-1 as reproduced on mill data sheets (edition not stated, probably 2010); the ≤100 °F value is derived as ST/3 (para. 302.3.2 basis)';
-const A335_GAP = 'The source reproduction omits the 200 °F column: values between 100 and 300 °F are interpolated across the gap and may differ from the tabulated 200 °F value; verify.';
-const A335_NOTES = ['Seamless only (ASTM A335).', 'The ≤100 °F value is ST/3, derived, not read from the sheet.', A335_GAP, NO_MIN_TEMP];
+const A335_GAP =
+  'The source reproduction omits the 200 °F column: values between 100 and 300 °F are interpolated across the gap and may differ from the tabulated 200 °F value; verify.';
+const A335_NOTES = [
+  'Seamless only (ASTM A335).',
+  'The ≤100 °F value is ST/3, derived, not read from the sheet.',
+  A335_GAP,
+  NO_MIN_TEMP,
+];
 
 // ---------------------------------------------------------------------------------------------
 // Austenitic stainless: A312 (P-No. 8)
 // ---------------------------------------------------------------------------------------------
 
 const SS_T = [100, 200, 300, 400, 500, 600, 650, 700, 750, 800, 850, 900, 950, 1000];
-const A312_FORMS: ProductForm[] = ['seamless', 'efw-single', 'efw-double', 'efw-spot-rt', 'efw-full-rt'];
+const A312_FORMS: ProductForm[] = [
+  'seamless',
+  'efw-single',
+  'efw-double',
+  'efw-spot-rt',
+  'efw-full-rt',
+];
 const A312_MEM_SOURCE = `ASME B31.3 Table A-1, ≤100–1000 °F, ${FROM_MEMORY_NOTE}. Min. tensile/yield per ASTM A312.`;
 const LOW_TEMP_425 = 'B31.3 accepts this grade to −425 °F without impact tests (A312 note).';
 
@@ -115,11 +140,16 @@ const TP316_PUB_S = [16.1, 15.9, 15.7, 15.6, 15.4, 15.3, 14.5, 12.4, 9.8, 7.4];
 // ---------------------------------------------------------------------------------------------
 
 const YIELD_SOURCE = `provisional yield strength Sy(T) in the manner of ASME BPVC II-D Table Y-1, no published reproduction found; ${FROM_MEMORY_NOTE} (partly back-calculated from S)`;
-const Y_106B = row([100, 200, 300, 400, 500, 600, 650, 700], [35.0, 31.9, 31.0, 30.0, 28.3, 26.0, 25.5, 24.8], true);
+const Y_106B = row(
+  [100, 200, 300, 400, 500, 600, 650, 700],
+  [35.0, 31.9, 31.0, 30.0, 28.3, 26.0, 25.5, 24.8],
+  true,
+);
 const Y_T = [100, 200, 300, 400, 500, 600, 650, 700, 800, 900, 1000];
 const Y_304 = row(Y_T, [30.0, 25.0, 22.4, 20.7, 19.4, 18.4, 18.0, 17.6, 16.9, 16.2, 15.5], true);
 const Y_316 = row(Y_T, [30.0, 25.9, 23.4, 21.4, 20.0, 18.9, 18.5, 18.2, 17.7, 17.3, 17.0], true);
-const NO_YIELD_TABLE = 'No Sy(T) table is held: yieldStrengthAt reports it; callers use the specified minimum yield with a note, or an override.';
+const NO_YIELD_TABLE =
+  'No Sy(T) table is held: yieldStrengthAt reports it; callers use the specified minimum yield with a note, or an override.';
 
 // ---------------------------------------------------------------------------------------------
 // The library
@@ -127,76 +157,218 @@ const NO_YIELD_TABLE = 'No Sy(T) table is held: yieldStrengthAt reports it; call
 
 export const MATERIALS: readonly Material[] = [
   {
-    id: 'A106-B', spec: 'ASTM A106', grade: 'B', name: 'Carbon steel, seamless', category: 'carbon', pNumber: '1',
-    tensilePsi: ksi(60), yieldPsi: ksi(35), yFamily: 'ferritic', wFamily: 'carbon', modulusGroup: 'carbon',
-    productForms: ['seamless'], stress: carbonStress(), yield: Y_106B,
+    id: 'A106-B',
+    spec: 'ASTM A106',
+    grade: 'B',
+    name: 'Carbon steel, seamless',
+    category: 'carbon',
+    pNumber: '1',
+    tensilePsi: ksi(60),
+    yieldPsi: ksi(35),
+    yFamily: 'ferritic',
+    wFamily: 'carbon',
+    modulusGroup: 'carbon',
+    productForms: ['seamless'],
+    stress: carbonStress(),
+    yield: Y_106B,
     source: `${CS_SOURCE} Sy(T): ${YIELD_SOURCE}.`,
-    notes: [...CS_NOTES, `Sy(T) table (SA-106 B) is provisional, ${FROM_MEMORY_NOTE}.`, NO_MIN_TEMP],
+    notes: [
+      ...CS_NOTES,
+      `Sy(T) table (SA-106 B) is provisional, ${FROM_MEMORY_NOTE}.`,
+      NO_MIN_TEMP,
+    ],
   },
   {
-    id: 'A53-B', spec: 'ASTM A53', grade: 'B', name: 'Carbon steel, seamless and electric resistance welded', category: 'carbon', pNumber: '1',
-    tensilePsi: ksi(60), yieldPsi: ksi(35), yFamily: 'ferritic', wFamily: 'carbon', modulusGroup: 'carbon',
-    productForms: ['seamless', 'erw'], stress: carbonStress(), source: CS_SOURCE,
-    notes: [...CS_NOTES, 'ERW: E = 0.85 (Table A-1B) from the product form; S is the same row.', NO_YIELD_TABLE, NO_MIN_TEMP],
+    id: 'A53-B',
+    spec: 'ASTM A53',
+    grade: 'B',
+    name: 'Carbon steel, seamless and electric resistance welded',
+    category: 'carbon',
+    pNumber: '1',
+    tensilePsi: ksi(60),
+    yieldPsi: ksi(35),
+    yFamily: 'ferritic',
+    wFamily: 'carbon',
+    modulusGroup: 'carbon',
+    productForms: ['seamless', 'erw'],
+    stress: carbonStress(),
+    source: CS_SOURCE,
+    notes: [
+      ...CS_NOTES,
+      'ERW: E = 0.85 (Table A-1B) from the product form; S is the same row.',
+      NO_YIELD_TABLE,
+      NO_MIN_TEMP,
+    ],
   },
   {
-    id: 'API5L-B', spec: 'API 5L', grade: 'B', name: 'Carbon steel line pipe, seamless and electric resistance welded', category: 'carbon', pNumber: '1',
-    tensilePsi: ksi(60), yieldPsi: ksi(35), yFamily: 'ferritic', wFamily: 'carbon', modulusGroup: 'carbon',
-    productForms: ['seamless', 'erw'], stress: carbonStress(), source: CS_SOURCE,
-    notes: [...CS_NOTES, 'SAW pipe: E = 0.95 (Table A-1B); no product form selects it, enter E as an override.', NO_YIELD_TABLE, NO_MIN_TEMP],
+    id: 'API5L-B',
+    spec: 'API 5L',
+    grade: 'B',
+    name: 'Carbon steel line pipe, seamless and electric resistance welded',
+    category: 'carbon',
+    pNumber: '1',
+    tensilePsi: ksi(60),
+    yieldPsi: ksi(35),
+    yFamily: 'ferritic',
+    wFamily: 'carbon',
+    modulusGroup: 'carbon',
+    productForms: ['seamless', 'erw'],
+    stress: carbonStress(),
+    source: CS_SOURCE,
+    notes: [
+      ...CS_NOTES,
+      'SAW pipe: E = 0.95 (Table A-1B); no product form selects it, enter E as an override.',
+      NO_YIELD_TABLE,
+      NO_MIN_TEMP,
+    ],
   },
   {
-    id: 'A333-6', spec: 'ASTM A333', grade: '6', name: 'Carbon steel for low-temperature service, seamless and welded', category: 'low-temp-carbon', pNumber: '1',
-    tensilePsi: ksi(60), yieldPsi: ksi(35), minTempF: -50, yFamily: 'ferritic', wFamily: 'carbon', modulusGroup: 'carbon',
-    productForms: ['seamless', 'erw'], stress: carbonStress(),
+    id: 'A333-6',
+    spec: 'ASTM A333',
+    grade: '6',
+    name: 'Carbon steel for low-temperature service, seamless and welded',
+    category: 'low-temp-carbon',
+    pNumber: '1',
+    tensilePsi: ksi(60),
+    yieldPsi: ksi(35),
+    minTempF: -50,
+    yFamily: 'ferritic',
+    wFamily: 'carbon',
+    modulusGroup: 'carbon',
+    productForms: ['seamless', 'erw'],
+    stress: carbonStress(),
     source: `${CS_SOURCE} Minimum temperature −50 °F per published product sheets.`,
     notes: [...CS_NOTES, 'Minimum temperature −50 °F (product sheets).', NO_YIELD_TABLE],
   },
   {
-    id: 'A335-P11', spec: 'ASTM A335', grade: 'P11', name: '1¼Cr-½Mo alloy steel, seamless', category: 'cr-mo',
-    tensilePsi: ksi(60), yieldPsi: ksi(30), yFamily: 'ferritic', wFamily: 'cr-mo', modulusGroup: 'cr-mo-low',
-    productForms: ['seamless'], stress: row(A335_T, [20.0, 18.0, 17.5, 17.2, 16.7, 15.6, 15.0, 12.8, 6.3, 2.8, 1.2], false),
-    source: A335_SOURCE, notes: [...A335_NOTES, NO_YIELD_TABLE],
-  },
-  {
-    id: 'A335-P22', spec: 'ASTM A335', grade: 'P22', name: '2¼Cr-1Mo alloy steel, seamless', category: 'cr-mo',
-    tensilePsi: ksi(60), yieldPsi: ksi(30), yFamily: 'ferritic', wFamily: 'cr-mo', modulusGroup: 'cr-mo-2-1/4',
-    productForms: ['seamless'], stress: row(A335_T, [20.0, 18.0, 17.9, 17.9, 17.9, 17.9, 17.8, 12.8, 7.8, 3.2, 1.6], false),
-    source: A335_SOURCE, notes: [...A335_NOTES, NO_YIELD_TABLE],
-  },
-  {
-    id: 'A335-P5', spec: 'ASTM A335', grade: 'P5', name: '5Cr-½Mo alloy steel, seamless', category: 'cr-mo',
-    tensilePsi: ksi(60), yieldPsi: ksi(30), yFamily: 'ferritic', wFamily: 'cr-mo', modulusGroup: 'cr-mo-5-9',
-    productForms: ['seamless'], stress: row(A335_T, [20.0, 17.4, 17.2, 17.1, 16.8, 16.3, 12.8, 10.9, 5.8, 2.9, 1.0], false),
-    source: A335_SOURCE, notes: [...A335_NOTES, NO_YIELD_TABLE],
-  },
-  {
-    id: 'A335-P91', spec: 'ASTM A335', grade: 'P91', name: '9Cr-1Mo-V alloy steel (CSEF), seamless', category: 'cr-mo',
-    tensilePsi: ksi(85), yieldPsi: ksi(60), yFamily: 'ferritic', wFamily: 'csef', modulusGroup: 'cr-mo-5-9',
-    productForms: ['seamless'], stress: row(A335_T, [28.3, 28.3, 28.2, 28.1, 27.7, 26.7, 24.9, 22.3, 18.0, 10.3, 4.3], false),
+    id: 'A335-P11',
+    spec: 'ASTM A335',
+    grade: 'P11',
+    name: '1¼Cr-½Mo alloy steel, seamless',
+    category: 'cr-mo',
+    tensilePsi: ksi(60),
+    yieldPsi: ksi(30),
+    yFamily: 'ferritic',
+    wFamily: 'cr-mo',
+    modulusGroup: 'cr-mo-low',
+    productForms: ['seamless'],
+    stress: row(A335_T, [20.0, 18.0, 17.5, 17.2, 16.7, 15.6, 15.0, 12.8, 6.3, 2.8, 1.2], false),
     source: A335_SOURCE,
-    notes: [...A335_NOTES, 'W family CSEF: no CSEF row of Table 302.3.5 is embedded; welded P91 needs W entered or verified.', NO_YIELD_TABLE],
+    notes: [...A335_NOTES, NO_YIELD_TABLE],
   },
   {
-    id: 'A312-TP304', spec: 'ASTM A312', grade: 'TP304', name: 'Austenitic stainless steel 304, seamless and welded', category: 'austenitic', pNumber: '8',
-    tensilePsi: ksi(75), yieldPsi: ksi(30), minTempF: -425, yFamily: 'austenitic', wFamily: 'austenitic', modulusGroup: 'austenitic',
+    id: 'A335-P22',
+    spec: 'ASTM A335',
+    grade: 'P22',
+    name: '2¼Cr-1Mo alloy steel, seamless',
+    category: 'cr-mo',
+    tensilePsi: ksi(60),
+    yieldPsi: ksi(30),
+    yFamily: 'ferritic',
+    wFamily: 'cr-mo',
+    modulusGroup: 'cr-mo-2-1/4',
+    productForms: ['seamless'],
+    stress: row(A335_T, [20.0, 18.0, 17.9, 17.9, 17.9, 17.9, 17.8, 12.8, 7.8, 3.2, 1.6], false),
+    source: A335_SOURCE,
+    notes: [...A335_NOTES, NO_YIELD_TABLE],
+  },
+  {
+    id: 'A335-P5',
+    spec: 'ASTM A335',
+    grade: 'P5',
+    name: '5Cr-½Mo alloy steel, seamless',
+    category: 'cr-mo',
+    tensilePsi: ksi(60),
+    yieldPsi: ksi(30),
+    yFamily: 'ferritic',
+    wFamily: 'cr-mo',
+    modulusGroup: 'cr-mo-5-9',
+    productForms: ['seamless'],
+    stress: row(A335_T, [20.0, 17.4, 17.2, 17.1, 16.8, 16.3, 12.8, 10.9, 5.8, 2.9, 1.0], false),
+    source: A335_SOURCE,
+    notes: [...A335_NOTES, NO_YIELD_TABLE],
+  },
+  {
+    id: 'A335-P91',
+    spec: 'ASTM A335',
+    grade: 'P91',
+    name: '9Cr-1Mo-V alloy steel (CSEF), seamless',
+    category: 'cr-mo',
+    tensilePsi: ksi(85),
+    yieldPsi: ksi(60),
+    yFamily: 'ferritic',
+    wFamily: 'csef',
+    modulusGroup: 'cr-mo-5-9',
+    productForms: ['seamless'],
+    stress: row(A335_T, [28.3, 28.3, 28.2, 28.1, 27.7, 26.7, 24.9, 22.3, 18.0, 10.3, 4.3], false),
+    source: A335_SOURCE,
+    notes: [
+      ...A335_NOTES,
+      'W family CSEF: no CSEF row of Table 302.3.5 is embedded; welded P91 needs W entered or verified.',
+      NO_YIELD_TABLE,
+    ],
+  },
+  {
+    id: 'A312-TP304',
+    spec: 'ASTM A312',
+    grade: 'TP304',
+    name: 'Austenitic stainless steel 304, seamless and welded',
+    category: 'austenitic',
+    pNumber: '8',
+    tensilePsi: ksi(75),
+    yieldPsi: ksi(30),
+    minTempF: -425,
+    yFamily: 'austenitic',
+    wFamily: 'austenitic',
+    modulusGroup: 'austenitic',
     productForms: A312_FORMS,
-    stress: row(SS_T, [20.0, 20.0, 20.0, 18.6, 17.5, 16.6, 16.2, 15.8, 15.5, 15.2, 14.9, 14.6, 14.3, 14.0], true),
+    stress: row(
+      SS_T,
+      [20.0, 20.0, 20.0, 18.6, 17.5, 16.6, 16.2, 15.8, 15.5, 15.2, 14.9, 14.6, 14.3, 14.0],
+      true,
+    ),
     yield: Y_304,
     source: `${A312_MEM_SOURCE} Sy(T): ${YIELD_SOURCE}.`,
-    notes: [`All S values ${FROM_MEMORY_NOTE}.`, `Sy(T) table (304) is provisional, ${FROM_MEMORY_NOTE}.`, LOW_TEMP_425],
+    notes: [
+      `All S values ${FROM_MEMORY_NOTE}.`,
+      `Sy(T) table (304) is provisional, ${FROM_MEMORY_NOTE}.`,
+      LOW_TEMP_425,
+    ],
   },
   {
-    id: 'A312-TP304L', spec: 'ASTM A312', grade: 'TP304L', name: 'Austenitic stainless steel 304L, seamless and welded', category: 'austenitic', pNumber: '8',
-    tensilePsi: ksi(70), yieldPsi: ksi(25), minTempF: -425, yFamily: 'austenitic', wFamily: 'austenitic', modulusGroup: 'austenitic',
+    id: 'A312-TP304L',
+    spec: 'ASTM A312',
+    grade: 'TP304L',
+    name: 'Austenitic stainless steel 304L, seamless and welded',
+    category: 'austenitic',
+    pNumber: '8',
+    tensilePsi: ksi(70),
+    yieldPsi: ksi(25),
+    minTempF: -425,
+    yFamily: 'austenitic',
+    wFamily: 'austenitic',
+    modulusGroup: 'austenitic',
     productForms: A312_FORMS,
-    stress: row(SS_T, [16.7, 16.7, 16.7, 15.8, 14.7, 14.0, 13.7, 13.5, 13.3, 13.0, 12.8, 12.6, 12.3, 12.0], true),
+    stress: row(
+      SS_T,
+      [16.7, 16.7, 16.7, 15.8, 14.7, 14.0, 13.7, 13.5, 13.3, 13.0, 12.8, 12.6, 12.3, 12.0],
+      true,
+    ),
     source: A312_MEM_SOURCE,
     notes: [`All S values ${FROM_MEMORY_NOTE}.`, NO_YIELD_TABLE, LOW_TEMP_425],
   },
   {
-    id: 'A312-TP316', spec: 'ASTM A312', grade: 'TP316', name: 'Austenitic stainless steel 316, seamless and welded', category: 'austenitic', pNumber: '8',
-    tensilePsi: ksi(75), yieldPsi: ksi(30), yFamily: 'austenitic', wFamily: 'austenitic', modulusGroup: 'austenitic',
+    id: 'A312-TP316',
+    spec: 'ASTM A312',
+    grade: 'TP316',
+    name: 'Austenitic stainless steel 316, seamless and welded',
+    category: 'austenitic',
+    pNumber: '8',
+    tensilePsi: ksi(75),
+    yieldPsi: ksi(30),
+    yFamily: 'austenitic',
+    wFamily: 'austenitic',
+    modulusGroup: 'austenitic',
     productForms: A312_FORMS,
     stress: [...row(TP316_MEM_T, TP316_MEM_S, true), ...row(TP316_PUB_T, TP316_PUB_S, false)],
     yield: Y_316,
@@ -212,25 +384,54 @@ export const MATERIALS: readonly Material[] = [
     ],
   },
   {
-    id: 'A312-TP316L', spec: 'ASTM A312', grade: 'TP316L', name: 'Austenitic stainless steel 316L, seamless and welded', category: 'austenitic', pNumber: '8',
-    tensilePsi: ksi(70), yieldPsi: ksi(25), yFamily: 'austenitic', wFamily: 'austenitic', modulusGroup: 'austenitic',
+    id: 'A312-TP316L',
+    spec: 'ASTM A312',
+    grade: 'TP316L',
+    name: 'Austenitic stainless steel 316L, seamless and welded',
+    category: 'austenitic',
+    pNumber: '8',
+    tensilePsi: ksi(70),
+    yieldPsi: ksi(25),
+    yFamily: 'austenitic',
+    wFamily: 'austenitic',
+    modulusGroup: 'austenitic',
     productForms: A312_FORMS,
-    stress: row(SS_T, [16.7, 16.7, 16.7, 15.7, 14.8, 14.0, 13.7, 13.5, 13.2, 12.9, 12.7, 12.4, 12.1, 11.8], true),
+    stress: row(
+      SS_T,
+      [16.7, 16.7, 16.7, 15.7, 14.8, 14.0, 13.7, 13.5, 13.2, 12.9, 12.7, 12.4, 12.1, 11.8],
+      true,
+    ),
     source: A312_MEM_SOURCE,
     notes: [`All S values ${FROM_MEMORY_NOTE}.`, NO_YIELD_TABLE, NO_MIN_TEMP],
   },
   {
-    id: 'A312-TP321', spec: 'ASTM A312', grade: 'TP321', name: 'Austenitic stainless steel 321, seamless and welded', category: 'austenitic', pNumber: '8',
-    tensilePsi: ksi(75), yieldPsi: ksi(30), yFamily: 'austenitic', wFamily: 'austenitic', modulusGroup: 'austenitic',
+    id: 'A312-TP321',
+    spec: 'ASTM A312',
+    grade: 'TP321',
+    name: 'Austenitic stainless steel 321, seamless and welded',
+    category: 'austenitic',
+    pNumber: '8',
+    tensilePsi: ksi(75),
+    yieldPsi: ksi(30),
+    yFamily: 'austenitic',
+    wFamily: 'austenitic',
+    modulusGroup: 'austenitic',
     productForms: A312_FORMS,
-    stress: row(SS_T, [20.0, 20.0, 20.0, 20.0, 19.3, 18.3, 17.9, 17.5, 17.2, 16.9, 16.7, 16.5, 16.4, 16.2], true),
+    stress: row(
+      SS_T,
+      [20.0, 20.0, 20.0, 20.0, 19.3, 18.3, 17.9, 17.5, 17.2, 16.9, 16.7, 16.5, 16.4, 16.2],
+      true,
+    ),
     source: A312_MEM_SOURCE,
     notes: [`All S values ${FROM_MEMORY_NOTE}.`, NO_YIELD_TABLE, NO_MIN_TEMP],
   },
 ];
 
 /** Notes for stretches of a stress row where the source omits a column (keyed by row object). */
-const GAP_NOTES = new WeakMap<readonly MaterialPoint[], { fromF: number; toF: number; note: string }>();
+const GAP_NOTES = new WeakMap<
+  readonly MaterialPoint[],
+  { fromF: number; toF: number; note: string }
+>();
 /** Source of each built-in row on its own (the material's `source` names all its rows). */
 const ROW_SOURCES = new WeakMap<readonly MaterialPoint[], string>();
 for (const m of MATERIALS) {
@@ -260,7 +461,10 @@ export function normalizeMaterialKey(s: string): string {
 }
 
 function fullKeys(m: Material): string[] {
-  const keys = new Set<string>([normalizeMaterialKey(m.id), normalizeMaterialKey(`${m.spec} ${m.grade}`)]);
+  const keys = new Set<string>([
+    normalizeMaterialKey(m.id),
+    normalizeMaterialKey(`${m.spec} ${m.grade}`),
+  ]);
   const g = normalizeMaterialKey(m.grade);
   if (g.startsWith('TP')) keys.add(normalizeMaterialKey(`${m.spec} ${g.slice(2)}`));
   return [...keys];
@@ -315,7 +519,9 @@ export function findMaterial(idOrSpec: string): Material | undefined {
  * material with a library id replaces the library row); a bare grade resolves only when unambiguous
  * over the combined list.
  */
-export function createMaterialLookup(extra: readonly Material[]): (idOrSpec: string) => Material | undefined {
+export function createMaterialLookup(
+  extra: readonly Material[],
+): (idOrSpec: string) => Material | undefined {
   return buildIndex([...extra, ...MATERIALS]);
 }
 
@@ -323,7 +529,9 @@ export function createMaterialLookup(extra: readonly Material[]): (idOrSpec: str
 // Lookups at temperature
 // ---------------------------------------------------------------------------------------------
 
-export type Lookup = { ok: true; value: number; fromMemory: boolean; source: string } | { ok: false; reason: string };
+export type Lookup =
+  | { ok: true; value: number; fromMemory: boolean; source: string }
+  | { ok: false; reason: string };
 
 const fmtT = (t: number): string => `${Math.round(t * 100) / 100} °F`;
 
@@ -360,7 +568,8 @@ function lookupRow(
       ? `at ${fmtT(tempF)} (the ≤${fmtT(table[0]!.x)} value)`
       : `at ${fmtT(tempF)}`
     : `at ${fmtT(tempF)}, interpolated between ${fmtT(b.lo.x)} and ${fmtT(b.hi.x)}`;
-  if (gap !== undefined && !b.exact && b.lo.x === gap.fromF && b.hi.x === gap.toF) where += ` (${gap.note})`;
+  if (gap !== undefined && !b.exact && b.lo.x === gap.fromF && b.hi.x === gap.toF)
+    where += ` (${gap.note})`;
   return {
     ok: true,
     value: r.value,
@@ -382,7 +591,10 @@ function belowMinimum(m: Material, tempF: number, what: string): Lookup | undefi
 /** Allowable stress S (psi) at tempF; reason names the table range when above the top temperature or below minTempF. */
 export function allowableStressAt(m: Material, tempF: number): Lookup {
   const what = `${m.id} allowable stress S`;
-  return belowMinimum(m, tempF, what) ?? lookupRow(m.stress, tempF, what, ROW_SOURCES.get(m.stress) ?? m.source, GAP_NOTES.get(m.stress));
+  return (
+    belowMinimum(m, tempF, what) ??
+    lookupRow(m.stress, tempF, what, ROW_SOURCES.get(m.stress) ?? m.source, GAP_NOTES.get(m.stress))
+  );
 }
 
 /**
@@ -398,7 +610,10 @@ export function yieldStrengthAt(m: Material, tempF: number): Lookup {
       reason: `${what}: no yield-versus-temperature table is held for ${m.id}; the specified minimum yield is ${m.yieldPsi} psi at room temperature`,
     };
   }
-  return belowMinimum(m, tempF, what) ?? lookupRow(m.yield, tempF, what, ROW_SOURCES.get(m.yield) ?? m.source);
+  return (
+    belowMinimum(m, tempF, what) ??
+    lookupRow(m.yield, tempF, what, ROW_SOURCES.get(m.yield) ?? m.source)
+  );
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -413,11 +628,26 @@ const mpsi = (temps: readonly number[], values: readonly number[]): MaterialPoin
 
 /** Modulus of elasticity, psi, by group. */
 export const MODULUS_TABLE: Readonly<Record<ModulusGroup, readonly MaterialPoint[]>> = {
-  carbon: mpsi(MOD_T.slice(0, 14), [31.4, 30.8, 30.2, 29.5, 28.8, 28.3, 27.7, 27.3, 26.7, 25.5, 24.2, 22.4, 20.4, 18.0]),
-  'cr-mo-low': mpsi(MOD_T, [31.6, 31.0, 30.4, 29.7, 29.0, 28.5, 27.9, 27.5, 26.9, 26.3, 25.5, 24.8, 23.9, 23.0, 21.8]),
-  'cr-mo-2-1/4': mpsi(MOD_T, [32.6, 32.0, 31.4, 30.6, 29.8, 29.4, 28.8, 28.3, 27.7, 27.1, 26.3, 25.6, 24.6, 23.7, 22.5]),
-  'cr-mo-5-9': mpsi(MOD_T, [32.9, 32.3, 31.7, 30.9, 30.1, 29.7, 29.0, 28.6, 28.0, 27.3, 26.1, 24.7, 22.7, 20.4, 18.2]),
-  austenitic: mpsi(MOD_T, [30.3, 29.7, 29.1, 28.3, 27.6, 27.0, 26.5, 25.8, 25.3, 24.8, 24.1, 23.5, 22.8, 22.1, 21.2]),
+  carbon: mpsi(
+    MOD_T.slice(0, 14),
+    [31.4, 30.8, 30.2, 29.5, 28.8, 28.3, 27.7, 27.3, 26.7, 25.5, 24.2, 22.4, 20.4, 18.0],
+  ),
+  'cr-mo-low': mpsi(
+    MOD_T,
+    [31.6, 31.0, 30.4, 29.7, 29.0, 28.5, 27.9, 27.5, 26.9, 26.3, 25.5, 24.8, 23.9, 23.0, 21.8],
+  ),
+  'cr-mo-2-1/4': mpsi(
+    MOD_T,
+    [32.6, 32.0, 31.4, 30.6, 29.8, 29.4, 28.8, 28.3, 27.7, 27.1, 26.3, 25.6, 24.6, 23.7, 22.5],
+  ),
+  'cr-mo-5-9': mpsi(
+    MOD_T,
+    [32.9, 32.3, 31.7, 30.9, 30.1, 29.7, 29.0, 28.6, 28.0, 27.3, 26.1, 24.7, 22.7, 20.4, 18.2],
+  ),
+  austenitic: mpsi(
+    MOD_T,
+    [30.3, 29.7, 29.1, 28.3, 27.6, 27.0, 26.5, 25.8, 25.3, 24.8, 24.1, 23.5, 22.8, 22.1, 21.2],
+  ),
 };
 
 const MODULUS_GROUP_LABEL: Readonly<Record<ModulusGroup, string>> = {
@@ -431,6 +661,12 @@ const MODULUS_GROUP_LABEL: Readonly<Record<ModulusGroup, string>> = {
 /** Elastic modulus (psi) at tempF for a B31.3 Table C-6 group; below −325 °F the −325 °F value. */
 export function elasticModulusAt(group: ModulusGroup, tempF: number): Lookup {
   const points = MODULUS_TABLE[group];
-  if (points === undefined) return { ok: false, reason: `unknown modulus group "${String(group)}"` };
-  return lookupRow(points, tempF, `elastic modulus (${MODULUS_GROUP_LABEL[group]})`, MODULUS_SOURCE);
+  if (points === undefined)
+    return { ok: false, reason: `unknown modulus group "${String(group)}"` };
+  return lookupRow(
+    points,
+    tempF,
+    `elastic modulus (${MODULUS_GROUP_LABEL[group]})`,
+    MODULUS_SOURCE,
+  );
 }

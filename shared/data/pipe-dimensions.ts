@@ -505,7 +505,10 @@ export interface ScheduleChoice {
 }
 
 function buildChoices(): Record<PipeStandard, Map<string, readonly ScheduleChoice[]>> {
-  const out: Record<PipeStandard, Map<string, readonly ScheduleChoice[]>> = { 'B36.10M': new Map(), 'B36.19M': new Map() };
+  const out: Record<PipeStandard, Map<string, readonly ScheduleChoice[]>> = {
+    'B36.10M': new Map(),
+    'B36.19M': new Map(),
+  };
   for (const [nps, walls] of WALL_LISTS) {
     for (const standard of ['B36.10M', 'B36.19M'] as const) {
       const own = walls.filter((w) => w.standard === standard);
@@ -543,7 +546,10 @@ const NO_CHOICES: readonly ScheduleChoice[] = Object.freeze([]);
  * choice that names them all. Empty when the standard does not list the size. Scope
  * [ASME B36.10M / B36.19M]: B36.10M lists 10…160, STD, XS, XXS; B36.19M lists 5S, 10S, 40S, 80S.
  */
-export function listScheduleChoices(nps: string, standard: PipeStandard): readonly ScheduleChoice[] {
+export function listScheduleChoices(
+  nps: string,
+  standard: PipeStandard,
+): readonly ScheduleChoice[] {
   return CHOICES[standard].get(nps) ?? NO_CHOICES;
 }
 

@@ -1,6 +1,13 @@
 import type { SpoolDocument, SpoolElement } from '../model/spool';
 import { CAUTION } from '../model/caution';
-import type { CheckStatus, CheckSummary, ElementCheck, ElementFigures, SpoolCheck, SpoolFigures } from './types';
+import type {
+  CheckStatus,
+  CheckSummary,
+  ElementCheck,
+  ElementFigures,
+  SpoolCheck,
+  SpoolFigures,
+} from './types';
 import { checkElement, checkElementFigures } from './check-element';
 import type { MaterialFinder, ResolveCache } from './resolve';
 
@@ -9,7 +16,13 @@ export interface CheckOptions {
   readonly findMaterial?: MaterialFinder;
 }
 
-const SEVERITY: Record<CheckStatus, number> = { pass: 0, marginal: 1, review: 2, fail: 3, invalid: 4 };
+const SEVERITY: Record<CheckStatus, number> = {
+  pass: 0,
+  marginal: 1,
+  review: 2,
+  fail: 3,
+  invalid: 4,
+};
 
 /** The worse of two statuses (invalid > fail > review > marginal > pass). */
 export function worseStatus(a: CheckStatus | null, b: CheckStatus): CheckStatus {
@@ -23,7 +36,9 @@ export function worseStatus(a: CheckStatus | null, b: CheckStatus): CheckStatus 
  * JSON, the calc sheet). Pure and synchronous; rule violations are element results, never exceptions.
  */
 export function checkSpool(doc: SpoolDocument, options: CheckOptions = {}): SpoolCheck {
-  const elements: ElementCheck[] = doc.elements.map((el, i) => checkElement(doc, el, i, options.findMaterial));
+  const elements: ElementCheck[] = doc.elements.map((el, i) =>
+    checkElement(doc, el, i, options.findMaterial),
+  );
   return summarise(doc, elements);
 }
 
@@ -37,7 +52,8 @@ export function checkSpoolFigures(doc: SpoolDocument, options: CheckOptions = {}
   const cache: ResolveCache = new Map();
   const els = doc.elements;
   const elements: ElementFigures[] = new Array<ElementFigures>(els.length);
-  for (let i = 0; i < els.length; i++) elements[i] = checkElementFigures(doc, els[i]!, i, options.findMaterial, cache);
+  for (let i = 0; i < els.length; i++)
+    elements[i] = checkElementFigures(doc, els[i]!, i, options.findMaterial, cache);
   return summarise(doc, elements);
 }
 
@@ -56,10 +72,20 @@ export interface SpoolFiguresSummary {
  * summaries and batch re-checks of whole projects, where holding thousands of result objects only
  * to count them would cost more than computing them.
  */
-export function visitSpoolFigures(doc: SpoolDocument, visit: (figures: ElementFigures) => void, options: CheckOptions = {}): SpoolFiguresSummary {
+export function visitSpoolFigures(
+  doc: SpoolDocument,
+  visit: (figures: ElementFigures) => void,
+  options: CheckOptions = {},
+): SpoolFiguresSummary {
   const cache: ResolveCache = new Map();
   const els = doc.elements;
-  const summary: { -readonly [K in keyof CheckSummary]: number } = { pass: 0, marginal: 0, fail: 0, review: 0, invalid: 0 };
+  const summary: { -readonly [K in keyof CheckSummary]: number } = {
+    pass: 0,
+    marginal: 0,
+    fail: 0,
+    review: 0,
+    invalid: 0,
+  };
   let worst: CheckStatus | null = null;
   for (let i = 0; i < els.length; i++) {
     const f = checkElementFigures(doc, els[i]!, i, options.findMaterial, cache);
@@ -74,14 +100,33 @@ export function visitSpoolFigures(doc: SpoolDocument, visit: (figures: ElementFi
  * The full check of one element, trail included, found by id (or null when the document has no
  * such element). For the calc sheet and any view of a single element's working.
  */
-export function explainElement(doc: SpoolDocument, elementId: string, options: CheckOptions = {}): ElementCheck | null {
+export function explainElement(
+  doc: SpoolDocument,
+  elementId: string,
+  options: CheckOptions = {},
+): ElementCheck | null {
   const index = doc.elements.findIndex((e) => e.id === elementId);
   const el = doc.elements[index];
   return el ? checkElement(doc, el, index, options.findMaterial) : null;
 }
 
-function summarise<E extends { readonly status: CheckStatus }>(doc: SpoolDocument, elements: readonly E[]): { units: SpoolDocument['units']; elements: readonly E[]; summary: CheckSummary; worst: CheckStatus | null; caution: string } {
-  const summary: { -readonly [K in keyof CheckSummary]: number } = { pass: 0, marginal: 0, fail: 0, review: 0, invalid: 0 };
+function summarise<E extends { readonly status: CheckStatus }>(
+  doc: SpoolDocument,
+  elements: readonly E[],
+): {
+  units: SpoolDocument['units'];
+  elements: readonly E[];
+  summary: CheckSummary;
+  worst: CheckStatus | null;
+  caution: string;
+} {
+  const summary: { -readonly [K in keyof CheckSummary]: number } = {
+    pass: 0,
+    marginal: 0,
+    fail: 0,
+    review: 0,
+    invalid: 0,
+  };
   let worst: CheckStatus | null = null;
   for (const e of elements) {
     summary[e.status] += 1;
@@ -140,7 +185,12 @@ export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocum
     lastResults = results;
     lastSeverity = severity;
     lastDoc = doc;
-    lastCheck = { units: doc.units, elements: results, ...countSeverities(severity), caution: CAUTION };
+    lastCheck = {
+      units: doc.units,
+      elements: results,
+      ...countSeverities(severity),
+      caution: CAUTION,
+    };
     return lastCheck;
   };
 }
@@ -148,10 +198,22 @@ export function createSpoolChecker(options: CheckOptions = {}): (doc: SpoolDocum
 const BY_SEVERITY: readonly CheckStatus[] = ['pass', 'marginal', 'review', 'fail', 'invalid'];
 
 /** Summary counts and the worst status from per-element severities (same as folding worseStatus). */
-function countSeverities(severity: Uint8Array): { summary: CheckSummary; worst: CheckStatus | null } {
+function countSeverities(severity: Uint8Array): {
+  summary: CheckSummary;
+  worst: CheckStatus | null;
+} {
   const counts = [0, 0, 0, 0, 0];
   for (let i = 0; i < severity.length; i++) counts[severity[i]!]! += 1;
   let worst: CheckStatus | null = null;
   for (let k = 0; k < counts.length; k++) if (counts[k]! > 0) worst = BY_SEVERITY[k]!;
-  return { summary: { pass: counts[0]!, marginal: counts[1]!, fail: counts[3]!, review: counts[2]!, invalid: counts[4]! }, worst };
+  return {
+    summary: {
+      pass: counts[0]!,
+      marginal: counts[1]!,
+      fail: counts[3]!,
+      review: counts[2]!,
+      invalid: counts[4]!,
+    },
+    worst,
+  };
 }

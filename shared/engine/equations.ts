@@ -4,18 +4,41 @@
  */
 
 /** Eq. (3a), para. 304.1.2: pressure design thickness of straight pipe, t = P·D / (2·(S·E·W + P·Y)). */
-export function straightThickness(P: number, D: number, S: number, E: number, W: number, Y: number): number {
+export function straightThickness(
+  P: number,
+  D: number,
+  S: number,
+  E: number,
+  W: number,
+  Y: number,
+): number {
   return (P * D) / (2 * (S * E * W + P * Y));
 }
 
 /** Eq. (3b), para. 304.1.2, inside-diameter form: t = P·(d + 2c) / (2·[S·E·W − P·(1 − Y)]). [from memory] */
-export function straightThicknessFromId(P: number, d: number, c: number, S: number, E: number, W: number, Y: number): number {
+export function straightThicknessFromId(
+  P: number,
+  d: number,
+  c: number,
+  S: number,
+  E: number,
+  W: number,
+  Y: number,
+): number {
   const den = 2 * (S * E * W - P * (1 - Y));
   return den > 0 ? (P * (d + 2 * c)) / den : Number.POSITIVE_INFINITY;
 }
 
 /** Eq. (3c), para. 304.2.1: pressure design thickness of a bend, t = P·D / (2·[(S·E·W / I) + P·Y]). */
-export function bendThickness(P: number, D: number, S: number, E: number, W: number, Y: number, I: number): number {
+export function bendThickness(
+  P: number,
+  D: number,
+  S: number,
+  E: number,
+  W: number,
+  Y: number,
+  I: number,
+): number {
   return (P * D) / (2 * ((S * E * W) / I + P * Y));
 }
 
@@ -30,7 +53,15 @@ export function extradosFactor(radiusOverD: number): number {
 }
 
 /** Eq. (3a)/(3c) solved for P: the pressure a wall t holds, P = 2·(S·E·W/I)·t / (D − 2·Y·t). */
-export function pressureForThickness(t: number, D: number, S: number, E: number, W: number, Y: number, I = 1): number {
+export function pressureForThickness(
+  t: number,
+  D: number,
+  S: number,
+  E: number,
+  W: number,
+  Y: number,
+  I = 1,
+): number {
   if (t <= 0) return 0;
   const den = D - 2 * Y * t;
   return den > 0 ? (2 * ((S * E * W) / I) * t) / den : Number.POSITIVE_INFINITY;

@@ -55,7 +55,14 @@ export interface ExternalAllowable {
 }
 
 /** VIII-2 4.4.5.1 [from memory]: 2·Fha·(t/Do) and its intermediate values. */
-function viii2(Do: number, t: number, L: number, Ey: number, Sy: number, out: { Mx: number; Ch: number; Fhe: number; Fic: number; FS: number; Fha: number } | null): number {
+function viii2(
+  Do: number,
+  t: number,
+  L: number,
+  Ey: number,
+  Sy: number,
+  out: { Mx: number; Ch: number; Fhe: number; Fic: number; FS: number; Fha: number } | null,
+): number {
   const ratio = Do / t;
   // L capped at 50·Do like the chart, so an "infinitely long" cylinder stays finite.
   const Leff = Math.min(L, 50 * Do);
@@ -107,7 +114,14 @@ function ug28Thick(ratio: number, Sy: number, S: number): number {
 }
 
 /** Allowable external pressure only (no intermediate values): the function the wall solver calls. */
-export function externalAllowablePressure(Do: number, t: number, L: number, Ey: number, Sy: number, S: number): number {
+export function externalAllowablePressure(
+  Do: number,
+  t: number,
+  L: number,
+  Ey: number,
+  Sy: number,
+  S: number,
+): number {
   const ratio = Do / t;
   const el = ug28Elastic(ratio, factorAFor(Do, t, L), Ey);
   const th = ug28Thick(ratio, Sy, S);
@@ -119,7 +133,14 @@ export function externalAllowablePressure(Do: number, t: number, L: number, Ey: 
  * Allowable external pressure of a cylinder with effective wall t (after mill tolerance and
  * corrosion): the lower of the UG-28 value and the VIII-2 4.4.5.1 value, with which governs.
  */
-export function externalAllowable(Do: number, t: number, L: number, Ey: number, Sy: number, S: number): ExternalAllowable {
+export function externalAllowable(
+  Do: number,
+  t: number,
+  L: number,
+  Ey: number,
+  Sy: number,
+  S: number,
+): ExternalAllowable {
   const ratio = Do / t;
   const A = factorAFor(Do, t, L);
   const parts = { Mx: 0, Ch: 0, Fhe: 0, Fic: 0, FS: 0, Fha: 0 };
@@ -129,7 +150,12 @@ export function externalAllowable(Do: number, t: number, L: number, Ey: number, 
   const PaThick = ratio < 10 ? thick : null;
   const PaUg28 = Math.min(PaElastic, thick);
   const Pa = Math.min(PaUg28, PaVIII2);
-  const basis: ExternalBasis = Pa === PaVIII2 && PaVIII2 < PaUg28 ? 'viii2' : PaThick !== null && thick <= PaElastic ? 'ug28-thick' : 'ug28-elastic';
+  const basis: ExternalBasis =
+    Pa === PaVIII2 && PaVIII2 < PaUg28
+      ? 'viii2'
+      : PaThick !== null && thick <= PaElastic
+        ? 'ug28-thick'
+        : 'ug28-elastic';
   return { Pa, basis, PaUg28, PaVIII2, A, ...parts, PaElastic, PaThick };
 }
 
@@ -140,7 +166,14 @@ export function externalAllowable(Do: number, t: number, L: number, Ey: number, 
  * on each branch, so a few evaluations suffice. Converged to a relative 1e-12 of t.
  * Returns Do/2 when even a solid section would not hold (then the case fails).
  */
-export function minimumExternalWall(Do: number, Pext: number, L: number, Ey: number, Sy: number, S: number): number {
+export function minimumExternalWall(
+  Do: number,
+  Pext: number,
+  L: number,
+  Ey: number,
+  Sy: number,
+  S: number,
+): number {
   if (Pext <= 0) return 0;
   const tMax = Do / 2;
   if (!(externalAllowablePressure(Do, tMax, L, Ey, Sy, S) >= Pext)) return tMax;
@@ -157,9 +190,15 @@ export function minimumExternalWall(Do: number, Pext: number, L: number, Ey: num
   // Where that branch (UG-28 elastic, long cylinder, Do/t ≥ 10) is the lowest at its own root, the
   // root is the answer: below it that branch, and so the minimum, is under Pext.
   const r0 = Do / tHi;
-  if (tHi < tMax && r0 >= 10 && factorA(Do, tHi, L) === 1.1 / (r0 * r0) && ug28Elastic(r0, 1.1 / (r0 * r0), Ey) <= viii2(Do, tHi, L, Ey, Sy, null)) {
+  if (
+    tHi < tMax &&
+    r0 >= 10 &&
+    factorA(Do, tHi, L) === 1.1 / (r0 * r0) &&
+    ug28Elastic(r0, 1.1 / (r0 * r0), Ey) <= viii2(Do, tHi, L, Ey, Sy, null)
+  ) {
     let t = tHi;
-    for (let k = 0; k < 8 && externalAllowablePressure(Do, t, L, Ey, Sy, S) < Pext; k++) t *= 1 + 4e-16;
+    for (let k = 0; k < 8 && externalAllowablePressure(Do, t, L, Ey, Sy, S) < Pext; k++)
+      t *= 1 + 4e-16;
     if (externalAllowablePressure(Do, t, L, Ey, Sy, S) >= Pext) return t;
   }
   let fHi = g(tHi);

@@ -1,5 +1,12 @@
 /** The check engine's public surface: the only barrel of shared/engine. */
-export { checkSpool, checkSpoolFigures, createSpoolChecker, explainElement, visitSpoolFigures, worseStatus } from './check-spool';
+export {
+  checkSpool,
+  checkSpoolFigures,
+  createSpoolChecker,
+  explainElement,
+  visitSpoolFigures,
+  worseStatus,
+} from './check-spool';
 export type { CheckOptions, SpoolFiguresSummary } from './check-spool';
 export { checkElement, checkElementFigures, figuresOf, MARGINAL_LIMIT } from './check-element';
 export { resolveElement, SPOOL_STRESS_CODE } from './resolve';
@@ -14,6 +21,12 @@ export {
   straightThicknessFromId,
   thickWallY,
 } from './equations';
-export { EXTERNAL_BASIS_LABEL, externalAllowable, externalAllowablePressure, factorA, minimumExternalWall } from './external';
+export {
+  EXTERNAL_BASIS_LABEL,
+  externalAllowable,
+  externalAllowablePressure,
+  factorA,
+  minimumExternalWall,
+} from './external';
 export { fmt } from './format';
 export * from './types';

@@ -30,7 +30,9 @@ const BAD_TEXT = /\u0000|[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])
 export function findTextProblem(s: string): string | undefined {
   const m = BAD_TEXT.exec(s);
   if (!m) return undefined;
-  return m[0] === '\u0000' ? 'must not contain the NUL character (U+0000)' : 'must not contain a lone UTF-16 surrogate (not valid Unicode)';
+  return m[0] === '\u0000'
+    ? 'must not contain the NUL character (U+0000)'
+    : 'must not contain a lone UTF-16 surrogate (not valid Unicode)';
 }
 
 /** True when a string is storable text (no U+0000, no lone surrogate). */
@@ -43,7 +45,11 @@ export const isStorableText = (s: string): boolean => !BAD_TEXT.test(s);
 export function text(max: number, opts: { min?: number; trim?: boolean } = {}) {
   let s = z.string({ error: 'must be text' });
   if (opts.trim) s = s.trim();
-  if (opts.min !== undefined && opts.min > 0) s = s.min(opts.min, opts.min === 1 ? 'must not be empty' : `must be at least ${opts.min} characters`);
+  if (opts.min !== undefined && opts.min > 0)
+    s = s.min(
+      opts.min,
+      opts.min === 1 ? 'must not be empty' : `must be at least ${opts.min} characters`,
+    );
   return s.max(max, `must be at most ${max} characters`).superRefine((v, ctx) => {
     const problem = findTextProblem(v);
     if (problem) ctx.addIssue({ code: 'custom', message: problem });

@@ -52,7 +52,8 @@ export const PERMISSIONS: Readonly<Record<Action, readonly Role[]>> = {
   'outbox:read': ['admin'],
 };
 
-export const isRole = (value: unknown): value is Role => typeof value === 'string' && (ROLES as readonly string[]).includes(value);
+export const isRole = (value: unknown): value is Role =>
+  typeof value === 'string' && (ROLES as readonly string[]).includes(value);
 
 /** True when a member with `role` may perform `action`; no role (not a member) may do nothing. */
 export function can(role: Role | null | undefined, action: Action): boolean {

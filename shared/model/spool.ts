@@ -39,14 +39,19 @@ export type Direction = z.infer<typeof directionSchema>;
  */
 export const headingSchema = z
   .object({
-    east: z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number'),
-    north: z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number'),
+    east: z
+      .number({ error: 'must be a number' })
+      .refine(Number.isFinite, 'must be a finite number'),
+    north: z
+      .number({ error: 'must be a number' })
+      .refine(Number.isFinite, 'must be a finite number'),
     up: z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number'),
   })
   .refine((h) => Math.hypot(h.east, h.north, h.up) > 1e-9, 'must not be zero in every component');
 export type Heading = z.infer<typeof headingSchema>;
 
-const finite = () => z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number');
+const finite = () =>
+  z.number({ error: 'must be a number' }).refine(Number.isFinite, 'must be a finite number');
 const nonNegative = () => finite().refine((v) => v >= 0, 'must be zero or more');
 const positive = () => finite().refine((v) => v > 0, 'must be greater than zero');
 
@@ -63,13 +68,19 @@ export const conditionsShape = {
   /** Allowable stress S override (psi | MPa); then material may be omitted. */
   allowableStress: positive().optional(),
   /** Quality factor E override (0 < E ≤ 1); else from productForm. */
-  qualityFactor: positive().refine((v) => v <= 1, 'must be at most 1').optional(),
+  qualityFactor: positive()
+    .refine((v) => v <= 1, 'must be at most 1')
+    .optional(),
   /** Product form / longitudinal joint; sets E from B31.3 Table A-1B. Default seamless. */
   productForm: productFormSchema.optional(),
   /** Weld joint strength reduction factor W override (0 < W ≤ 1). */
-  weldStrengthFactor: positive().refine((v) => v <= 1, 'must be at most 1').optional(),
+  weldStrengthFactor: positive()
+    .refine((v) => v <= 1, 'must be at most 1')
+    .optional(),
   /** Coefficient Y override (0 ≤ Y < 1). */
-  coefficientY: nonNegative().refine((v) => v < 1, 'must be less than 1').optional(),
+  coefficientY: nonNegative()
+    .refine((v) => v < 1, 'must be less than 1')
+    .optional(),
   /** Yield strength Sy override for external pressure (psi | MPa). */
   yieldStrength: positive().optional(),
   /** Elastic modulus override for external pressure (psi | MPa). */
@@ -77,7 +88,9 @@ export const conditionsShape = {
   /** Corrosion/erosion allowance (in | mm), default 0. */
   corrosionAllowance: nonNegative().optional(),
   /** Mill under-tolerance as a fraction of nominal wall, 0 ≤ tol < 1, default 0.125. */
-  millTolerance: nonNegative().refine((v) => v < 1, 'must be less than 1 (a fraction, e.g. 0.125)').optional(),
+  millTolerance: nonNegative()
+    .refine((v) => v < 1, 'must be less than 1 (a fraction, e.g. 0.125)')
+    .optional(),
   /** Fixed mill under-tolerance length (in | mm), e.g. 0.01 in for plate-formed pipe; replaces millTolerance. */
   millToleranceLength: nonNegative().optional(),
   /** Design length L between stiffening sections for external pressure (in | mm). */
@@ -96,13 +109,13 @@ export const npsSchema = z.union([text(TEXT_LIMITS.short, { trim: true, min: 1 }
 export type NpsInput = z.infer<typeof npsSchema>;
 
 /** Schedule designation: "40", "STD", "XS", "XXS", "10S" … */
-export const scheduleSchema = z.union([text(TEXT_LIMITS.short, { trim: true, min: 1 }), positive().transform(String)]);
+export const scheduleSchema = z.union([
+  text(TEXT_LIMITS.short, { trim: true, min: 1 }),
+  positive().transform(String),
+]);
 
 /** Bend radius R1 of the pipe centreline: a length (in | mm) or a multiple of NPS-based D. */
-export const bendRadiusSchema = z.union([
-  positive(),
-  z.object({ multipleOfD: positive() }),
-]);
+export const bendRadiusSchema = z.union([positive(), z.object({ multipleOfD: positive() })]);
 export type BendRadius = z.infer<typeof bendRadiusSchema>;
 
 const elementBase = {
@@ -149,19 +162,40 @@ export const bendSchema = z.object({
 });
 export type Bend = z.infer<typeof bendSchema>;
 
-const withPipeSize = <T extends z.ZodType<{ nps?: unknown; schedule?: unknown; outsideDiameter?: unknown; insideDiameter?: unknown; nominalWall?: unknown }>>(s: T) =>
+const withPipeSize = <
+  T extends z.ZodType<{
+    nps?: unknown;
+    schedule?: unknown;
+    outsideDiameter?: unknown;
+    insideDiameter?: unknown;
+    nominalWall?: unknown;
+  }>,
+>(
+  s: T,
+) =>
   s.superRefine((el, ctx) => {
-    if (el.nps === undefined && el.outsideDiameter === undefined && el.insideDiameter === undefined) {
-      ctx.addIssue({ code: 'custom', path: ['nps'], message: 'give nps (with schedule) or outsideDiameter' });
+    if (
+      el.nps === undefined &&
+      el.outsideDiameter === undefined &&
+      el.insideDiameter === undefined
+    ) {
+      ctx.addIssue({
+        code: 'custom',
+        path: ['nps'],
+        message: 'give nps (with schedule) or outsideDiameter',
+      });
     }
     if (el.schedule === undefined && el.nominalWall === undefined) {
       ctx.addIssue({ code: 'custom', path: ['schedule'], message: 'give schedule or nominalWall' });
     }
   });
 
-export const spoolElementSchema = withPipeSize(z.discriminatedUnion('kind', [straightSchema, bendSchema], {
-  error: (iss) => (iss.code === 'invalid_union' ? 'kind must be "straight" or "bend"' : undefined),
-}));
+export const spoolElementSchema = withPipeSize(
+  z.discriminatedUnion('kind', [straightSchema, bendSchema], {
+    error: (iss) =>
+      iss.code === 'invalid_union' ? 'kind must be "straight" or "bend"' : undefined,
+  }),
+);
 export type SpoolElement = Straight | Bend;
 export type ElementKind = SpoolElement['kind'];
 
@@ -208,20 +242,42 @@ export const spoolDocumentSchema = z
     doc.elements.forEach((el, i) => {
       const prev = seen.get(el.id);
       if (prev !== undefined) {
-        ctx.addIssue({ code: 'custom', path: ['elements', i, 'id'], message: `duplicate id "${el.id}" (also elements[${prev}])` });
+        ctx.addIssue({
+          code: 'custom',
+          path: ['elements', i, 'id'],
+          message: `duplicate id "${el.id}" (also elements[${prev}])`,
+        });
       } else seen.set(el.id, i);
     });
     // Below absolute zero no table applies (B31.3 tables start far above it); a material's own
     // lower limit is the engine's to check, since it depends on the material looked up.
     const zero = ABSOLUTE_ZERO[doc.units];
     const cold = (t: number | undefined) => t !== undefined && t < zero.value;
-    if (cold(doc.conditions.temperature)) ctx.addIssue({ code: 'custom', path: ['conditions', 'temperature'], message: `must be at or above absolute zero (${zero.label})` });
+    if (cold(doc.conditions.temperature))
+      ctx.addIssue({
+        code: 'custom',
+        path: ['conditions', 'temperature'],
+        message: `must be at or above absolute zero (${zero.label})`,
+      });
     doc.elements.forEach((el, i) => {
-      if (cold(el.conditions?.temperature)) ctx.addIssue({ code: 'custom', path: ['elements', i, 'conditions', 'temperature'], message: `must be at or above absolute zero (${zero.label})` });
+      if (cold(el.conditions?.temperature))
+        ctx.addIssue({
+          code: 'custom',
+          path: ['elements', i, 'conditions', 'temperature'],
+          message: `must be at or above absolute zero (${zero.label})`,
+        });
     });
     if (doc.conditions.material === undefined && doc.conditions.allowableStress === undefined) {
-      const all = doc.elements.every((el) => el.conditions?.material !== undefined || el.conditions?.allowableStress !== undefined);
-      if (!all) ctx.addIssue({ code: 'custom', path: ['conditions', 'material'], message: 'give material or allowableStress' });
+      const all = doc.elements.every(
+        (el) =>
+          el.conditions?.material !== undefined || el.conditions?.allowableStress !== undefined,
+      );
+      if (!all)
+        ctx.addIssue({
+          code: 'custom',
+          path: ['conditions', 'material'],
+          message: 'give material or allowableStress',
+        });
     }
   });
 

@@ -63,10 +63,10 @@ const REPLACEMENTS: Record<string, string> = {
   '→': '->',
   '≈': '~',
   '√': 'sqrt',
-  'ν': 'nu',
-  'θ': 'theta',
-  'π': 'pi',
-  'Δ': 'delta',
+  ν: 'nu',
+  θ: 'theta',
+  π: 'pi',
+  Δ: 'delta',
   '″': '"',
   '′': "'",
   '⅛': '1/8',
@@ -107,7 +107,10 @@ export function toPdfText(s: string): string {
     else if (REPLACEMENTS[ch] !== undefined) out += REPLACEMENTS[ch];
     else {
       const base = ch.normalize('NFD').replace(/[\u0300-\u036f]/g, '');
-      out += [...base].every((c) => inLatinSubset(c.codePointAt(0) ?? 0xffff)) && base !== '' ? base : '?';
+      out +=
+        [...base].every((c) => inLatinSubset(c.codePointAt(0) ?? 0xffff)) && base !== ''
+          ? base
+          : '?';
     }
   }
   return out;
@@ -148,13 +151,26 @@ class Writer {
     return this.doc.heightOfString(toPdfText(text), { width });
   }
 
-  text(text: string, opts: { font?: string; size?: number; color?: string; gap?: number; x?: number; width?: number } = {}): void {
+  text(
+    text: string,
+    opts: {
+      font?: string;
+      size?: number;
+      color?: string;
+      gap?: number;
+      x?: number;
+      width?: number;
+    } = {},
+  ): void {
     const font = opts.font ?? REGULAR;
     const size = opts.size ?? 9;
     const width = opts.width ?? this.width;
     const x = opts.x ?? this.left;
     this.ensure(this.height(text, width, font, size));
-    this.doc.font(font).fontSize(size).fillColor(opts.color ?? COLORS.text);
+    this.doc
+      .font(font)
+      .fontSize(size)
+      .fillColor(opts.color ?? COLORS.text);
     this.doc.text(toPdfText(text), x, this.doc.y, { width });
     this.doc.y += opts.gap ?? 2;
     this.doc.x = this.left;
@@ -166,7 +182,12 @@ class Writer {
     this.doc.y += size * 0.4;
     this.text(text, { font: SEMIBOLD, size, color: COLORS.ink, gap: 3 });
     const y = this.doc.y;
-    this.doc.moveTo(this.left, y).lineTo(this.left + this.width, y).lineWidth(0.5).strokeColor(COLORS.rule).stroke();
+    this.doc
+      .moveTo(this.left, y)
+      .lineTo(this.left + this.width, y)
+      .lineWidth(0.5)
+      .strokeColor(COLORS.rule)
+      .stroke();
     this.doc.y = y + 4;
   }
 
@@ -182,8 +203,16 @@ class Writer {
   ): void {
     const widths = fractions.map((f) => f * this.width);
     const pad = size < 8 ? 2 : 3;
-    const drawRow = (cells: readonly string[], font: string, fill: string | null, color: string, flagIndex?: number) => {
-      const h = Math.max(...cells.map((c, i) => this.height(c, (widths[i] ?? 0) - 2 * pad, font, size))) + 2 * pad;
+    const drawRow = (
+      cells: readonly string[],
+      font: string,
+      fill: string | null,
+      color: string,
+      flagIndex?: number,
+    ) => {
+      const h =
+        Math.max(...cells.map((c, i) => this.height(c, (widths[i] ?? 0) - 2 * pad, font, size))) +
+        2 * pad;
       if (this.doc.y + h > this.bottom) {
         this.newPage();
         if (header && cells !== header) drawRow(header, SEMIBOLD, COLORS.band, COLORS.muted);
@@ -199,20 +228,36 @@ class Writer {
           .text(toPdfText(c), x + pad, y + pad, { width: (widths[i] ?? 0) - 2 * pad });
         x += widths[i] ?? 0;
       });
-      this.doc.moveTo(this.left, y + h).lineTo(this.left + this.width, y + h).lineWidth(0.3).strokeColor(COLORS.rule).stroke();
+      this.doc
+        .moveTo(this.left, y + h)
+        .lineTo(this.left + this.width, y + h)
+        .lineWidth(0.3)
+        .strokeColor(COLORS.rule)
+        .stroke();
       this.doc.x = this.left;
       this.doc.y = y + h;
     };
     if (header) {
       // Keep the header with the first row.
       const first = rows[0]?.cells ?? [];
-      const firstHeight = Math.max(0, ...first.map((c, i) => this.height(c, (widths[i] ?? 0) - 2 * pad, REGULAR, size))) + 2 * pad;
-      const headerHeight = Math.max(...header.map((c, i) => this.height(c, (widths[i] ?? 0) - 2 * pad, SEMIBOLD, size))) + 2 * pad;
+      const firstHeight =
+        Math.max(
+          0,
+          ...first.map((c, i) => this.height(c, (widths[i] ?? 0) - 2 * pad, REGULAR, size)),
+        ) +
+        2 * pad;
+      const headerHeight =
+        Math.max(
+          ...header.map((c, i) => this.height(c, (widths[i] ?? 0) - 2 * pad, SEMIBOLD, size)),
+        ) +
+        2 * pad;
       this.ensure(headerHeight + firstHeight);
       drawRow(header, SEMIBOLD, COLORS.band, COLORS.muted);
     }
     for (const r of rows) {
-      const cells = r.flag ? [...r.cells.slice(0, -1), `${r.cells[r.cells.length - 1] ?? ''}  ${r.flag}`] : r.cells;
+      const cells = r.flag
+        ? [...r.cells.slice(0, -1), `${r.cells[r.cells.length - 1] ?? ''}  ${r.flag}`]
+        : r.cells;
       drawRow(cells, r.strong ? SEMIBOLD : REGULAR, null, r.color ?? COLORS.text, undefined);
     }
     this.doc.y += 6;
@@ -234,7 +279,12 @@ class Writer {
 
 function writeCover(w: Writer, sheet: CalcSheet): void {
   w.text(sheet.title, { font: SEMIBOLD, size: 16, color: COLORS.ink, gap: 2 });
-  w.text(`${sheet.spoolName} · ${sheet.revisionLabel}`, { font: SEMIBOLD, size: 12, color: COLORS.accent, gap: 8 });
+  w.text(`${sheet.spoolName} · ${sheet.revisionLabel}`, {
+    font: SEMIBOLD,
+    size: 12,
+    color: COLORS.accent,
+    gap: 8,
+  });
   // Identity two pairs to a row, so the cover keeps room for the conditions and the summary.
   const pairs: { cells: string[] }[] = [];
   for (let i = 0; i < sheet.identity.length; i += 2) {
@@ -247,25 +297,40 @@ function writeCover(w: Writer, sheet: CalcSheet): void {
   w.heading('Design conditions');
   if (sheet.conditions.length > 0) w.rows(sheet.conditions, true);
   if (sheet.derived.length > 0) {
-    w.text('Values the check took for elements that keep the spool conditions (elements with their own conditions list theirs under their inputs):', {
-      size: 8.5,
-      color: COLORS.muted,
-    });
+    w.text(
+      'Values the check took for elements that keep the spool conditions (elements with their own conditions list theirs under their inputs):',
+      {
+        size: 8.5,
+        color: COLORS.muted,
+      },
+    );
     w.rows(sheet.derived, true);
   }
 
   w.heading('Result summary');
   w.text(sheet.summary, { size: 9 });
   if (sheet.fromMemoryCount > 0) {
-    w.text(`${sheet.fromMemoryCount} input value(s) are recalled from memory and flagged FROM MEMORY: verify them against the licensed edition.`, {
-      size: 9,
-      color: COLORS.warn,
-      font: SEMIBOLD,
-    });
+    w.text(
+      `${sheet.fromMemoryCount} input value(s) are recalled from memory and flagged FROM MEMORY: verify them against the licensed edition.`,
+      {
+        size: 9,
+        color: COLORS.warn,
+        font: SEMIBOLD,
+      },
+    );
   }
   w.doc.y += 3;
   w.table(
-    ['element', 'kind', 'size', 'governing case', 'ordered wall needed', 'chosen wall', 'margin', 'status'],
+    [
+      'element',
+      'kind',
+      'size',
+      'governing case',
+      'ordered wall needed',
+      'chosen wall',
+      'margin',
+      'status',
+    ],
     [0.09, 0.09, 0.18, 0.15, 0.15, 0.12, 0.1, 0.12],
     sheet.overview.map((r) => ({
       cells: [r.id, r.kind, r.size, r.governing, r.orderedWall, r.chosenWall, r.margin, r.status],
@@ -287,7 +352,12 @@ function writeElement(w: Writer, e: SheetElement): void {
   w.newPage();
   const color = STATUS_COLORS[e.status] ?? COLORS.text;
   w.text(`${e.title}`, { font: SEMIBOLD, size: 14, color: COLORS.ink, gap: 0 });
-  w.text(`${e.statusLabel} · governed by ${e.governing}`, { font: SEMIBOLD, size: 10, color, gap: 2 });
+  w.text(`${e.statusLabel} · governed by ${e.governing}`, {
+    font: SEMIBOLD,
+    size: 10,
+    color,
+    gap: 2,
+  });
   w.text(e.description, { size: 9, color: COLORS.muted, gap: 6 });
 
   if (e.issues.length > 0) {
@@ -306,10 +376,26 @@ function writeElement(w: Writer, e: SheetElement): void {
     w.heading('Cases', 10);
     const external = e.cases.some((c) => c.allowablePressure !== '—');
     w.table(
-      ['location', 'equation', 'I', 't', 'tm', 'ordered wall', ...(external ? ['allowable ext.'] : [])],
+      [
+        'location',
+        'equation',
+        'I',
+        't',
+        'tm',
+        'ordered wall',
+        ...(external ? ['allowable ext.'] : []),
+      ],
       external ? [0.2, 0.16, 0.08, 0.13, 0.13, 0.15, 0.15] : [0.22, 0.2, 0.1, 0.16, 0.16, 0.16],
       e.cases.map((c) => ({
-        cells: [`${c.location}${c.governing ? ' (governs)' : ''}`, c.equation, c.I, c.t, c.tm, c.orderedWall, ...(external ? [c.allowablePressure] : [])],
+        cells: [
+          `${c.location}${c.governing ? ' (governs)' : ''}`,
+          c.equation,
+          c.I,
+          c.t,
+          c.tm,
+          c.orderedWall,
+          ...(external ? [c.allowablePressure] : []),
+        ],
         strong: c.governing,
       })),
     );
@@ -322,13 +408,23 @@ function writeElement(w: Writer, e: SheetElement): void {
 
   if (e.messages.length > 0) {
     w.heading('Notes', 10);
-    for (const m of e.messages) w.text(`${m.level === 'info' ? 'note' : m.level}: ${m.text}`, { size: 8.5, color: m.level === 'error' ? COLORS.fail : m.level === 'warning' ? COLORS.warn : COLORS.text });
+    for (const m of e.messages)
+      w.text(`${m.level === 'info' ? 'note' : m.level}: ${m.text}`, {
+        size: 8.5,
+        color:
+          m.level === 'error' ? COLORS.fail : m.level === 'warning' ? COLORS.warn : COLORS.text,
+      });
   }
 
   w.heading('Equation trail', 10);
   for (const g of e.trail) {
     w.ensure(48);
-    w.text(g.title, { font: SEMIBOLD, size: 9, color: g.governing ? COLORS.accent : COLORS.ink, gap: 1 });
+    w.text(g.title, {
+      font: SEMIBOLD,
+      size: 9,
+      color: g.governing ? COLORS.accent : COLORS.ink,
+      gap: 1,
+    });
     for (const s of g.steps) {
       const block =
         w.height(`${s.label} [${s.equation}]`, w.width - 12, SEMIBOLD, 8.5) +
@@ -339,7 +435,14 @@ function writeElement(w: Writer, e: SheetElement): void {
       w.ensure(block);
       const x = w.left + 10;
       const width = w.width - 12;
-      w.text(`${s.label}  [${s.equation}]`, { x, width, font: SEMIBOLD, size: 8.5, color: COLORS.text, gap: 0 });
+      w.text(`${s.label}  [${s.equation}]`, {
+        x,
+        width,
+        font: SEMIBOLD,
+        size: 8.5,
+        color: COLORS.text,
+        gap: 0,
+      });
       w.text(s.formula, { x, width, size: 8.5, color: COLORS.muted, gap: 0 });
       w.text(s.substituted, { x, width, size: 8.5, color: COLORS.text, gap: 0 });
       w.text(s.result, { x, width, font: SEMIBOLD, size: 8.5, color: COLORS.ink, gap: 4 });
@@ -350,7 +453,10 @@ function writeElement(w: Writer, e: SheetElement): void {
   w.table(
     ['symbol', 'input', 'value', 'source'],
     [0.07, 0.25, 0.12, 0.56],
-    e.inputs.map((i) => ({ cells: [i.symbol, i.label, i.value, i.source], flag: i.fromMemory ? 'FROM MEMORY: verify' : undefined })),
+    e.inputs.map((i) => ({
+      cells: [i.symbol, i.label, i.value, i.source],
+      flag: i.fromMemory ? 'FROM MEMORY: verify' : undefined,
+    })),
     7.5,
   );
 }
@@ -366,14 +472,40 @@ function writeFurniture(doc: Doc, sheet: CalcSheet): void {
     doc.page.margins.bottom = 0;
     const inner = width - 2 * PAGE.margin;
     doc.font(REGULAR).fontSize(7.5).fillColor(COLORS.muted);
-    doc.text(toPdfText(`Spoolwright calc sheet · ${sheet.runningHeader}`), PAGE.margin, 24, { width: inner, lineBreak: false, ellipsis: true });
-    doc.moveTo(PAGE.margin, 36).lineTo(width - PAGE.margin, 36).lineWidth(0.5).strokeColor(COLORS.rule).stroke();
+    doc.text(toPdfText(`Spoolwright calc sheet · ${sheet.runningHeader}`), PAGE.margin, 24, {
+      width: inner,
+      lineBreak: false,
+      ellipsis: true,
+    });
+    doc
+      .moveTo(PAGE.margin, 36)
+      .lineTo(width - PAGE.margin, 36)
+      .lineWidth(0.5)
+      .strokeColor(COLORS.rule)
+      .stroke();
 
     const top = height - PAGE.bottom + 14;
-    doc.moveTo(PAGE.margin, top).lineTo(width - PAGE.margin, top).lineWidth(0.8).strokeColor(COLORS.accent).stroke();
-    doc.font(SEMIBOLD).fontSize(7.5).fillColor(COLORS.accent).text('Caution. ', PAGE.margin, top + 5, { continued: true });
+    doc
+      .moveTo(PAGE.margin, top)
+      .lineTo(width - PAGE.margin, top)
+      .lineWidth(0.8)
+      .strokeColor(COLORS.accent)
+      .stroke();
+    doc
+      .font(SEMIBOLD)
+      .fontSize(7.5)
+      .fillColor(COLORS.accent)
+      .text('Caution. ', PAGE.margin, top + 5, { continued: true });
     doc.font(REGULAR).fillColor(COLORS.text).text(toPdfText(sheet.caution), { width: inner });
-    doc.font(REGULAR).fontSize(7.5).fillColor(COLORS.muted).text(toPdfText(pageLabel(i + 1, range.count)), PAGE.margin, height - 26, { width: inner, align: 'right', lineBreak: false });
+    doc
+      .font(REGULAR)
+      .fontSize(7.5)
+      .fillColor(COLORS.muted)
+      .text(toPdfText(pageLabel(i + 1, range.count)), PAGE.margin, height - 26, {
+        width: inner,
+        align: 'right',
+        lineBreak: false,
+      });
     doc.page.margins.bottom = savedBottom;
   }
 }

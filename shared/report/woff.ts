@@ -9,7 +9,8 @@ const WOFF_SIGNATURE = 0x774f4646; // 'wOFF'
 
 /** Decode a WOFF 1.0 file to the SFNT it wraps; throws on anything that is not WOFF 1.0. */
 export function woffToSfnt(woff: Buffer): Buffer {
-  if (woff.length < 44 || woff.readUInt32BE(0) !== WOFF_SIGNATURE) throw new Error('not a WOFF 1.0 font');
+  if (woff.length < 44 || woff.readUInt32BE(0) !== WOFF_SIGNATURE)
+    throw new Error('not a WOFF 1.0 font');
   const flavor = woff.readUInt32BE(4);
   const numTables = woff.readUInt16BE(12);
   const tables: { tag: number; checksum: number; data: Buffer }[] = [];
@@ -22,7 +23,8 @@ export function woffToSfnt(woff: Buffer): Buffer {
     const checksum = woff.readUInt32BE(at + 16);
     const raw = woff.subarray(offset, offset + compLength);
     const data = compLength < origLength ? inflateSync(raw) : Buffer.from(raw);
-    if (data.length !== origLength) throw new Error(`WOFF table ${i} inflates to ${data.length} bytes, not ${origLength}`);
+    if (data.length !== origLength)
+      throw new Error(`WOFF table ${i} inflates to ${data.length} bytes, not ${origLength}`);
     tables.push({ tag, checksum, data });
   }
   let pow2 = 1;

@@ -12,7 +12,13 @@ import { getPipeWall, normalizeNps, normalizeSchedule } from '../data/pipe-dimen
 import type { ElementCheck, MaterialFinder, SpoolCheck } from '../engine/index';
 import { fmt } from '../engine/format';
 import { CAUTION } from '../model/caution';
-import { DEFAULT_TEST_TEMPERATURE, type EndType, type SpoolDocument, type SpoolElement, type UnitSystem } from '../model/spool';
+import {
+  DEFAULT_TEST_TEMPERATURE,
+  type EndType,
+  type SpoolDocument,
+  type SpoolElement,
+  type UnitSystem,
+} from '../model/spool';
 import { UNIT_LABELS } from '../units/units';
 import { bendArcLength, bendTangentLength } from './geometry';
 import { computeHydrotest, type Hydrotest, type HydrotestElementInput } from './hydrotest';
@@ -160,16 +166,29 @@ function endPrep(el: SpoolElement, other: SpoolElement | undefined): EndPrep {
   const own = endTypeOf(el);
   if (!other) {
     const prep = own ?? 'bevel';
-    return { at: 'free', to: null, prep, text: `${prep}${own === undefined ? ' (default)' : ''}, spool end` };
+    return {
+      at: 'free',
+      to: null,
+      prep,
+      text: `${prep}${own === undefined ? ' (default)' : ''}, spool end`,
+    };
   }
   const theirs = endTypeOf(other);
-  if (isButtPrep(own) && isButtPrep(theirs)) return { at: 'joint', to: other.id, prep: 'bevel', text: `bevel, butt weld to ${other.id}` };
+  if (isButtPrep(own) && isButtPrep(theirs))
+    return { at: 'joint', to: other.id, prep: 'bevel', text: `bevel, butt weld to ${other.id}` };
   const prep = own !== undefined && !isButtPrep(own) ? own : (theirs as EndType);
-  const what = prep === 'plain' ? 'plain end (socket or fillet-welded joint, not a butt weld)' : `${prep} joint`;
+  const what =
+    prep === 'plain'
+      ? 'plain end (socket or fillet-welded joint, not a butt weld)'
+      : `${prep} joint`;
   return { at: 'joint', to: other.id, prep, text: `${what} to ${other.id}` };
 }
 
-function materialOf(doc: SpoolDocument, el: SpoolElement, find: MaterialFinder): { id: string | null; material: Material | null } {
+function materialOf(
+  doc: SpoolDocument,
+  el: SpoolElement,
+  find: MaterialFinder,
+): { id: string | null; material: Material | null } {
   const id = el.conditions?.material ?? doc.conditions.material ?? null;
   if (id === null) return { id: null, material: null };
   const m = find(id) ?? null;
@@ -177,7 +196,11 @@ function materialOf(doc: SpoolDocument, el: SpoolElement, find: MaterialFinder):
 }
 
 /** Build the fabrication sheet of a spool from its document and its check (`checkSpool(doc, opts)`). */
-export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opts: FabricationOptions = {}): FabricationSheet {
+export function buildFabricationSheet(
+  doc: SpoolDocument,
+  check: SpoolCheck,
+  opts: FabricationOptions = {},
+): FabricationSheet {
   const units = doc.units;
   const lu = UNIT_LABELS[units].length;
   const find = opts.findMaterial ?? findLibraryMaterial;
@@ -207,18 +230,27 @@ export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opt
       return;
     }
     if (c.status === 'invalid') {
-      skipped.push({ id: el.id, reason: c.inputIssues.map((x) => `${x.path}: ${x.message}`).join('; ') || 'cannot be checked' });
+      skipped.push({
+        id: el.id,
+        reason:
+          c.inputIssues.map((x) => `${x.path}: ${x.message}`).join('; ') || 'cannot be checked',
+      });
       return;
     }
     const elNotes: string[] = [];
     const nps = el.nps !== undefined ? (normalizeNps(el.nps) ?? null) : null;
-    const schedule = el.nominalWall === undefined && el.schedule !== undefined ? (normalizeSchedule(el.schedule) ?? null) : null;
+    const schedule =
+      el.nominalWall === undefined && el.schedule !== undefined
+        ? (normalizeSchedule(el.schedule) ?? null)
+        : null;
     const D = c.outsideDiameter;
     const T = c.nominalWall;
     const { id: materialId, material } = materialOf(doc, el, find);
     const density = densityOf(material);
-    if (c.status === 'fail') elNotes.push('the wall check fails: not for fabrication until the design is corrected');
-    if (c.status === 'review') elNotes.push('para. 304.1.2(b) special consideration needed before fabrication');
+    if (c.status === 'fail')
+      elNotes.push('the wall check fails: not for fabrication until the design is corrected');
+    if (c.status === 'review')
+      elNotes.push('para. 304.1.2(b) special consideration needed before fabrication');
 
     let orderSchedule = schedule;
     let orderWall = T;
@@ -238,7 +270,9 @@ export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opt
         } else {
           orderSchedule = null;
           orderWall = pb.requiredOrderedWall;
-          elNotes.push(`no listed schedule gives the ${fmt(pb.requiredOrderedWall)} ${lu} needed before bending: order by wall`);
+          elNotes.push(
+            `no listed schedule gives the ${fmt(pb.requiredOrderedWall)} ${lu} needed before bending: order by wall`,
+          );
         }
       }
       const tminOrdered = minimumWallFor(c, orderWall);
@@ -267,8 +301,12 @@ export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opt
         bendingTangent: bendTangent,
         flattening: FLATTENING_NOTE,
       };
-      if (bend.orderHeavier) elNotes.push(`order heavier than the straight pipe: ${fmt(pb?.requiredOrderedWall ?? orderWall)} ${lu} nominal needed before bending`);
-      if (pb && pb.tableFactor === null) elNotes.push('R/NPS below the 3D start of B31.1 Table 102.4.5: geometric estimate only');
+      if (bend.orderHeavier)
+        elNotes.push(
+          `order heavier than the straight pipe: ${fmt(pb?.requiredOrderedWall ?? orderWall)} ${lu} nominal needed before bending`,
+        );
+      if (pb && pb.tableFactor === null)
+        elNotes.push('R/NPS below the 3D start of B31.1 Table 102.4.5: geometric estimate only');
       cutLength = arc + 2 * bendTangent;
       builtLength = arc;
     } else {
@@ -278,7 +316,9 @@ export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opt
     const perLength = pipeMassPerLength(orderD, orderWall, density.value, units);
     developedLength += builtLength;
     totalMass += perLength * builtLength;
-    waterMass += contentMassPerLength(Math.max(0, orderD - 2 * orderWall), WATER_DENSITY.value, units) * builtLength;
+    waterMass +=
+      contentMassPerLength(Math.max(0, orderD - 2 * orderWall), WATER_DENSITY.value, units) *
+      builtLength;
     if (density.fromMemory) elNotes.push(`density ${density.source}`);
 
     const prev = doc.elements[i - 1];
@@ -299,8 +339,10 @@ export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opt
       massPerRun: pipeMassPerRun(orderD, orderWall, density.value, units),
       cutLength,
       mass: perLength * cutLength,
-      tangentBefore: el.kind === 'straight' && prev?.kind === 'bend' ? (tangentOf.get(i - 1) ?? 0) : 0,
-      tangentAfter: el.kind === 'straight' && next?.kind === 'bend' ? (tangentOf.get(i + 1) ?? 0) : 0,
+      tangentBefore:
+        el.kind === 'straight' && prev?.kind === 'bend' ? (tangentOf.get(i - 1) ?? 0) : 0,
+      tangentAfter:
+        el.kind === 'straight' && next?.kind === 'bend' ? (tangentOf.get(i + 1) ?? 0) : 0,
       ends: [endPrep(el, prev), endPrep(el, next)],
       ...(bend ? { bend } : {}),
       notes: elNotes,
@@ -333,11 +375,31 @@ export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opt
   }
 
   // Bill of materials by NPS (or OD), schedule as ordered (or wall) and material.
-  const groups = new Map<string, { line: Omit<BomLine, 'length' | 'mass' | 'pieces' | 'elements'>; length: number; mass: number; ids: string[] }>();
+  const groups = new Map<
+    string,
+    {
+      line: Omit<BomLine, 'length' | 'mass' | 'pieces' | 'elements'>;
+      length: number;
+      mass: number;
+      ids: string[];
+    }
+  >();
   for (const e of elements) {
-    const key = [e.nps ?? `D${e.outsideDiameter}`, e.orderSchedule ?? `T${e.orderWall}`, e.material ?? '', e.density.value].join('|');
+    const key = [
+      e.nps ?? `D${e.outsideDiameter}`,
+      e.orderSchedule ?? `T${e.orderWall}`,
+      e.material ?? '',
+      e.density.value,
+    ].join('|');
     const g = groups.get(key) ?? {
-      line: { nps: e.nps, outsideDiameter: e.outsideDiameter, schedule: e.orderSchedule, wall: e.orderWall, material: e.material, massPerRun: e.massPerRun },
+      line: {
+        nps: e.nps,
+        outsideDiameter: e.outsideDiameter,
+        schedule: e.orderSchedule,
+        wall: e.orderWall,
+        material: e.material,
+        massPerRun: e.massPerRun,
+      },
       length: 0,
       mass: 0,
       ids: [],
@@ -348,13 +410,33 @@ export function buildFabricationSheet(doc: SpoolDocument, check: SpoolCheck, opt
     groups.set(key, g);
   }
   const bom: BomLine[] = [...groups.values()]
-    .map((g) => ({ ...g.line, length: g.length, mass: g.mass, pieces: g.ids.length, elements: g.ids }))
-    .sort((x, y) => x.outsideDiameter - y.outsideDiameter || x.wall - y.wall || String(x.material).localeCompare(String(y.material)));
+    .map((g) => ({
+      ...g.line,
+      length: g.length,
+      mass: g.mass,
+      pieces: g.ids.length,
+      elements: g.ids,
+    }))
+    .sort(
+      (x, y) =>
+        x.outsideDiameter - y.outsideDiameter ||
+        x.wall - y.wall ||
+        String(x.material).localeCompare(String(y.material)),
+    );
 
-  if (skipped.length > 0) notes.push(`${skipped.length} element(s) cannot be checked and are left out of the lists and totals: ${skipped.map((s) => s.id).join(', ')}`);
-  if (bendTangent > 0) notes.push(`bend pipe is cut with ${fmt(bendTangent)} ${lu} of straight at each end for the bending machine, trimmed after bending (not in the spool mass)`);
+  if (skipped.length > 0)
+    notes.push(
+      `${skipped.length} element(s) cannot be checked and are left out of the lists and totals: ${skipped.map((s) => s.id).join(', ')}`,
+    );
+  if (bendTangent > 0)
+    notes.push(
+      `bend pipe is cut with ${fmt(bendTangent)} ${lu} of straight at each end for the bending machine, trimmed after bending (not in the spool mass)`,
+    );
 
-  const hydrotest = hydroInputs.length > 0 ? computeHydrotest(hydroInputs, doc.conditions.pressure, testTemperature, units) : null;
+  const hydrotest =
+    hydroInputs.length > 0
+      ? computeHydrotest(hydroInputs, doc.conditions.pressure, testTemperature, units)
+      : null;
 
   return {
     units,

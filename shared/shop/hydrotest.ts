@@ -85,26 +85,47 @@ export function yieldLimitedPressure(Sy: number, D: number, t: number, Y: number
   return den > 0 ? (2 * Sy * t) / den : Number.POSITIVE_INFINITY;
 }
 
-function stAtTest(el: HydrotestElementInput, testF: number, units: UnitSystem, notes: string[]): { ST: number; source: string; fromMemory: boolean } {
+function stAtTest(
+  el: HydrotestElementInput,
+  testF: number,
+  units: UnitSystem,
+  notes: string[],
+): { ST: number; source: string; fromMemory: boolean } {
   if (!el.material) {
-    notes.push(`${el.id}: no material table (allowable stress given directly); ST/S taken as 1.0 — give a material for the 345.4.2 ratio`);
+    notes.push(
+      `${el.id}: no material table (allowable stress given directly); ST/S taken as 1.0 — give a material for the 345.4.2 ratio`,
+    );
     return { ST: el.S, source: 'taken equal to S (no material table)', fromMemory: false };
   }
   const r = allowableStressAt(el.material, testF);
   if (!r.ok) {
     notes.push(`${el.id}: ${r.reason}; ST/S taken as 1.0`);
-    return { ST: el.S, source: 'taken equal to S (no value at test temperature)', fromMemory: false };
+    return {
+      ST: el.S,
+      source: 'taken equal to S (no value at test temperature)',
+      fromMemory: false,
+    };
   }
   return { ST: pressureFromPsi(r.value, units), source: r.source, fromMemory: r.fromMemory };
 }
 
-function syAtTest(el: HydrotestElementInput, testF: number, units: UnitSystem): { Sy: number; source: string; fromMemory: boolean } | null {
+function syAtTest(
+  el: HydrotestElementInput,
+  testF: number,
+  units: UnitSystem,
+): { Sy: number; source: string; fromMemory: boolean } | null {
   if (el.material) {
     const r = yieldStrengthAt(el.material, testF);
-    if (r.ok) return { Sy: pressureFromPsi(r.value, units), source: r.source, fromMemory: r.fromMemory };
-    return { Sy: pressureFromPsi(el.material.yieldPsi, units), source: `${el.material.id} specified minimum yield (room temperature; no yield table held)`, fromMemory: false };
+    if (r.ok)
+      return { Sy: pressureFromPsi(r.value, units), source: r.source, fromMemory: r.fromMemory };
+    return {
+      Sy: pressureFromPsi(el.material.yieldPsi, units),
+      source: `${el.material.id} specified minimum yield (room temperature; no yield table held)`,
+      fromMemory: false,
+    };
   }
-  if (el.yieldOverride !== undefined) return { Sy: el.yieldOverride, source: 'yieldStrength from the conditions', fromMemory: false };
+  if (el.yieldOverride !== undefined)
+    return { Sy: el.yieldOverride, source: 'yieldStrength from the conditions', fromMemory: false };
   return null;
 }
 
@@ -119,21 +140,30 @@ export function computeHydrotest(
   const testF = temperatureToF(testTemperature, units);
   const notes: string[] = [];
   // Table lookups depend only on the material (and S for the fallback): once per material, not per element.
-  const cache = new Map<Material, { st: ReturnType<typeof stAtTest>; sy: ReturnType<typeof syAtTest> }>();
+  const cache = new Map<
+    Material,
+    { st: ReturnType<typeof stAtTest>; sy: ReturnType<typeof syAtTest> }
+  >();
   const lookups = (el: HydrotestElementInput) => {
-    if (!el.material) return { st: stAtTest(el, testF, units, notes), sy: syAtTest(el, testF, units) };
+    if (!el.material)
+      return { st: stAtTest(el, testF, units, notes), sy: syAtTest(el, testF, units) };
     let hit = cache.get(el.material);
     if (!hit) {
       hit = { st: stAtTest(el, testF, units, notes), sy: syAtTest(el, testF, units) };
       cache.set(el.material, hit);
     }
-    return hit.st.source.startsWith('taken equal to S') ? { st: { ...hit.st, ST: el.S }, sy: hit.sy } : hit;
+    return hit.st.source.startsWith('taken equal to S')
+      ? { st: { ...hit.st, ST: el.S }, sy: hit.sy }
+      : hit;
   };
   const rows: HydrotestElement[] = elements.map((el) => {
     const { st, sy } = lookups(el);
     const raw = st.ST / el.S;
     const ratio = Math.min(raw, HYDROTEST_RATIO_CAP);
-    if (!sy) notes.push(`${el.id}: no yield strength known; the 345.4.2(c) yield limit is not checked for it`);
+    if (!sy)
+      notes.push(
+        `${el.id}: no yield strength known; the 345.4.2(c) yield limit is not checked for it`,
+      );
     return {
       id: el.id,
       ST: st.ST,
@@ -149,16 +179,23 @@ export function computeHydrotest(
       fromMemory: st.fromMemory || (sy?.fromMemory ?? false),
     };
   });
-  if (elements.some((e) => Math.abs(e.pressure - designPressure) > 1e-9 * Math.max(1, designPressure))) {
-    notes.push('some elements carry their own design pressure: the test pressure here uses the spool design pressure; test or verify those elements separately');
+  if (
+    elements.some((e) => Math.abs(e.pressure - designPressure) > 1e-9 * Math.max(1, designPressure))
+  ) {
+    notes.push(
+      'some elements carry their own design pressure: the test pressure here uses the spool design pressure; test or verify those elements separately',
+    );
   }
   let gov: HydrotestElement | undefined;
   for (const r of rows) if (!gov || r.ratio < gov.ratio - 1e-12) gov = r;
   const ratio = gov?.ratio ?? 1;
   const unreduced = 1.5 * designPressure * ratio;
   let limit: HydrotestElement | undefined;
-  for (const r of rows) if (r.yieldPressure !== null && (!limit || r.yieldPressure < (limit.yieldPressure ?? Infinity))) limit = r;
-  const limited = limit !== undefined && limit.yieldPressure !== null && limit.yieldPressure < unreduced;
+  for (const r of rows)
+    if (r.yieldPressure !== null && (!limit || r.yieldPressure < (limit.yieldPressure ?? Infinity)))
+      limit = r;
+  const limited =
+    limit !== undefined && limit.yieldPressure !== null && limit.yieldPressure < unreduced;
   const pressure = limited ? (limit!.yieldPressure as number) : unreduced;
   let equation = gov
     ? `PT = 1.5·P·ST/S = 1.5 × ${fmt(designPressure)} × (${fmt(gov.ST)} / ${fmt(gov.S)}${gov.ratioCapped ? ', capped at 6.5' : ''}) = ${fmt(unreduced)} ${u.pressure} (B31.3 para. 345.4.2, ${gov.id} governs)`
@@ -166,9 +203,16 @@ export function computeHydrotest(
   if (limited && limit) {
     equation += `; reduced per 345.4.2(c): P = 2·Sy·t / (D − 2·Y·t) at yield in ${limit.id} = ${fmt(pressure)} ${u.pressure}`;
   }
-  if (designPressure <= 0) notes.push('the internal design pressure is 0: para. 345.4.2 gives no test pressure; piping under external pressure is tested at 1.5 × the external differential pressure, at least 15 psi (105 kPa) (para. 345.2.4, from memory): the owner sets the test');
-  if (rows.some((r) => r.ratioCapped)) notes.push('ST/S above 6.5 is capped at 6.5 (para. 345.4.2(b))');
-  if (rows.some((r) => r.fromMemory)) notes.push('uses stress or yield values recalled from memory: verify against the licensed edition');
+  if (designPressure <= 0)
+    notes.push(
+      'the internal design pressure is 0: para. 345.4.2 gives no test pressure; piping under external pressure is tested at 1.5 × the external differential pressure, at least 15 psi (105 kPa) (para. 345.2.4, from memory): the owner sets the test',
+    );
+  if (rows.some((r) => r.ratioCapped))
+    notes.push('ST/S above 6.5 is capped at 6.5 (para. 345.4.2(b))');
+  if (rows.some((r) => r.fromMemory))
+    notes.push(
+      'uses stress or yield values recalled from memory: verify against the licensed edition',
+    );
   return {
     pressure,
     unreducedPressure: unreduced,

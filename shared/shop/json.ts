@@ -24,12 +24,24 @@ export interface ShopJson {
       tangent: number;
     };
   }[];
-  readonly bom: readonly { nps: string | null; schedule: string | null; material: string | null; length: number; mass: number }[];
+  readonly bom: readonly {
+    nps: string | null;
+    schedule: string | null;
+    material: string | null;
+    length: number;
+    mass: number;
+  }[];
   readonly welds: number;
   readonly developedLength: number;
   readonly totalMass: number;
   readonly filledMass: number;
-  readonly hydrotest: { pressure: number; ratio: number; limitedBy: string | null; governing: string | null; equation: string } | null;
+  readonly hydrotest: {
+    pressure: number;
+    ratio: number;
+    limitedBy: string | null;
+    governing: string | null;
+    equation: string;
+  } | null;
   readonly caution: string;
 }
 
@@ -62,13 +74,25 @@ export function toShopJson(sheet: FabricationSheet): ShopJson {
           }
         : {}),
     })),
-    bom: sheet.bom.map((b) => ({ nps: b.nps, schedule: b.schedule, material: b.material, length: b.length, mass: b.mass })),
+    bom: sheet.bom.map((b) => ({
+      nps: b.nps,
+      schedule: b.schedule,
+      material: b.material,
+      length: b.length,
+      mass: b.mass,
+    })),
     welds: sheet.welds,
     developedLength: sheet.developedLength,
     totalMass: sheet.totalMass,
     filledMass: sheet.filledMass,
     hydrotest: sheet.hydrotest
-      ? { pressure: sheet.hydrotest.pressure, ratio: sheet.hydrotest.ratio, limitedBy: sheet.hydrotest.limitedBy, governing: sheet.hydrotest.governing, equation: sheet.hydrotest.equation }
+      ? {
+          pressure: sheet.hydrotest.pressure,
+          ratio: sheet.hydrotest.ratio,
+          limitedBy: sheet.hydrotest.limitedBy,
+          governing: sheet.hydrotest.governing,
+          equation: sheet.hydrotest.equation,
+        }
       : null,
     caution: sheet.caution,
   };

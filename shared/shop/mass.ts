@@ -6,7 +6,12 @@ import type { UnitSystem } from '../model/spool';
 import { lengthPerRun, lengthToMm, massFromKg } from '../units/units';
 
 /** Mass per document length unit (lb/in | kg/mm) of pipe with outside diameter D and wall t (document units). */
-export function pipeMassPerLength(D: number, t: number, densityKgM3: number, units: UnitSystem): number {
+export function pipeMassPerLength(
+  D: number,
+  t: number,
+  densityKgM3: number,
+  units: UnitSystem,
+): number {
   const Dmm = lengthToMm(D, units);
   const tmm = lengthToMm(t, units);
   // kg per mm of pipe: ρ·π·(D − t)·t with mm² → m² and per m → per mm (10⁻⁹).
@@ -15,7 +20,12 @@ export function pipeMassPerLength(D: number, t: number, densityKgM3: number, uni
 }
 
 /** Mass per run unit (lb/ft | kg/m), the way pipe tables list it. */
-export function pipeMassPerRun(D: number, t: number, densityKgM3: number, units: UnitSystem): number {
+export function pipeMassPerRun(
+  D: number,
+  t: number,
+  densityKgM3: number,
+  units: UnitSystem,
+): number {
   return pipeMassPerLength(D, t, densityKgM3, units) * lengthPerRun(units);
 }
 

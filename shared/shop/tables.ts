@@ -16,7 +16,8 @@ export interface Table {
 
 export type TableName = 'sheet' | 'elements' | 'cut-list' | 'bom';
 
-const round = (v: number | null | undefined): number | null => (v === null || v === undefined || !Number.isFinite(v) ? null : Number(v.toPrecision(6)));
+const round = (v: number | null | undefined): number | null =>
+  v === null || v === undefined || !Number.isFinite(v) ? null : Number(v.toPrecision(6));
 
 /** The element table: every element with its check, as the sketcher lists it. */
 export function elementTable(doc: SpoolDocument, check: SpoolCheck): Table {
@@ -175,7 +176,18 @@ export function bomTable(sheet: FabricationSheet): Table {
     `mass (${m.mass})`,
     'elements',
   ];
-  const rows = sheet.bom.map((b) => [b.nps, round(b.outsideDiameter), b.schedule, round(b.wall), b.material, b.pieces, round(b.length), round(b.massPerRun), round(b.mass), b.elements.join(' ')]);
+  const rows = sheet.bom.map((b) => [
+    b.nps,
+    round(b.outsideDiameter),
+    b.schedule,
+    round(b.wall),
+    b.material,
+    b.pieces,
+    round(b.length),
+    round(b.massPerRun),
+    round(b.mass),
+    b.elements.join(' '),
+  ]);
   return { fields, rows };
 }
 
@@ -185,7 +197,11 @@ export function tableToCsv(table: Table): string {
 }
 
 /** File name naming the spool and revision, e.g. "CW-101-rev2-cut-list.csv". */
-export function csvFileName(spoolName: string | null | undefined, revision: number | null | undefined, table: TableName): string {
+export function csvFileName(
+  spoolName: string | null | undefined,
+  revision: number | null | undefined,
+  table: TableName,
+): string {
   const slug = (spoolName ?? '').replace(/[^\w.-]+/g, '-').replace(/^-+|-+$/g, '') || 'spool';
   return `${slug}${revision !== null && revision !== undefined ? `-rev${revision}` : ''}-${table}.csv`;
 }

@@ -48,7 +48,12 @@ export function temperatureFromF(f: number, units: UnitSystem): number {
 export type Quantity = 'length' | 'pressure' | 'temperature';
 
 /** Convert a value of a quantity between unit systems. */
-export function convert(value: number, quantity: Quantity, from: UnitSystem, to: UnitSystem): number {
+export function convert(
+  value: number,
+  quantity: Quantity,
+  from: UnitSystem,
+  to: UnitSystem,
+): number {
   if (from === to) return value;
   switch (quantity) {
     case 'length':

@@ -2,7 +2,8 @@ import { NavLink } from 'react-router-dom';
 import { useMe } from '@/features/auth/api/get-me';
 import { cn } from '@/lib/cn';
 
-const linkClass = ({ isActive }: { isActive: boolean }) => cn('rounded px-2 py-1 hover:bg-steel-700', isActive && 'bg-steel-700 text-white');
+const linkClass = ({ isActive }: { isActive: boolean }) =>
+  cn('rounded px-2 py-1 hover:bg-steel-700', isActive && 'bg-steel-700 text-white');
 
 /**
  * Header links to the team's own pages, for the roles that may use them. Reads the actions the

@@ -5,7 +5,9 @@ import { cn } from '@/lib/cn';
 import { AdminNav } from './admin-nav';
 
 // The count's query and schemas load with their own chunk, not with the shell.
-const WaitingCount = lazy(() => import('@/features/review/components/waiting-list').then((m) => ({ default: m.WaitingCount })));
+const WaitingCount = lazy(() =>
+  import('@/features/review/components/waiting-list').then((m) => ({ default: m.WaitingCount })),
+);
 
 const roleLabel: Record<string, string> = {
   designer: 'Designer',
@@ -22,7 +24,10 @@ export function AppLayout() {
   return (
     <div className="flex h-screen flex-col font-sans print:block print:h-auto">
       <header className="flex h-11 shrink-0 print:hidden items-center gap-4 border-b border-steel-700 bg-steel-800 px-4 text-steel-100">
-        <Link to="/spools" className="flex items-center gap-2 text-base font-semibold tracking-wide text-white">
+        <Link
+          to="/spools"
+          className="flex items-center gap-2 text-base font-semibold tracking-wide text-white"
+        >
           <span aria-hidden className="inline-block h-3 w-3 rotate-45 border-2 border-copper-400" />
           Spoolwright
         </Link>
@@ -30,7 +35,9 @@ export function AppLayout() {
           <NavLink
             to="/spools"
             end
-            className={({ isActive }) => cn('rounded px-2 py-1 hover:bg-steel-700', isActive && 'bg-steel-700 text-white')}
+            className={({ isActive }) =>
+              cn('rounded px-2 py-1 hover:bg-steel-700', isActive && 'bg-steel-700 text-white')
+            }
           >
             Spool register
           </NavLink>
@@ -46,7 +53,10 @@ export function AppLayout() {
             <>
               <span className="text-steel-100">{me.user.name || me.user.email}</span>
               {me.team ? <span className="text-steel-300">{me.team.name}</span> : null}
-              <span data-testid="role" className="rounded bg-steel-700 px-1.5 py-px text-xs uppercase tracking-wide text-copper-400">
+              <span
+                data-testid="role"
+                className="rounded bg-steel-700 px-1.5 py-px text-xs uppercase tracking-wide text-copper-400"
+              >
                 {me.role ? (roleLabel[me.role] ?? me.role) : 'no team'}
               </span>
             </>

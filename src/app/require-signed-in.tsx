@@ -7,7 +7,12 @@ export function RequireSignedIn() {
   const me = useMe();
   const location = useLocation();
   if (me.isPending) return <LoadingLine label="Checking your session…" />;
-  if (me.isError) return <div className="p-6"><ErrorLine error={me.error} /></div>;
+  if (me.isError)
+    return (
+      <div className="p-6">
+        <ErrorLine error={me.error} />
+      </div>
+    );
   if (me.data === null) {
     const next = `${location.pathname}${location.search}`;
     return <Navigate to={`/sign-in?next=${encodeURIComponent(next)}`} replace />;

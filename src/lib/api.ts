@@ -2,7 +2,9 @@ import type { z } from 'zod';
 
 /** A response schema: full zod or zod/mini (the shell uses the smaller build). */
 export interface ResponseSchema<T> {
-  safeParse(data: unknown): { success: true; data: T } | { success: false; error: { issues: z.core.$ZodIssue[] } };
+  safeParse(
+    data: unknown,
+  ): { success: true; data: T } | { success: false; error: { issues: z.core.$ZodIssue[] } };
 }
 
 /** Shape of every error body the server sends: `{ error: { code, message, details } }`. */
@@ -62,7 +64,8 @@ function readErrorBody(status: number, statusText: string, data: unknown): ApiEr
       const e = err as Partial<ApiErrorBody>;
       return {
         code: typeof e.code === 'string' ? e.code : `http-${status}`,
-        message: typeof e.message === 'string' ? e.message : statusText || `request failed (${status})`,
+        message:
+          typeof e.message === 'string' ? e.message : statusText || `request failed (${status})`,
         details: e.details,
       };
     }
@@ -82,14 +85,21 @@ function readErrorBody(status: number, statusText: string, data: unknown): ApiEr
  * Call the Spoolwright API with the session cookie. JSON in, JSON out; a non-2xx answer
  * becomes an {@link ApiError} carrying the server's `{ code, message, details }`.
  */
-export async function apiRequest<T = unknown>(path: string, opts: RequestOptions<T> = {}): Promise<T> {
+export async function apiRequest<T = unknown>(
+  path: string,
+  opts: RequestOptions<T> = {},
+): Promise<T> {
   const raw = opts.rawBody;
   const init: RequestInit = {
     method: opts.method ?? (opts.body === undefined && raw === undefined ? 'GET' : 'POST'),
     credentials: 'include',
     headers: {
       Accept: 'application/json',
-      ...(raw ? { 'Content-Type': raw.contentType } : opts.body === undefined ? {} : { 'Content-Type': 'application/json' }),
+      ...(raw
+        ? { 'Content-Type': raw.contentType }
+        : opts.body === undefined
+          ? {}
+          : { 'Content-Type': 'application/json' }),
     },
     body: raw ? raw.text : opts.body === undefined ? undefined : JSON.stringify(opts.body),
     signal: opts.signal,

@@ -9,12 +9,23 @@ const ROOT = join(import.meta.dirname, '..', '..');
 const TSX = join(ROOT, 'node_modules', '.bin', 'tsx');
 const CLI = join(ROOT, 'shared', 'cli', 'check.ts');
 
-function run(args: string[], stdin?: string): Promise<{ code: number; stdout: string; stderr: string }> {
+function run(
+  args: string[],
+  stdin?: string,
+): Promise<{ code: number; stdout: string; stderr: string }> {
   return new Promise((resolve) => {
-    const child = execFile(TSX, [CLI, ...args], { cwd: ROOT, timeout: 20_000 }, (err, stdout, stderr) => {
-      const code = err && typeof (err as { code?: unknown }).code === 'number' ? (err as { code: number }).code : 0;
-      resolve({ code, stdout, stderr });
-    });
+    const child = execFile(
+      TSX,
+      [CLI, ...args],
+      { cwd: ROOT, timeout: 20_000 },
+      (err, stdout, stderr) => {
+        const code =
+          err && typeof (err as { code?: unknown }).code === 'number'
+            ? (err as { code: number }).code
+            : 0;
+        resolve({ code, stdout, stderr });
+      },
+    );
     if (stdin !== undefined) child.stdin?.end(stdin);
   });
 }
@@ -26,14 +37,27 @@ const write = (name: string, data: unknown) => {
   return p;
 };
 
-const base = { units: 'imperial', conditions: { pressure: 285, temperature: 100, material: 'A106-B' } };
-const passing = { ...base, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 40 }] };
+const base = {
+  units: 'imperial',
+  conditions: { pressure: 285, temperature: 100, material: 'A106-B' },
+};
+const passing = {
+  ...base,
+  elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 40 }],
+};
 const failing = {
   ...base,
   conditions: { ...base.conditions, pressure: 3000 },
   elements: [
     { id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 40 },
-    { id: 'B1', kind: 'bend', nps: '4', schedule: '160', bendRadius: { multipleOfD: 5 }, angle: 90 },
+    {
+      id: 'B1',
+      kind: 'bend',
+      nps: '4',
+      schedule: '160',
+      bendRadius: { multipleOfD: 5 },
+      angle: 90,
+    },
   ],
 };
 
@@ -53,7 +77,10 @@ describe('headless checker process', () => {
     expect(r.stdout).toContain('qualified engineer');
   });
   it('reads stdin with "-" and exits 2 naming the field', async () => {
-    const bad = { ...passing, elements: [{ id: 'B', kind: 'bend', nps: '4', schedule: '40', angle: 90 }] };
+    const bad = {
+      ...passing,
+      elements: [{ id: 'B', kind: 'bend', nps: '4', schedule: '40', angle: 90 }],
+    };
     const r = await run(['--json', '-'], JSON.stringify(bad));
     expect(r.code).toBe(2);
     expect(JSON.parse(r.stdout)).toMatchObject({ error: { code: 'invalid_input' } });
@@ -62,15 +89,33 @@ describe('headless checker process', () => {
 });
 
 describe('headless checker contract (in process)', () => {
-  const check = (doc: unknown, args: string[] = ['--json', 'x.json']) => runCheck(args, () => (typeof doc === 'string' ? doc : JSON.stringify(doc)));
+  const check = (doc: unknown, args: string[] = ['--json', 'x.json']) =>
+    runCheck(args, () => (typeof doc === 'string' ? doc : JSON.stringify(doc)));
 
   it('JSON shape per element matches the contract', () => {
     const r = check(failing);
     expect(r.code).toBe(1);
-    const out = JSON.parse(r.stdout) as { units: string; elements: Record<string, unknown>[]; summary: Record<string, number> };
+    const out = JSON.parse(r.stdout) as {
+      units: string;
+      elements: Record<string, unknown>[];
+      summary: Record<string, number>;
+    };
     expect(out.units).toBe('imperial');
     for (const e of out.elements) {
-      for (const k of ['id', 'kind', 'status', 'outsideDiameter', 'nominalWall', 'minimumWall', 'requiredNominalWall', 'governing', 'lightestSchedule', 'mawp', 'cases', 'messages']) {
+      for (const k of [
+        'id',
+        'kind',
+        'status',
+        'outsideDiameter',
+        'nominalWall',
+        'minimumWall',
+        'requiredNominalWall',
+        'governing',
+        'lightestSchedule',
+        'mawp',
+        'cases',
+        'messages',
+      ]) {
         expect(e).toHaveProperty(k);
       }
       for (const c of e.cases as Record<string, unknown>[]) {
@@ -81,21 +126,39 @@ describe('headless checker contract (in process)', () => {
       }
     }
     expect(out.elements[1]).toHaveProperty('preBendWall');
-    expect(out.summary).toMatchObject({ pass: expect.any(Number), marginal: expect.any(Number), fail: expect.any(Number), review: expect.any(Number) });
+    expect(out.summary).toMatchObject({
+      pass: expect.any(Number),
+      marginal: expect.any(Number),
+      fail: expect.any(Number),
+      review: expect.any(Number),
+    });
     expect(out.summary.fail).toBeGreaterThanOrEqual(1);
   });
   it('extra fields are ignored', () => {
-    expect(check({ ...passing, colour: 'blue', elements: [{ ...passing.elements[0], paint: 'red' }] }).code).toBe(0);
+    expect(
+      check({ ...passing, colour: 'blue', elements: [{ ...passing.elements[0], paint: 'red' }] })
+        .code,
+    ).toBe(0);
   });
   it('exit 1 for review (para. 304.1.2(b) special consideration)', () => {
-    const r = check({ ...base, conditions: { ...base.conditions, pressure: 9000 }, elements: [{ id: 'S', kind: 'straight', nps: '1', schedule: 'XXS', length: 5 }] });
+    const r = check({
+      ...base,
+      conditions: { ...base.conditions, pressure: 9000 },
+      elements: [{ id: 'S', kind: 'straight', nps: '1', schedule: 'XXS', length: 5 }],
+    });
     expect(r.code).toBe(1);
     expect((JSON.parse(r.stdout) as { summary: { review: number } }).summary.review).toBe(1);
   });
   it('exit 0 for marginal', () => {
     // NPS 2 Sch 40 at 285 psig with c = 0.116 in needs ordered ≈ 0.152 in against 0.154 in: < 10 % margin.
-    const r = check({ ...base, conditions: { ...base.conditions, corrosionAllowance: 0.116 }, elements: [{ id: 'S', kind: 'straight', nps: '2', schedule: '40', length: 5 }] });
-    expect((JSON.parse(r.stdout) as { elements: { status: string }[] }).elements[0]?.status).toBe('marginal');
+    const r = check({
+      ...base,
+      conditions: { ...base.conditions, corrosionAllowance: 0.116 },
+      elements: [{ id: 'S', kind: 'straight', nps: '2', schedule: '40', length: 5 }],
+    });
+    expect((JSON.parse(r.stdout) as { elements: { status: string }[] }).elements[0]?.status).toBe(
+      'marginal',
+    );
     expect(r.code).toBe(0);
   });
   it.each([
@@ -116,10 +179,25 @@ describe('headless checker contract (in process)', () => {
 describe('checker table: lightest schedule, external pressure, material vs spool stress (in-process)', () => {
   const doc = {
     units: 'imperial',
-    conditions: { pressure: 2800, temperature: 100, material: 'A106-B', allowableStress: 20000, externalPressure: 14.7, elasticModulus: 29e6, yieldStrength: 35000 },
+    conditions: {
+      pressure: 2800,
+      temperature: 100,
+      material: 'A106-B',
+      allowableStress: 20000,
+      externalPressure: 14.7,
+      elasticModulus: 29e6,
+      yieldStrength: 35000,
+    },
     elements: [
       { id: 'S1', kind: 'straight', nps: '2', schedule: '10', length: 40 },
-      { id: 'S2', kind: 'straight', nps: '2', schedule: '80', length: 40, conditions: { material: 'A312-TP316L' } },
+      {
+        id: 'S2',
+        kind: 'straight',
+        nps: '2',
+        schedule: '80',
+        length: 40,
+        conditions: { material: 'A312-TP316L' },
+      },
     ],
   };
   const result = runCheck(['spool.json'], () => JSON.stringify(doc));
@@ -137,11 +215,24 @@ describe('checker table: lightest schedule, external pressure, material vs spool
     const lines = result.stdout.split('\n');
     const at = lines.findIndex((l) => l.startsWith('S2 '));
     const below = lines.slice(at + 1, at + 8).join('\n');
-    expect(below).toContain('warning: this element\'s material A312-TP316L differs from the spool\'s');
+    expect(below).toContain(
+      "warning: this element's material A312-TP316L differs from the spool's",
+    );
   });
   it('the JSON carries the structured choice and the message code', () => {
     const json = runCheck(['--json', 'spool.json'], () => JSON.stringify(doc));
-    const check = JSON.parse(json.stdout) as { elements: { lightest: { names: string[]; standard: string }; messages: { code: string }[]; cases: { case: string; allowableUg28?: number; allowableVIII2?: number; allowableBasis?: string }[] }[] };
+    const check = JSON.parse(json.stdout) as {
+      elements: {
+        lightest: { names: string[]; standard: string };
+        messages: { code: string }[];
+        cases: {
+          case: string;
+          allowableUg28?: number;
+          allowableVIII2?: number;
+          allowableBasis?: string;
+        }[];
+      }[];
+    };
     expect(check.elements[0]?.lightest).toMatchObject({ names: ['80', 'XS'], standard: 'B36.10M' });
     expect(check.elements[1]?.messages.map((m) => m.code)).toContain('material-vs-spool-stress');
     const ext = check.elements[0]?.cases.find((c) => c.case === 'external');

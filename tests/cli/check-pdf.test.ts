@@ -13,7 +13,10 @@ const CLI = join(ROOT, 'shared', 'cli', 'check.ts');
 function run(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
   return new Promise((resolve) => {
     execFile(TSX, [CLI, ...args], { cwd: ROOT, timeout: 30_000 }, (err, stdout, stderr) => {
-      const code = err && typeof (err as { code?: unknown }).code === 'number' ? (err as { code: number }).code : 0;
+      const code =
+        err && typeof (err as { code?: unknown }).code === 'number'
+          ? (err as { code: number }).code
+          : 0;
       resolve({ code, stdout, stderr });
     });
   });
@@ -25,9 +28,15 @@ const write = (name: string, data: unknown) => {
   writeFileSync(p, JSON.stringify(data));
   return p;
 };
-const pdfText = (file: string) => execFileSync('pdftotext', [file, '-']).toString('utf8').replace(/\s+/g, ' ');
+const pdfText = (file: string) =>
+  execFileSync('pdftotext', [file, '-']).toString('utf8').replace(/\s+/g, ' ');
 
-const base = { units: 'imperial', name: 'CLI sheet spool', line: 'L-77', conditions: { pressure: 285, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 } };
+const base = {
+  units: 'imperial',
+  name: 'CLI sheet spool',
+  line: 'L-77',
+  conditions: { pressure: 285, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 },
+};
 const passing = {
   ...base,
   elements: [
@@ -65,7 +74,14 @@ describe('npm run check -- --pdf out.pdf', () => {
 
   it('exits 2 for bad input without writing, for a missing file name, and for a path it cannot write', async () => {
     const out = join(dir, 'bad.pdf');
-    const bad = await run(['--pdf', out, write('bad.json', { ...base, elements: [{ id: 'B', kind: 'bend', nps: '4', schedule: '40', angle: 90 }] })]);
+    const bad = await run([
+      '--pdf',
+      out,
+      write('bad.json', {
+        ...base,
+        elements: [{ id: 'B', kind: 'bend', nps: '4', schedule: '40', angle: 90 }],
+      }),
+    ]);
     expect(bad.code).toBe(2);
     expect(bad.stderr).toContain('elements[0].bendRadius');
     expect(existsSync(out)).toBe(false);
@@ -74,7 +90,11 @@ describe('npm run check -- --pdf out.pdf', () => {
     expect(noName.code).toBe(2);
     expect(noName.stderr).toContain('--pdf needs a file name');
 
-    const unwritable = await run(['--pdf', join(dir, 'no-such-dir', 'x.pdf'), write('pass2.json', passing)]);
+    const unwritable = await run([
+      '--pdf',
+      join(dir, 'no-such-dir', 'x.pdf'),
+      write('pass2.json', passing),
+    ]);
     expect(unwritable.code).toBe(2);
     expect(unwritable.stderr).toContain('cannot write the calc sheet');
   });

@@ -10,12 +10,23 @@ const ROOT = join(import.meta.dirname, '..', '..');
 const TSX = join(ROOT, 'node_modules', '.bin', 'tsx');
 const CLI = join(ROOT, 'shared', 'cli', 'shop.ts');
 
-function run(args: string[], stdin?: string): Promise<{ code: number; stdout: string; stderr: string }> {
+function run(
+  args: string[],
+  stdin?: string,
+): Promise<{ code: number; stdout: string; stderr: string }> {
   return new Promise((resolve) => {
-    const child = execFile(TSX, [CLI, ...args], { cwd: ROOT, timeout: 20_000 }, (err, stdout, stderr) => {
-      const code = err && typeof (err as { code?: unknown }).code === 'number' ? (err as { code: number }).code : 0;
-      resolve({ code, stdout, stderr });
-    });
+    const child = execFile(
+      TSX,
+      [CLI, ...args],
+      { cwd: ROOT, timeout: 20_000 },
+      (err, stdout, stderr) => {
+        const code =
+          err && typeof (err as { code?: unknown }).code === 'number'
+            ? (err as { code: number }).code
+            : 0;
+        resolve({ code, stdout, stderr });
+      },
+    );
     if (stdin !== undefined) child.stdin?.end(stdin);
   });
 }
@@ -46,13 +57,24 @@ describe('npm run shop (process)', () => {
     expect(r.stdout.trim().split('\n')).toHaveLength(1);
     const out = JSON.parse(r.stdout) as {
       units: string;
-      elements: { id: string; cutLength: number; mass: number; bend?: { arcLength: number; tangent: number } }[];
+      elements: {
+        id: string;
+        cutLength: number;
+        mass: number;
+        bend?: { arcLength: number; tangent: number };
+      }[];
       bom: { nps: string; schedule: string; length: number }[];
       welds: number;
       developedLength: number;
       totalMass: number;
       filledMass: number;
-      hydrotest: { pressure: number; ratio: number; governing: string; limitedBy: string | null; equation: string };
+      hydrotest: {
+        pressure: number;
+        ratio: number;
+        governing: string;
+        limitedBy: string | null;
+        equation: string;
+      };
     };
     expect(out.units).toBe('imperial');
     expect(out.elements.map((e) => e.id)).toEqual(['S1', 'B1', 'S2']);
@@ -79,7 +101,14 @@ describe('npm run shop (process)', () => {
     const r = await run(['--csv', write('csv.json', spool)]);
     expect(r.code).toBe(0);
     const parsed = Papa.parse<Record<string, string>>(r.stdout.trim(), { header: true });
-    expect(parsed.meta.fields).toEqual(expect.arrayContaining(['order schedule', 'wall before bending (in)', 'extrados wall after bending (in)', 'mass (lb)']));
+    expect(parsed.meta.fields).toEqual(
+      expect.arrayContaining([
+        'order schedule',
+        'wall before bending (in)',
+        'extrados wall after bending (in)',
+        'mass (lb)',
+      ]),
+    );
     const bend = parsed.data.find((row) => row.element === 'B1')!;
     expect(Number(bend['table factor'])).toBe(1.25); // B31.1 Table 102.4.5 at 3D
     expect(Number(bend['bend tangent R·tan(θ/2) (in)'])).toBe(12);
@@ -94,7 +123,10 @@ describe('npm run shop (process)', () => {
     expect(r.stdout).toContain('qualified engineer');
   });
   it('exit 2 naming the field for a bad document', async () => {
-    const bad = { ...spool, elements: [{ id: 'B', kind: 'bend', nps: '4', schedule: '40', angle: 90 }] };
+    const bad = {
+      ...spool,
+      elements: [{ id: 'B', kind: 'bend', nps: '4', schedule: '40', angle: 90 }],
+    };
     const r = await run(['--json', write('bad.json', bad)]);
     expect(r.code).toBe(2);
     expect(JSON.parse(r.stdout)).toMatchObject({ error: { code: 'invalid_input' } });
@@ -116,12 +148,21 @@ describe('runShop arguments', () => {
     expect(r.stderr).toContain('shop.bendTangent');
   });
   it('names an element the check cannot resolve', () => {
-    const r = runShop(['x.json'], () => JSON.stringify({ ...spool, elements: [{ id: 'S9', kind: 'straight', nps: '4', schedule: '999', length: 1 }] }));
+    const r = runShop(['x.json'], () =>
+      JSON.stringify({
+        ...spool,
+        elements: [{ id: 'S9', kind: 'straight', nps: '4', schedule: '999', length: 1 }],
+      }),
+    );
     expect(r.code).toBe(2);
     expect(r.stderr).toContain('elements[0].schedule');
   });
   it('unreadable input and invalid JSON exit 2', () => {
-    expect(runShop(['nope.json'], () => { throw new Error('ENOENT'); }).stderr).toContain('cannot read nope.json');
+    expect(
+      runShop(['nope.json'], () => {
+        throw new Error('ENOENT');
+      }).stderr,
+    ).toContain('cannot read nope.json');
     expect(runShop(['x.json'], () => '{').stderr).toContain('not valid JSON');
   });
 });

@@ -180,7 +180,11 @@ export interface ReadMailOptions {
  * The decoded text of the newest message to `to` in `dataDir`/mail (waiting for it to arrive);
  * throws when none comes. The one place tests read one-use links (reset, invitation) from.
  */
-export async function readMail(dataDir: string, to: string, opts: ReadMailOptions = {}): Promise<string> {
+export async function readMail(
+  dataDir: string,
+  to: string,
+  opts: ReadMailOptions = {},
+): Promise<string> {
   const dir = path.join(dataDir, 'mail');
   const want = to.toLowerCase();
   const deadline = Date.now() + (opts.timeoutMs ?? 5000);
@@ -224,7 +228,10 @@ function decodeMailPart(headers: string, body: string): string {
  * The newest message to `to` in the server's mailbox folder (`DATA_DIR/mail/*.eml`, written by
  * the in-process SMTP catcher): its subject and plain text, or null when none has arrived.
  */
-export function findMail(dataDir: string, to: string): { subject: string; text: string; file: string } | null {
+export function findMail(
+  dataDir: string,
+  to: string,
+): { subject: string; text: string; file: string } | null {
   const dir = path.join(dataDir, 'mail');
   if (!fs.existsSync(dir)) return null;
   const want = to.toLowerCase();
@@ -237,7 +244,13 @@ export function findMail(dataDir: string, to: string): { subject: string; text: 
       const cut = raw.indexOf('\n\n');
       const headers = cut < 0 ? raw : raw.slice(0, cut);
       const unfolded = headers.replace(/\n[ \t]+/g, ' ');
-      return { file, raw, headers: unfolded, body: cut < 0 ? '' : raw.slice(cut + 2), at: fs.statSync(file).mtimeMs };
+      return {
+        file,
+        raw,
+        headers: unfolded,
+        body: cut < 0 ? '' : raw.slice(cut + 2),
+        at: fs.statSync(file).mtimeMs,
+      };
     })
     .filter((m) => (/^to:\s*(.*)$/im.exec(m.headers)?.[1] ?? '').toLowerCase().includes(want))
     .sort((a, b) => b.at - a.at || b.file.localeCompare(a.file));

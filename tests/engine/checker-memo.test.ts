@@ -16,7 +16,10 @@ describe('memoizing checker', () => {
   it('gives the same results as checkSpool, before and after edits', () => {
     const checker = createSpoolChecker();
     expect(checker(doc)).toEqual(checkSpool(doc));
-    const edited = { ...doc, elements: doc.elements.map((e) => (e.id === 'B1' ? { ...e, schedule: '10' } : e)) };
+    const edited = {
+      ...doc,
+      elements: doc.elements.map((e) => (e.id === 'B1' ? { ...e, schedule: '10' } : e)),
+    };
     const a = checker(edited);
     expect(a).toEqual(checkSpool(edited));
     // Unchanged elements are reused by identity; the edited one is re-checked.

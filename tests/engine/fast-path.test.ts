@@ -1,14 +1,23 @@
 import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { parseSpoolDocument, type SpoolDocument } from '@shared/model/spool';
-import { checkSpool, checkSpoolFigures, createSpoolChecker, explainElement, figuresOf, visitSpoolFigures, type ElementFigures } from '@shared/engine/index';
+import {
+  checkSpool,
+  checkSpoolFigures,
+  createSpoolChecker,
+  explainElement,
+  figuresOf,
+  visitSpoolFigures,
+  type ElementFigures,
+} from '@shared/engine/index';
 import { NPS_SIZES, SCHEDULES } from '@shared/data/pipe-dimensions';
 import { MATERIALS } from '@shared/data/materials';
 
 // Property: the numbers-first path (no trail, no text) and the trail path give identical numbers,
 // statuses, schedule choices and message codes on random documents. No check values here.
 
-const pos = (min: number, max: number) => fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
+const pos = (min: number, max: number) =>
+  fc.double({ min, max, noNaN: true, noDefaultInfinity: true });
 const materialArb = fc.constantFrom(...MATERIALS.map((m) => m.id));
 const overridesArb = fc.record(
   {
@@ -35,8 +44,16 @@ const sized = fc.oneof(
 const elementArb = fc.tuple(
   sized,
   fc.oneof(
-    fc.record({ kind: fc.constant('straight' as const), length: pos(0.1, 500), endType: fc.constantFrom('plain', 'bevel', 'threaded', 'grooved', undefined) }),
-    fc.record({ kind: fc.constant('bend' as const), bendRadius: fc.oneof(pos(0.5, 400), fc.record({ multipleOfD: pos(0.6, 12) })), angle: pos(1, 180) }),
+    fc.record({
+      kind: fc.constant('straight' as const),
+      length: pos(0.1, 500),
+      endType: fc.constantFrom('plain', 'bevel', 'threaded', 'grooved', undefined),
+    }),
+    fc.record({
+      kind: fc.constant('bend' as const),
+      bendRadius: fc.oneof(pos(0.5, 400), fc.record({ multipleOfD: pos(0.6, 12) })),
+      angle: pos(1, 180),
+    }),
   ),
   fc.option(overridesArb, { nil: undefined }),
 );
@@ -50,7 +67,13 @@ const docArb = fc
         externalPressure: pos(0, 100),
         material: materialArb,
         allowableStress: pos(5000, 30000),
-        productForm: fc.constantFrom('seamless', 'erw', 'efw-single', 'efw-full-rt', 'furnace-butt'),
+        productForm: fc.constantFrom(
+          'seamless',
+          'erw',
+          'efw-single',
+          'efw-full-rt',
+          'furnace-butt',
+        ),
         corrosionAllowance: pos(0, 0.2),
         millTolerance: pos(0, 0.2),
         stiffenedLength: pos(1, 3000),
@@ -60,7 +83,15 @@ const docArb = fc
     ),
     elements: fc.array(elementArb, { minLength: 1, maxLength: 8 }),
   })
-  .map((d) => ({ ...d, elements: d.elements.map(([size, shape, conditions], i) => ({ id: `E${i}`, ...size, ...shape, ...(conditions ? { conditions } : {}) })) }));
+  .map((d) => ({
+    ...d,
+    elements: d.elements.map(([size, shape, conditions], i) => ({
+      id: `E${i}`,
+      ...size,
+      ...shape,
+      ...(conditions ? { conditions } : {}),
+    })),
+  }));
 
 function parsed(raw: unknown): SpoolDocument | null {
   const p = parseSpoolDocument(raw);
@@ -91,7 +122,11 @@ describe('numbers-first path = trail path', () => {
   });
 
   it('the comparison can fail: a changed number is seen', () => {
-    const doc: SpoolDocument = { units: 'imperial', conditions: { pressure: 300, temperature: 100, material: 'A106-B' }, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 10 }] };
+    const doc: SpoolDocument = {
+      units: 'imperial',
+      conditions: { pressure: 300, temperature: 100, material: 'A106-B' },
+      elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 10 }],
+    };
     const fast = checkSpoolFigures(doc).elements[0]!;
     const full = figuresOf(checkSpool(doc).elements[0]!);
     expect(fast).toEqual(full);
@@ -99,7 +134,21 @@ describe('numbers-first path = trail path', () => {
   });
 
   it('the trail is built only on the trail path; explainElement returns it for one element', () => {
-    const doc: SpoolDocument = { units: 'imperial', conditions: { pressure: 300, temperature: 100, material: 'A106-B', externalPressure: 14.7 }, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 10 }, { id: 'B1', kind: 'bend', nps: '4', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90 }] };
+    const doc: SpoolDocument = {
+      units: 'imperial',
+      conditions: { pressure: 300, temperature: 100, material: 'A106-B', externalPressure: 14.7 },
+      elements: [
+        { id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 10 },
+        {
+          id: 'B1',
+          kind: 'bend',
+          nps: '4',
+          schedule: '40',
+          bendRadius: { multipleOfD: 3 },
+          angle: 90,
+        },
+      ],
+    };
     const fast = checkSpoolFigures(doc);
     for (const e of fast.elements) {
       for (const c of e.cases) expect('trail' in c).toBe(false);
@@ -129,7 +178,11 @@ describe('numbers-first path = trail path', () => {
           if (op % 4 === 0) els[i] = { ...el };
           else if (op % 4 === 1) els.splice(i, 0, { ...el, id: `${el.id}x${op}` });
           else if (op % 4 === 2 && els.length > 1) els.splice(i, 1);
-          else cur = { ...cur, conditions: { ...cur.conditions, pressure: cur.conditions.pressure + 1 } };
+          else
+            cur = {
+              ...cur,
+              conditions: { ...cur.conditions, pressure: cur.conditions.pressure + 1 },
+            };
           cur = { ...cur, elements: els };
           expect(checker(cur)).toEqual(checkSpool(cur));
         }

@@ -9,7 +9,10 @@ import { getPipeWall, listScheduleChoices, scheduleStandard } from '@shared/data
 // to B36.10M walls, so a stainless element with no passing S schedule is offered a B36.10M wall.
 // Walls quoted are the B36.10M/B36.19M table values the engine holds (cross-checked elsewhere).
 
-const doc = (conditions: Partial<SpoolDocument['conditions']>, el: SpoolElement): SpoolDocument => ({
+const doc = (
+  conditions: Partial<SpoolDocument['conditions']>,
+  el: SpoolElement,
+): SpoolDocument => ({
   units: 'imperial',
   conditions: { pressure: 0, temperature: 100, ...conditions },
   elements: [el],
@@ -19,12 +22,26 @@ const only = (d: SpoolDocument): ElementCheck => {
   if (!e) throw new Error('no result');
   return e;
 };
-const straight = (nps: string, schedule: string): SpoolElement => ({ id: 'S1', kind: 'straight', nps, schedule, length: 10 });
+const straight = (nps: string, schedule: string): SpoolElement => ({
+  id: 'S1',
+  kind: 'straight',
+  nps,
+  schedule,
+  length: 10,
+});
 
 describe('which standard a schedule belongs to (B36.10M / B36.19M scope)', () => {
   it.each([
-    ['10', 'B36.10M'], ['40', 'B36.10M'], ['160', 'B36.10M'], ['STD', 'B36.10M'], ['XS', 'B36.10M'], ['XXS', 'B36.10M'],
-    ['5S', 'B36.19M'], ['10S', 'B36.19M'], ['40S', 'B36.19M'], ['80S', 'B36.19M'],
+    ['10', 'B36.10M'],
+    ['40', 'B36.10M'],
+    ['160', 'B36.10M'],
+    ['STD', 'B36.10M'],
+    ['XS', 'B36.10M'],
+    ['XXS', 'B36.10M'],
+    ['5S', 'B36.19M'],
+    ['10S', 'B36.19M'],
+    ['40S', 'B36.19M'],
+    ['80S', 'B36.19M'],
   ])('%s is %s (a trailing S alone says nothing: XS and XXS are B36.10M weights)', (s, std) => {
     expect(scheduleStandard(s)).toBe(std);
   });
@@ -34,9 +51,18 @@ describe('which standard a schedule belongs to (B36.10M / B36.19M scope)', () =>
     expect(labels).toContain('80 / XS');
     expect(labels).toContain('40 / STD');
     expect(listScheduleChoices('2', 'B36.10M').every((c) => c.standard === 'B36.10M')).toBe(true);
-    expect(listScheduleChoices('2', 'B36.19M').map((c) => c.schedule)).toEqual(['5S', '10S', '40S', '80S']);
+    expect(listScheduleChoices('2', 'B36.19M').map((c) => c.schedule)).toEqual([
+      '5S',
+      '10S',
+      '40S',
+      '80S',
+    ]);
     // Above NPS 8 XS is 0.500 in and no longer equals Sch 80 (B36.10M).
-    expect(listScheduleChoices('10', 'B36.10M').some((c) => c.names.includes('XS') && c.names.includes('80'))).toBe(false);
+    expect(
+      listScheduleChoices('10', 'B36.10M').some(
+        (c) => c.names.includes('XS') && c.names.includes('80'),
+      ),
+    ).toBe(false);
   });
 
   it('the resolve-time message names B36.10M for XS/XXS and B36.19M for S schedules', () => {
@@ -48,9 +74,21 @@ describe('which standard a schedule belongs to (B36.10M / B36.19M scope)', () =>
   });
 });
 
-describe('lightest passing schedule of the element\'s own standard', () => {
+describe("lightest passing schedule of the element's own standard", () => {
   it('NPS 5 XXS carbon-steel bend at 72 psi → 10 (B36.10M), not the B36.19M 5S', () => {
-    const e = only(doc({ pressure: 72, material: 'A106-B' }, { id: 'B1', kind: 'bend', nps: '5', schedule: 'XXS', bendRadius: { multipleOfD: 5 }, angle: 90 }));
+    const e = only(
+      doc(
+        { pressure: 72, material: 'A106-B' },
+        {
+          id: 'B1',
+          kind: 'bend',
+          nps: '5',
+          schedule: 'XXS',
+          bendRadius: { multipleOfD: 5 },
+          angle: 90,
+        },
+      ),
+    );
     expect(e.lightestSchedule).toBe('10');
     expect(e.lightest?.standard).toBe('B36.10M');
   });
@@ -62,7 +100,9 @@ describe('lightest passing schedule of the element\'s own standard', () => {
   });
 
   it('NPS 24 Sch 10 needing 0.411 in → XS (0.500 in), not 30 (0.562 in)', () => {
-    const e = only(doc({ pressure: 500, material: 'A106-B', corrosionAllowance: 0.0625 }, straight('24', '10')));
+    const e = only(
+      doc({ pressure: 500, material: 'A106-B', corrosionAllowance: 0.0625 }, straight('24', '10')),
+    );
     expect(e.requiredNominalWall).toBeGreaterThan(0.375);
     expect(e.requiredNominalWall).toBeLessThan(0.5);
     expect(e.lightestSchedule).toBe('XS');
@@ -118,7 +158,19 @@ describe('lightest passing schedule of the element\'s own standard', () => {
   });
 
   it('the bend before-bending order is chosen by the same rule and names its standard', () => {
-    const e = only(doc({ pressure: 1500, material: 'A106-B', corrosionAllowance: 0.05 }, { id: 'B1', kind: 'bend', nps: '2', schedule: '80', bendRadius: { multipleOfD: 3 }, angle: 90 }));
+    const e = only(
+      doc(
+        { pressure: 1500, material: 'A106-B', corrosionAllowance: 0.05 },
+        {
+          id: 'B1',
+          kind: 'bend',
+          nps: '2',
+          schedule: '80',
+          bendRadius: { multipleOfD: 3 },
+          angle: 90,
+        },
+      ),
+    );
     expect(e.preBend?.order?.standard).toBe('B36.10M');
     if (e.preBend?.order) expect(e.preBend.orderSchedule).toBe(e.preBend.order.schedule);
   });

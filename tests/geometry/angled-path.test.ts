@@ -2,8 +2,22 @@ import { describe, expect, it } from 'vitest';
 import { Matrix4, Quaternion, Vector3 } from 'three';
 import type { SpoolDocument } from '@shared/model/spool';
 import { angledDirection } from '@/features/sketch/geometry/angled-direction';
-import { buildSpoolPath, legLengths, type BendSegment } from '@/features/sketch/geometry/spool-path';
-import { add, angleBetweenDeg, cross, dot, norm, scale, sub, vec, type Vec3 } from '@/features/sketch/geometry/vec';
+import {
+  buildSpoolPath,
+  legLengths,
+  type BendSegment,
+} from '@/features/sketch/geometry/spool-path';
+import {
+  add,
+  angleBetweenDeg,
+  cross,
+  dot,
+  norm,
+  scale,
+  sub,
+  vec,
+  type Vec3,
+} from '@/features/sketch/geometry/vec';
 import { dimensionText } from '@/features/sketch/canvas/dimension-labels';
 import { meshSpecOf } from '@/features/sketch/canvas/scene-math';
 import { createSpoolStore } from '@/features/sketch/store/spool-store';
@@ -15,9 +29,18 @@ const R = 6;
 const T45 = R * Math.tan(Math.PI / 8); // R·tan(θ/2) for 45° = 2.485281 in
 const S = Math.SQRT1_2;
 
-
-function drawn(legs: [Parameters<ReturnType<ReturnType<typeof createSpoolStore>['getState']>['addLeg']>[0], number][]): SpoolDocument {
-  const store = createSpoolStore({ units: 'imperial', conditions, defaultBendRadius: { multipleOfD: 3 }, elements: [] });
+function drawn(
+  legs: [
+    Parameters<ReturnType<ReturnType<typeof createSpoolStore>['getState']>['addLeg']>[0],
+    number,
+  ][],
+): SpoolDocument {
+  const store = createSpoolStore({
+    units: 'imperial',
+    conditions,
+    defaultBendRadius: { multipleOfD: 3 },
+    elements: [],
+  });
   store.getState().startRun({ nps: '2', schedule: '40' });
   for (const [d, l] of legs) {
     const r = store.getState().addLeg(d, l);
@@ -33,7 +56,13 @@ const h = (i: Parameters<typeof angledDirection>[0]) => {
 
 describe('any-angle paths', () => {
   it('places a 45° offset: work points at the leg lengths, free end at 100 + 50·cos45 + 100 east', () => {
-    const path = buildSpoolPath(drawn([['east', 100], [h({ from: 'east', toward: 'north', angle: 45 }), 50], ['east', 100]]));
+    const path = buildSpoolPath(
+      drawn([
+        ['east', 100],
+        [h({ from: 'east', toward: 'north', angle: 45 }), 50],
+        ['east', 100],
+      ]),
+    );
     const [s1, b1, s2, b2, s3] = path.segments;
     close(s1!.end, vec(100 - T45, 0, 0));
     const bend1 = b1 as BendSegment;
@@ -53,7 +82,13 @@ describe('any-angle paths', () => {
   });
 
   it('gives the developed length of the offset: Σ cut lengths + Σ R·θ', () => {
-    const path = buildSpoolPath(drawn([['east', 100], [h({ from: 'east', toward: 'north', angle: 45 }), 50], ['east', 100]]));
+    const path = buildSpoolPath(
+      drawn([
+        ['east', 100],
+        [h({ from: 'east', toward: 'north', angle: 45 }), 50],
+        ['east', 100],
+      ]),
+    );
     // cuts: (100 − T45) + (50 − 2·T45) + (100 − T45) = 240.058875; arcs: 2 × 6 × π/4 = 9.424778
     const expected = 250 - 4 * T45 + 2 * R * (Math.PI / 4);
     expect(path.developedLength).toBeCloseTo(expected, 5);
@@ -62,7 +97,12 @@ describe('any-angle paths', () => {
 
   it('draws a rolled bend on a torus in the plane of its two legs', () => {
     const rolled = h({ from: 'east', toward: 'north', angle: 45, rollToward: 'up', roll: 30 });
-    const path = buildSpoolPath(drawn([['east', 80], [rolled, 60]]));
+    const path = buildSpoolPath(
+      drawn([
+        ['east', 80],
+        [rolled, 60],
+      ]),
+    );
     const bend = path.segments[1] as BendSegment;
     const dirIn = vec(1, 0, 0);
     const want = vec(S, S * 0.5, -S * Math.cos(Math.PI / 6));
@@ -75,8 +115,13 @@ describe('any-angle paths', () => {
     expect(Math.abs(bend.normal.z)).toBeGreaterThan(0.1);
     // The torus placed as the canvas places it starts at the tangent point and ends at the other.
     const spec = meshSpecOf(bend);
-    const m = new Matrix4().compose(new Vector3(...spec.position), new Quaternion(...spec.quaternion), new Vector3(1, 1, 1));
-    const onTorus = (phi: number) => new Vector3(spec.size * Math.cos(phi), spec.size * Math.sin(phi), 0).applyMatrix4(m);
+    const m = new Matrix4().compose(
+      new Vector3(...spec.position),
+      new Quaternion(...spec.quaternion),
+      new Vector3(1, 1, 1),
+    );
+    const onTorus = (phi: number) =>
+      new Vector3(spec.size * Math.cos(phi), spec.size * Math.sin(phi), 0).applyMatrix4(m);
     const p0 = onTorus(0);
     const p1 = onTorus(spec.arc);
     close(vec(p0.x, p0.y, p0.z), bend.start);
@@ -92,7 +137,15 @@ describe('any-angle paths', () => {
       conditions,
       elements: [
         { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 94, direction: 'east' },
-        { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90, direction: 'north' },
+        {
+          kind: 'bend',
+          id: 'B1',
+          nps: '2',
+          schedule: '40',
+          bendRadius: { multipleOfD: 3 },
+          angle: 90,
+          direction: 'north',
+        },
         { kind: 'straight', id: 'S2', nps: '2', schedule: '40', length: 44, direction: 'north' },
       ],
     };
@@ -106,7 +159,11 @@ describe('fitting the view', () => {
     const { fitOrthographic, fitMargin } = await import('@/features/sketch/canvas/scene-math');
     const { ISOMETRIC_VIEW } = await import('@/features/sketch/canvas/view-controller');
     // A riser: 24 in east, 1200 in up, 24 in north.
-    const doc = drawn([['east', 24], ['up', 1200], ['north', 24]]);
+    const doc = drawn([
+      ['east', 24],
+      ['up', 1200],
+      ['north', 24],
+    ]);
     const path = buildSpoolPath(doc);
     const W = 1280;
     const H = 800;
@@ -140,7 +197,12 @@ describe('fitting the view', () => {
 
 describe('dimension labels in display units', () => {
   it('shows an imperial offset in mm when the display is metric (1 in = 25.4 mm, exact)', () => {
-    const path = buildSpoolPath(drawn([['east', 100], [h({ from: 'east', toward: 'north', angle: 45 }), 50]]));
+    const path = buildSpoolPath(
+      drawn([
+        ['east', 100],
+        [h({ from: 'east', toward: 'north', angle: 45 }), 50],
+      ]),
+    );
     const [s1, b1] = path.segments;
     expect(dimensionText(b1!, 'imperial', undefined, 'metric')).toBe('45° R152.4 mm');
     // S1: cut 100 − 2.485281 = 97.514719 in = 2476.87 mm; leg 100 in = 2540 mm

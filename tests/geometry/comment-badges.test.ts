@@ -8,7 +8,15 @@ const doc: SpoolDocument = {
   conditions: { pressure: 150, temperature: 100, material: 'A106-B' },
   elements: [
     { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 30, direction: 'east' },
-    { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90, direction: 'north' },
+    {
+      kind: 'bend',
+      id: 'B1',
+      nps: '2',
+      schedule: '40',
+      bendRadius: { multipleOfD: 3 },
+      angle: 90,
+      direction: 'north',
+    },
     { kind: 'straight', id: 'S2', nps: '2', schedule: '40', length: 30, direction: 'north' },
   ],
 };
@@ -27,7 +35,8 @@ describe('comment badge anchor', () => {
     const b1 = path.byId.get('B1')!;
     if (b1.kind !== 'bend') throw new Error('B1 is not a bend');
     const p = centreOf(b1);
-    const d = (a: { x: number; y: number; z: number }) => Math.hypot(p[0] - a.x, p[1] - a.y, p[2] - a.z);
+    const d = (a: { x: number; y: number; z: number }) =>
+      Math.hypot(p[0] - a.x, p[1] - a.y, p[2] - a.z);
     // on the centreline: R1 from the centre of curvature (3D of NPS 2 = 6 in, common practice)
     expect(d(b1.centre)).toBeCloseTo(6, 9);
     expect(d(b1.start)).toBeCloseTo(d(b1.end), 9);

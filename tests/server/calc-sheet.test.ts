@@ -19,7 +19,9 @@ const getPdf = (agent: request.Agent, path: string) => agent.get(path).buffer(tr
 
 /** The PDF's text by poppler's pdftotext, with runs of white space folded to one space. */
 function pdfText(pdf: Buffer): string {
-  return execFileSync('pdftotext', ['-', '-'], { input: pdf }).toString('utf8').replace(/\s+/g, ' ');
+  return execFileSync('pdftotext', ['-', '-'], { input: pdf })
+    .toString('utf8')
+    .replace(/\s+/g, ' ');
 }
 function pdfPages(pdf: Buffer): number {
   const info = execFileSync('pdfinfo', ['-'], { input: pdf }).toString('utf8');
@@ -48,14 +50,17 @@ describe('GET /api/spools/:id/calc-sheet.pdf', () => {
   it('is a PDF with the spool, every element id, the trail, the released history, the caution and page numbers', async () => {
     const r = await getPdf(checker, `/api/spools/${cw.id}/calc-sheet.pdf`).expect(200);
     expect(r.headers['content-type']).toBe('application/pdf');
-    expect(r.headers['content-disposition']).toMatch(/^attachment; filename="CW-101-01-Cooling-water-header-drop-rev0-calc-sheet\.pdf"$/);
+    expect(r.headers['content-disposition']).toMatch(
+      /^attachment; filename="CW-101-01-Cooling-water-header-drop-rev0-calc-sheet\.pdf"$/,
+    );
     const pdf = r.body as Buffer;
     expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
     const text = pdfText(pdf);
     expect(text).toContain(CW_NAME);
     expect(text).toContain(DEMO_TEAM.name);
     expect(text).toContain('4"-CW-1012-A1');
-    for (const el of cw.document.elements) expect(text).toContain(`${el.id.startsWith('CW-B') ? 'Bend' : 'Straight'} ${el.id}`);
+    for (const el of cw.document.elements)
+      expect(text).toContain(`${el.id.startsWith('CW-B') ? 'Bend' : 'Straight'} ${el.id}`);
     // The equation trail as the engine writes it (B31.3 Eq. (3a) for straights, (3c)/(3d) for bends).
     expect(text).toContain('t = P·D / (2·(S·E·W + P·Y))');
     expect(text).toContain('I = (4·(R1/D) − 1) / (4·(R1/D) − 2)');
@@ -75,10 +80,15 @@ describe('GET /api/spools/:id/calc-sheet.pdf', () => {
   it('keeps earlier revisions: ?revision=0 after an edit opened revision 1; unknown revision 404, bad one 422', async () => {
     const designer = await t.signIn('designer');
     const doc = { ...cw.document, name: `${CW_NAME} (rev 1)` };
-    const saved = await designer.put(`/api/spools/${cw.id}`).send({ document: doc, baseVersion: cw.version }).expect(200);
+    const saved = await designer
+      .put(`/api/spools/${cw.id}`)
+      .send({ document: doc, baseVersion: cw.version })
+      .expect(200);
     expect(saved.body.revision).toBe(1);
 
-    const current = pdfText((await getPdf(checker, `/api/spools/${cw.id}/calc-sheet.pdf`).expect(200)).body as Buffer);
+    const current = pdfText(
+      (await getPdf(checker, `/api/spools/${cw.id}/calc-sheet.pdf`).expect(200)).body as Buffer,
+    );
     expect(current).toContain(`${CW_NAME} (rev 1) · rev. 1 · draft`);
     // Revision 1 has one event: the edit that opened it (released → draft).
     expect(current).toContain(`edited: reopened as a new revision ${nameOf('designer')}`);
@@ -106,7 +116,10 @@ describe('calc sheet limits', () => {
     const doc = buildLongSpool(CALC_SHEET_MAX_ELEMENTS + 1, 'Too long for a sheet');
     const created = await designer.post('/api/spools').send({ document: doc }).expect(201);
     const r = await designer.get(`/api/spools/${created.body.id}/calc-sheet.pdf`).expect(413);
-    expect(r.body.error).toMatchObject({ code: 'payload_too_large', details: { elements: CALC_SHEET_MAX_ELEMENTS + 1, limit: CALC_SHEET_MAX_ELEMENTS } });
+    expect(r.body.error).toMatchObject({
+      code: 'payload_too_large',
+      details: { elements: CALC_SHEET_MAX_ELEMENTS + 1, limit: CALC_SHEET_MAX_ELEMENTS },
+    });
   });
 });
 

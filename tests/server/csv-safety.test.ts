@@ -16,8 +16,15 @@ describe('CSV uploads that are not UTF-8', () => {
   };
 
   it('reads UTF-8 with or without a byte-order mark', () => {
-    expect(decodeCsvUpload(Buffer.from('name\nDégazeur\n', 'utf8'), 'a.csv')).toBe('name\nDégazeur\n');
-    expect(decodeCsvUpload(Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from('name\nA\n')]), 'a.csv')).toBe('name\nA\n');
+    expect(decodeCsvUpload(Buffer.from('name\nDégazeur\n', 'utf8'), 'a.csv')).toBe(
+      'name\nDégazeur\n',
+    );
+    expect(
+      decodeCsvUpload(
+        Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from('name\nA\n')]),
+        'a.csv',
+      ),
+    ).toBe('name\nA\n');
   });
 
   it('names the file and the encoding it found', () => {
@@ -25,7 +32,9 @@ describe('CSV uploads that are not UTF-8', () => {
     expect(reason(utf16le)).toMatch(/line-list\.csv.*UTF-16/);
     const utf16be = Buffer.from([0xfe, 0xff, 0x00, 0x6e, 0x00, 0x61]);
     expect(reason(utf16be)).toMatch(/line-list\.csv.*UTF-16/);
-    expect(reason(Buffer.from('name\nA\n', 'utf16le'), 'no-bom.csv')).toMatch(/no-bom\.csv.*UTF-16/);
+    expect(reason(Buffer.from('name\nA\n', 'utf16le'), 'no-bom.csv')).toMatch(
+      /no-bom\.csv.*UTF-16/,
+    );
     const latin1 = Buffer.from('name,line\nDégazeur,L1\n', 'latin1');
     expect(reason(latin1, 'materials.csv')).toMatch(/materials\.csv is not UTF-8.*line 2/);
   });

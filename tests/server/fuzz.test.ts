@@ -35,9 +35,17 @@ beforeAll(async () => {
     .getSetCookie()
     .map((c) => c.split(';')[0])
     .join('; ');
-  const created = await fetch(`${base}/api/spools`, { method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: JSON.stringify({ document: sampleDocument('Fuzz target') }) });
+  const created = await fetch(`${base}/api/spools`, {
+    method: 'POST',
+    headers: { cookie, 'content-type': 'application/json' },
+    body: JSON.stringify({ document: sampleDocument('Fuzz target') }),
+  });
   spoolId = ((await created.json()) as { id: string }).id;
-  const share = await fetch(`${base}/api/spools/${spoolId}/shares`, { method: 'POST', headers: { cookie, 'content-type': 'application/json' }, body: '{}' });
+  const share = await fetch(`${base}/api/spools/${spoolId}/shares`, {
+    method: 'POST',
+    headers: { cookie, 'content-type': 'application/json' },
+    body: '{}',
+  });
   shareToken = ((await share.json()) as { id: string }).id;
 }, 60_000);
 
@@ -48,13 +56,51 @@ afterAll(async () => {
 });
 
 const hostileString = fc.oneof(
-  fc.constantFrom('\u0000', 'a\u0000b', '\ud800', 'x\udc00', '\ud83d', '__proto__', 'constructor', 'toString', 'hasOwnProperty', '', ' ', '-', '%', '..', '../..', 'null', 'undefined', 'NaN', '1e10', '-1', '2147483648', '99999999999', '0x1F'),
+  fc.constantFrom(
+    '\u0000',
+    'a\u0000b',
+    '\ud800',
+    'x\udc00',
+    '\ud83d',
+    '__proto__',
+    'constructor',
+    'toString',
+    'hasOwnProperty',
+    '',
+    ' ',
+    '-',
+    '%',
+    '..',
+    '../..',
+    'null',
+    'undefined',
+    'NaN',
+    '1e10',
+    '-1',
+    '2147483648',
+    '99999999999',
+    '0x1F',
+  ),
   fc.string({ maxLength: 20 }),
   fc.string({ unit: 'binary', maxLength: 12 }),
   fc.nat(3).map((n) => 'y'.repeat([150, 300, 5_000, 100_001][n]!)),
 );
 const hostileNumber = fc.oneof(
-  fc.constantFrom(0, -1, 1, 2 ** 31 - 1, 2 ** 31, 2 ** 53, 1e10, 1e308, -1e308, -500, -460, 0.5, -0.0),
+  fc.constantFrom(
+    0,
+    -1,
+    1,
+    2 ** 31 - 1,
+    2 ** 31,
+    2 ** 53,
+    1e10,
+    1e308,
+    -1e308,
+    -500,
+    -460,
+    0.5,
+    -0.0,
+  ),
   fc.integer(),
   fc.double({ noNaN: true, noDefaultInfinity: true }),
 );
@@ -70,14 +116,52 @@ const segment = (valid: () => string) =>
   fc.oneof(
     { weight: 2, arbitrary: fc.constant(null).map(() => valid()) },
     // `.` and `..` segments are resolved by the client's URL parser before they are sent.
-    { weight: 3, arbitrary: hostileString.map((s) => encodeURIComponent(s.replace(/[\ud800-\udfff]/g, '')).slice(0, 3_000)).map((s) => (/^\.{1,2}$/.test(s) ? 'dot' : s)) },
-    { weight: 2, arbitrary: fc.constantFrom('%00', '%E0%A4%A', '%ED%A0%80', '%', '%zz', '%C0%AF', '99999999999', '2147483648', '-1', '1.5', '%2e%2e%2f') },
+    {
+      weight: 3,
+      arbitrary: hostileString
+        .map((s) => encodeURIComponent(s.replace(/[\ud800-\udfff]/g, '')).slice(0, 3_000))
+        .map((s) => (/^\.{1,2}$/.test(s) ? 'dot' : s)),
+    },
+    {
+      weight: 2,
+      arbitrary: fc.constantFrom(
+        '%00',
+        '%E0%A4%A',
+        '%ED%A0%80',
+        '%',
+        '%zz',
+        '%C0%AF',
+        '99999999999',
+        '2147483648',
+        '-1',
+        '1.5',
+        '%2e%2e%2f',
+      ),
+    },
   );
 
 /** A spool document with one field replaced by a hostile value. */
 const mutatedDocument = fc
   .record({
-    where: fc.constantFrom('name', 'line', 'units', 'conditions.pressure', 'conditions.temperature', 'conditions.material', 'conditions.productForm', 'elements.0.id', 'elements.0.nps', 'elements.0.schedule', 'elements.0.length', 'elements.1.bendRadius', 'elements.1.angle', 'elements.0.kind', 'elements.2.conditions', 'elements', 'origin'),
+    where: fc.constantFrom(
+      'name',
+      'line',
+      'units',
+      'conditions.pressure',
+      'conditions.temperature',
+      'conditions.material',
+      'conditions.productForm',
+      'elements.0.id',
+      'elements.0.nps',
+      'elements.0.schedule',
+      'elements.0.length',
+      'elements.1.bendRadius',
+      'elements.1.angle',
+      'elements.0.kind',
+      'elements.2.conditions',
+      'elements',
+      'origin',
+    ),
     value: hostileValue,
   })
   .map(({ where, value }) => {
@@ -102,42 +186,234 @@ interface Req {
   anonymous?: boolean;
 }
 
-const query = fc.array(fc.tuple(fc.constantFrom('sort', 'search', 'status', 'page', 'pageSize', 'limit', 'source', 'revision', '__proto__', '%00'), hostileString), { maxLength: 3 }).map((pairs) =>
-  pairs.map(([k, v]) => `${k.startsWith('%') ? k : encodeURIComponent(k)}=${encodeURIComponent(v.replace(/[\ud800-\udfff]/g, '\ufffd').slice(0, 2_000))}`).join('&'),
-);
+const query = fc
+  .array(
+    fc.tuple(
+      fc.constantFrom(
+        'sort',
+        'search',
+        'status',
+        'page',
+        'pageSize',
+        'limit',
+        'source',
+        'revision',
+        '__proto__',
+        '%00',
+      ),
+      hostileString,
+    ),
+    { maxLength: 3 },
+  )
+  .map((pairs) =>
+    pairs
+      .map(
+        ([k, v]) =>
+          `${k.startsWith('%') ? k : encodeURIComponent(k)}=${encodeURIComponent(v.replace(/[\ud800-\udfff]/g, '\ufffd').slice(0, 2_000))}`,
+      )
+      .join('&'),
+  );
 
 const csvCell = hostileString.map((s) => s.replace(/[\ud800-\udfff]/g, '').slice(0, 2_000));
-const csvText = (head: string) => fc.array(fc.array(csvCell, { minLength: 1, maxLength: 8 }), { minLength: 1, maxLength: 4 }).map((rows) => `${head}\n${rows.map((r) => r.join(',')).join('\n')}`);
+const csvText = (head: string) =>
+  fc
+    .array(fc.array(csvCell, { minLength: 1, maxLength: 8 }), { minLength: 1, maxLength: 4 })
+    .map((rows) => `${head}\n${rows.map((r) => r.join(',')).join('\n')}`);
 
 const sid = () => spoolId;
 const request: fc.Arbitrary<Req> = fc.oneof(
   fc.record({ method: fc.constant('GET'), path: fc.constant('/api/spools'), query }),
-  fc.record({ method: fc.constant('POST'), path: fc.constant('/api/spools'), query, body: fc.oneof(mutatedDocument.map((document) => ({ document })), body) }),
-  fc.record({ method: fc.constantFrom('GET', 'DELETE'), path: segment(sid).map((s) => `/api/spools/${s}`), query }),
-  fc.record({ method: fc.constant('PUT'), path: segment(sid).map((s) => `/api/spools/${s}`), query, body: fc.oneof(fc.record({ document: mutatedDocument, baseVersion: hostileValue }), body) }),
-  fc.record({ method: fc.constant('POST'), path: segment(sid).map((s) => `/api/spools/${s}/transitions`), query, body: fc.oneof(fc.record({ to: fc.oneof(fc.constantFrom('submitted', 'draft', 'checked', 'released'), hostileString), note: hostileValue, baseVersion: hostileValue }, { requiredKeys: ['to'] }), body) }),
-  fc.record({ method: fc.constant('GET'), path: fc.tuple(segment(sid), fc.constantFrom('revisions', 'events', 'comments', 'shares')).map(([s, w]) => `/api/spools/${s}/${w}`), query }),
-  fc.record({ method: fc.constant('GET'), path: fc.tuple(segment(sid), segment(() => '0')).map(([s, r]) => `/api/spools/${s}/revisions/${r}`), query }),
-  fc.record({ method: fc.constant('POST'), path: segment(sid).map((s) => `/api/spools/${s}/comments`), query, body: fc.oneof(fc.record({ body: hostileValue, elementId: hostileValue, revision: hostileValue }, { requiredKeys: ['body'] }), body) }),
-  fc.record({ method: fc.constant('PATCH'), path: fc.tuple(segment(sid), segment(() => '1')).map(([s, c]) => `/api/spools/${s}/comments/${c}`), query, body: fc.oneof(fc.record({ resolved: hostileValue }), body) }),
-  fc.record({ method: fc.constant('POST'), path: segment(sid).map((s) => `/api/spools/${s}/shares`), query, body: fc.oneof(fc.record({ revision: hostileValue, expiresInDays: hostileValue }, { requiredKeys: [] }), body) }),
-  fc.record({ method: fc.constant('DELETE'), path: fc.tuple(segment(sid), segment(() => 'nope')).map(([s, x]) => `/api/spools/${s}/shares/${x}`), query }),
-  fc.record({ method: fc.constant('GET'), path: segment(() => shareToken).map((s) => `/api/share/${s}`), query, anonymous: fc.constant(true) }),
-  fc.record({ method: fc.constant('POST'), path: fc.constant('/api/check'), query, body: fc.oneof(mutatedDocument, body) }),
-  fc.record({ method: fc.constant('GET'), path: fc.constantFrom('/api/materials', '/api/dimensions', '/api/me', '/api/team/members', '/api/admin/outbox', '/api/admin/jobs', '/api/health'), query }),
-  fc.record({ method: fc.constant('DELETE'), path: segment(() => 'NOPE-1').map((s) => `/api/materials/${s}`), query }),
-  fc.record({ method: fc.constantFrom('PATCH', 'DELETE'), path: segment(() => 'nobody').map((s) => `/api/team/members/${s}`), query, body: fc.record({ role: hostileValue }) }),
-  fc.record({ method: fc.constant('POST'), path: fc.constant('/api/team/members'), query, body: fc.oneof(fc.record({ email: hostileValue, name: hostileValue, role: hostileValue, password: hostileValue }), body) }),
-  fc.record({ method: fc.constant('POST'), path: fc.constant('/api/spools/import'), query, csv: csvText('name,pressure,temperature,material,line,units') }),
-  fc.record({ method: fc.constant('POST'), path: fc.constant('/api/materials/import'), query, csv: csvText('id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi') }),
   fc.record({
     method: fc.constant('POST'),
-    path: fc.constantFrom('/api/auth/sign-in/email', '/api/auth/request-password-reset', '/api/auth/reset-password', '/api/auth/sign-up/email'),
+    path: fc.constant('/api/spools'),
     query,
-    body: fc.oneof(fc.record({ email: hostileValue, password: hostileValue, token: hostileValue, newPassword: hostileValue, redirectTo: hostileValue }, { requiredKeys: [] }), body),
+    body: fc.oneof(
+      mutatedDocument.map((document) => ({ document })),
+      body,
+    ),
+  }),
+  fc.record({
+    method: fc.constantFrom('GET', 'DELETE'),
+    path: segment(sid).map((s) => `/api/spools/${s}`),
+    query,
+  }),
+  fc.record({
+    method: fc.constant('PUT'),
+    path: segment(sid).map((s) => `/api/spools/${s}`),
+    query,
+    body: fc.oneof(fc.record({ document: mutatedDocument, baseVersion: hostileValue }), body),
+  }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: segment(sid).map((s) => `/api/spools/${s}/transitions`),
+    query,
+    body: fc.oneof(
+      fc.record(
+        {
+          to: fc.oneof(fc.constantFrom('submitted', 'draft', 'checked', 'released'), hostileString),
+          note: hostileValue,
+          baseVersion: hostileValue,
+        },
+        { requiredKeys: ['to'] },
+      ),
+      body,
+    ),
+  }),
+  fc.record({
+    method: fc.constant('GET'),
+    path: fc
+      .tuple(segment(sid), fc.constantFrom('revisions', 'events', 'comments', 'shares'))
+      .map(([s, w]) => `/api/spools/${s}/${w}`),
+    query,
+  }),
+  fc.record({
+    method: fc.constant('GET'),
+    path: fc
+      .tuple(
+        segment(sid),
+        segment(() => '0'),
+      )
+      .map(([s, r]) => `/api/spools/${s}/revisions/${r}`),
+    query,
+  }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: segment(sid).map((s) => `/api/spools/${s}/comments`),
+    query,
+    body: fc.oneof(
+      fc.record(
+        { body: hostileValue, elementId: hostileValue, revision: hostileValue },
+        { requiredKeys: ['body'] },
+      ),
+      body,
+    ),
+  }),
+  fc.record({
+    method: fc.constant('PATCH'),
+    path: fc
+      .tuple(
+        segment(sid),
+        segment(() => '1'),
+      )
+      .map(([s, c]) => `/api/spools/${s}/comments/${c}`),
+    query,
+    body: fc.oneof(fc.record({ resolved: hostileValue }), body),
+  }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: segment(sid).map((s) => `/api/spools/${s}/shares`),
+    query,
+    body: fc.oneof(
+      fc.record({ revision: hostileValue, expiresInDays: hostileValue }, { requiredKeys: [] }),
+      body,
+    ),
+  }),
+  fc.record({
+    method: fc.constant('DELETE'),
+    path: fc
+      .tuple(
+        segment(sid),
+        segment(() => 'nope'),
+      )
+      .map(([s, x]) => `/api/spools/${s}/shares/${x}`),
+    query,
+  }),
+  fc.record({
+    method: fc.constant('GET'),
+    path: segment(() => shareToken).map((s) => `/api/share/${s}`),
+    query,
     anonymous: fc.constant(true),
   }),
-  fc.record({ method: fc.constantFrom('GET', 'POST', 'PUT', 'DELETE'), path: fc.array(segment(() => 'x'), { minLength: 1, maxLength: 4 }).map((s) => `/api/${s.join('/')}`), query }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: fc.constant('/api/check'),
+    query,
+    body: fc.oneof(mutatedDocument, body),
+  }),
+  fc.record({
+    method: fc.constant('GET'),
+    path: fc.constantFrom(
+      '/api/materials',
+      '/api/dimensions',
+      '/api/me',
+      '/api/team/members',
+      '/api/admin/outbox',
+      '/api/admin/jobs',
+      '/api/health',
+    ),
+    query,
+  }),
+  fc.record({
+    method: fc.constant('DELETE'),
+    path: segment(() => 'NOPE-1').map((s) => `/api/materials/${s}`),
+    query,
+  }),
+  fc.record({
+    method: fc.constantFrom('PATCH', 'DELETE'),
+    path: segment(() => 'nobody').map((s) => `/api/team/members/${s}`),
+    query,
+    body: fc.record({ role: hostileValue }),
+  }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: fc.constant('/api/team/members'),
+    query,
+    body: fc.oneof(
+      fc.record({
+        email: hostileValue,
+        name: hostileValue,
+        role: hostileValue,
+        password: hostileValue,
+      }),
+      body,
+    ),
+  }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: fc.constant('/api/spools/import'),
+    query,
+    csv: csvText('name,pressure,temperature,material,line,units'),
+  }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: fc.constant('/api/materials/import'),
+    query,
+    csv: csvText('id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi'),
+  }),
+  fc.record({
+    method: fc.constant('POST'),
+    path: fc.constantFrom(
+      '/api/auth/sign-in/email',
+      '/api/auth/request-password-reset',
+      '/api/auth/reset-password',
+      '/api/auth/sign-up/email',
+    ),
+    query,
+    body: fc.oneof(
+      fc.record(
+        {
+          email: hostileValue,
+          password: hostileValue,
+          token: hostileValue,
+          newPassword: hostileValue,
+          redirectTo: hostileValue,
+        },
+        { requiredKeys: [] },
+      ),
+      body,
+    ),
+    anonymous: fc.constant(true),
+  }),
+  fc.record({
+    method: fc.constantFrom('GET', 'POST', 'PUT', 'DELETE'),
+    path: fc
+      .array(
+        segment(() => 'x'),
+        { minLength: 1, maxLength: 4 },
+      )
+      .map((s) => `/api/${s.join('/')}`),
+    query,
+  }),
 );
 
 async function send(r: Req) {
@@ -150,7 +426,11 @@ async function send(r: Req) {
     headers['content-type'] = 'application/json';
     payload = JSON.stringify(r.body);
   }
-  const res = await fetch(`${base}${r.path}${r.query ? `?${r.query}` : ''}`, { method: r.method, headers, body: payload });
+  const res = await fetch(`${base}${r.path}${r.query ? `?${r.query}` : ''}`, {
+    method: r.method,
+    headers,
+    body: payload,
+  });
   const text = await res.text();
   return { status: res.status, text };
 }
@@ -166,10 +446,12 @@ function problemWith(r: Req, status: number, text: string): string | undefined {
     return `not JSON: ${label}`;
   }
   const e = data.error;
-  if (!e || typeof e.code !== 'string' || typeof e.message !== 'string') return `not the error shape: ${label}`;
+  if (!e || typeof e.code !== 'string' || typeof e.message !== 'string')
+    return `not the error shape: ${label}`;
   if (status === 400 || status === 422) {
     if (!Array.isArray(e.details) || e.details.length === 0) return `no details: ${label}`;
-    for (const d of e.details as { path?: unknown }[]) if (typeof d.path !== 'string' || d.path === '') return `a detail without a path: ${label}`;
+    for (const d of e.details as { path?: unknown }[])
+      if (typeof d.path !== 'string' || d.path === '') return `a detail without a path: ${label}`;
   }
   return undefined;
 }
@@ -189,17 +471,30 @@ describe('seeded API fuzz', () => {
           const s0 = performance.now();
           const { status, text } = await send(r);
           const ms = performance.now() - s0;
-          if (process.env.FUZZ_SLOW) slow.push([ms, `${r.method} ${r.path.slice(0, 60)} ${status} ${(r.csv ?? JSON.stringify(r.body) ?? '').length}`]);
+          if (process.env.FUZZ_SLOW)
+            slow.push([
+              ms,
+              `${r.method} ${r.path.slice(0, 60)} ${status} ${(r.csv ?? JSON.stringify(r.body) ?? '').length}`,
+            ]);
           statuses.set(status, (statuses.get(status) ?? 0) + 1);
           const p = problemWith(r, status, text);
           if (p && problems.length < 20) problems.push(p);
         }
       }),
     );
-    if (process.env.FUZZ_SLOW) console.log(slow.sort((a, b) => b[0] - a[0]).slice(0, 25).map((x) => `${x[0].toFixed(0)} ${x[1]}`).join('\n'));
+    if (process.env.FUZZ_SLOW)
+      console.log(
+        slow
+          .sort((a, b) => b[0] - a[0])
+          .slice(0, 25)
+          .map((x) => `${x[0].toFixed(0)} ${x[1]}`)
+          .join('\n'),
+      );
     const counts = [...statuses.entries()].sort((a, b) => a[0] - b[0]);
     // One line of figures for the run log.
-    console.log(`fuzz: ${RUNS} requests in ${Date.now() - t0} ms, statuses ${JSON.stringify(Object.fromEntries(counts))}`);
+    console.log(
+      `fuzz: ${RUNS} requests in ${Date.now() - t0} ms, statuses ${JSON.stringify(Object.fromEntries(counts))}`,
+    );
     expect(problems).toEqual([]);
     expect(counts.filter(([s]) => s >= 500)).toEqual([]);
   }, 300_000);

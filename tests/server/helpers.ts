@@ -29,7 +29,13 @@ function templateKey(): string {
     const p = path.join(MIGRATIONS_DIR, f);
     if (fs.statSync(p).isFile()) h.update(f).update(fs.readFileSync(p));
   }
-  for (const f of ['server/db/seed.ts', 'server/db/demo-spools.ts', 'server/spools/check.ts', 'server/spools/repo.ts']) h.update(fs.readFileSync(path.join(ROOT, f)));
+  for (const f of [
+    'server/db/seed.ts',
+    'server/db/demo-spools.ts',
+    'server/spools/check.ts',
+    'server/spools/repo.ts',
+  ])
+    h.update(fs.readFileSync(path.join(ROOT, f)));
   // The stored check summaries come from the engine, so its sources are part of the key.
   for (const dir of ['shared/engine', 'shared/data', 'shared/model']) {
     for (const f of fs.readdirSync(path.join(ROOT, dir)).sort()) {
@@ -65,7 +71,9 @@ function getTemplate(): Promise<Blob> {
 }
 
 /** An empty database on the TEST_DATABASE_URL server: its URL and a function that drops it. */
-export async function createEmptyPostgresDatabase(url: string): Promise<{ url: string; drop: () => Promise<void> }> {
+export async function createEmptyPostgresDatabase(
+  url: string,
+): Promise<{ url: string; drop: () => Promise<void> }> {
   const name = `spoolwright_test_${process.pid}_${randomBytes(4).toString('hex')}`;
   const admin = new pg.Client({ connectionString: url });
   await admin.connect();
@@ -134,8 +142,17 @@ export function demoEmail(role: Role): string {
 export async function createTestApp(overrides: Partial<ServerConfig> = {}): Promise<TestApp> {
   const database = await createTestDatabase();
   const dataDir = overrides.dataDir ?? fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-test-'));
-  const config = loadConfig({ NODE_ENV: 'test' }, { rateLimit: false, originCheck: false, ...overrides, dataDir });
-  const mailer = await createMailer({ db: database.db, smtpUrl: config.smtpUrl, from: config.mailFrom, logger: silentLogger, mailDir: path.join(dataDir, 'mail') });
+  const config = loadConfig(
+    { NODE_ENV: 'test' },
+    { rateLimit: false, originCheck: false, ...overrides, dataDir },
+  );
+  const mailer = await createMailer({
+    db: database.db,
+    smtpUrl: config.smtpUrl,
+    from: config.mailFrom,
+    logger: silentLogger,
+    mailDir: path.join(dataDir, 'mail'),
+  });
   const auth = createAuth({ db: database.db, config, mailer, logger: silentLogger });
   const app = createApp({ db: database.db, auth, mailer, config, logger: silentLogger });
   const agents = new Map<Role, request.Agent>();
@@ -147,7 +164,9 @@ export async function createTestApp(overrides: Partial<ServerConfig> = {}): Prom
       const cached = agents.get(role);
       if (cached) return cached;
       const agent = request.agent(app);
-      const r = await agent.post('/api/auth/sign-in/email').send({ email: demoEmail(role), password: DEMO_PASSWORD });
+      const r = await agent
+        .post('/api/auth/sign-in/email')
+        .send({ email: demoEmail(role), password: DEMO_PASSWORD });
       if (r.status !== 200) throw new Error(`sign-in as ${role} failed: ${r.status} ${r.text}`);
       agents.set(role, agent);
       return agent;
@@ -178,7 +197,15 @@ export function sampleDocument(name = 'Test spool', overrides: Record<string, un
     conditions: { pressure: 150, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 },
     elements: [
       { kind: 'straight', id: 'S1', nps: '2', schedule: '40', direction: 'east', length: 24 },
-      { kind: 'bend', id: 'B1', nps: '2', schedule: '40', direction: 'north', bendRadius: { multipleOfD: 3 }, angle: 90 },
+      {
+        kind: 'bend',
+        id: 'B1',
+        nps: '2',
+        schedule: '40',
+        direction: 'north',
+        bendRadius: { multipleOfD: 3 },
+        angle: 90,
+      },
       { kind: 'straight', id: 'S2', nps: '2', schedule: '40', direction: 'north', length: 36 },
     ],
     ...overrides,

@@ -26,10 +26,19 @@ let otherAdmin: request.Agent;
 beforeAll(async () => {
   t = await createTestApp();
   await t.database.db.insert(teams).values({ id: 'team-second', name: 'Second Team' });
-  const id = await createUserWithPassword(t.database.db, { email: 'second.admin@spoolwright.test', name: 'Sec Ond', password: 'second-admin-password' });
-  await t.database.db.insert(teamMembers).values({ teamId: 'team-second', userId: id, role: 'admin' });
+  const id = await createUserWithPassword(t.database.db, {
+    email: 'second.admin@spoolwright.test',
+    name: 'Sec Ond',
+    password: 'second-admin-password',
+  });
+  await t.database.db
+    .insert(teamMembers)
+    .values({ teamId: 'team-second', userId: id, role: 'admin' });
   otherAdmin = t.anon();
-  await otherAdmin.post('/api/auth/sign-in/email').send({ email: 'second.admin@spoolwright.test', password: 'second-admin-password' }).expect(200);
+  await otherAdmin
+    .post('/api/auth/sign-in/email')
+    .send({ email: 'second.admin@spoolwright.test', password: 'second-admin-password' })
+    .expect(200);
 });
 afterAll(async () => {
   await t?.close();
@@ -55,10 +64,16 @@ async function resetPassword(email: string, newPassword: string) {
 describe('mail: the development catcher and the outbox', () => {
   it('delivers over SMTP into DATA_DIR/mail as .eml files with the whole link', async () => {
     const sentAfter = Date.now();
-    await t.anon().post('/api/auth/request-password-reset').send({ email: demoEmail('lead') }).expect(200);
+    await t
+      .anon()
+      .post('/api/auth/request-password-reset')
+      .send({ email: demoEmail('lead') })
+      .expect(200);
     const text = await t.readMail(demoEmail('lead'), { subject: /reset/i, after: sentAfter });
     expect(text).toContain(`${t.config.publicUrl}/reset-password?token=`);
-    const files = fs.readdirSync(path.join(t.config.dataDir, 'mail')).filter((f) => f.endsWith('.eml'));
+    const files = fs
+      .readdirSync(path.join(t.config.dataDir, 'mail'))
+      .filter((f) => f.endsWith('.eml'));
     expect(files.length).toBeGreaterThan(0);
     const raw = fs.readFileSync(path.join(t.config.dataDir, 'mail', files.sort().at(-1)!), 'utf8');
     expect(raw).toMatch(/^Subject: Reset your Spoolwright password$/m);
@@ -67,13 +82,27 @@ describe('mail: the development catcher and the outbox', () => {
 
   it('shows an admin only mail to their own team', async () => {
     const s = await createSpool('Outbox scope');
-    await (await t.signIn('lead')).post(`/api/spools/${s.id}/transitions`).send({ to: 'submitted' }).expect(200);
-    await t.anon().post('/api/auth/request-password-reset').send({ email: demoEmail('checker') }).expect(200);
+    await (await t.signIn('lead'))
+      .post(`/api/spools/${s.id}/transitions`)
+      .send({ to: 'submitted' })
+      .expect(200);
+    await t
+      .anon()
+      .post('/api/auth/request-password-reset')
+      .send({ email: demoEmail('checker') })
+      .expect(200);
     await t.readMail(demoEmail('checker'), { subject: /reset/i });
     const own = await (await t.signIn('admin')).get('/api/admin/outbox');
     expect(own.status).toBe(200);
-    expect(own.body.items.some((m: { subject: string }) => m.subject === 'Spool Outbox scope submitted')).toBe(true);
-    expect(own.body.items.some((m: { to: string; subject: string }) => m.to === demoEmail('checker') && /reset/i.test(m.subject))).toBe(true);
+    expect(
+      own.body.items.some((m: { subject: string }) => m.subject === 'Spool Outbox scope submitted'),
+    ).toBe(true);
+    expect(
+      own.body.items.some(
+        (m: { to: string; subject: string }) =>
+          m.to === demoEmail('checker') && /reset/i.test(m.subject),
+      ),
+    ).toBe(true);
     const other = await otherAdmin.get('/api/admin/outbox');
     expect(other.status).toBe(200);
     expect(other.body.items).toEqual([]);
@@ -82,26 +111,41 @@ describe('mail: the development catcher and the outbox', () => {
 
   it('files mail to the second team under that team alone', async () => {
     const sentAfter = Date.now();
-    await t.anon().post('/api/auth/request-password-reset').send({ email: 'second.admin@spoolwright.test' }).expect(200);
+    await t
+      .anon()
+      .post('/api/auth/request-password-reset')
+      .send({ email: 'second.admin@spoolwright.test' })
+      .expect(200);
     await t.readMail('second.admin@spoolwright.test', { after: sentAfter });
     const other = await otherAdmin.get('/api/admin/outbox');
-    expect(other.body.items.map((m: { to: string }) => m.to)).toEqual(['second.admin@spoolwright.test']);
+    expect(other.body.items.map((m: { to: string }) => m.to)).toEqual([
+      'second.admin@spoolwright.test',
+    ]);
     const own = await (await t.signIn('admin')).get('/api/admin/outbox?limit=500');
     expect(own.body.items.some((m: { to: string }) => m.to.includes('second.admin'))).toBe(false);
   });
 
   it('never shows a one-use token in any outbox answer', async () => {
     const sentAfter = Date.now();
-    await t.anon().post('/api/auth/request-password-reset').send({ email: demoEmail('designer') }).expect(200);
-    const token = RESET_LINK.exec(await t.readMail(demoEmail('designer'), { subject: /reset/i, after: sentAfter }))?.[1];
+    await t
+      .anon()
+      .post('/api/auth/request-password-reset')
+      .send({ email: demoEmail('designer') })
+      .expect(200);
+    const token = RESET_LINK.exec(
+      await t.readMail(demoEmail('designer'), { subject: /reset/i, after: sentAfter }),
+    )?.[1];
     expect(token).toBeTruthy();
     for (const agent of [await t.signIn('admin'), otherAdmin]) {
       const body = JSON.stringify((await agent.get('/api/admin/outbox?limit=500')).body);
       expect(body).not.toContain(token);
       expect(body).not.toMatch(/token=(?!\[redacted\])/);
     }
-    const mine = (await (await t.signIn('admin')).get('/api/admin/outbox?limit=500')).body.items.find(
-      (m: { to: string; subject: string }) => m.to === demoEmail('designer') && /reset/i.test(m.subject),
+    const mine = (
+      await (await t.signIn('admin')).get('/api/admin/outbox?limit=500')
+    ).body.items.find(
+      (m: { to: string; subject: string }) =>
+        m.to === demoEmail('designer') && /reset/i.test(m.subject),
     );
     expect(mine.text).toContain('/reset-password?token=[redacted]');
     // The stored row has no copy of the token either.
@@ -109,7 +153,11 @@ describe('mail: the development catcher and the outbox', () => {
     expect(rows.length).toBeGreaterThan(0);
     expect(JSON.stringify(rows)).not.toContain(token);
     // The token still works for its addressee.
-    await t.anon().post('/api/auth/reset-password').send({ token, newPassword: DEMO_PASSWORD }).expect(200);
+    await t
+      .anon()
+      .post('/api/auth/reset-password')
+      .send({ token, newPassword: DEMO_PASSWORD })
+      .expect(200);
     t.forget('designer');
   });
 
@@ -129,7 +177,9 @@ describe('mail: the development catcher and the outbox', () => {
 describe('sessions end at once', () => {
   it('refuses a signed-out cookie, even a copy kept elsewhere, for reads and writes', async () => {
     const agent = t.anon();
-    const login = await agent.post('/api/auth/sign-in/email').send({ email: demoEmail('checker'), password: DEMO_PASSWORD });
+    const login = await agent
+      .post('/api/auth/sign-in/email')
+      .send({ email: demoEmail('checker'), password: DEMO_PASSWORD });
     expect(login.status).toBe(200);
     const cookie = login.headers['set-cookie'] as unknown as string[];
     const copy = cookie.map((c) => c.split(';')[0]).join('; ');
@@ -138,18 +188,31 @@ describe('sessions end at once', () => {
     await agent.post('/api/auth/sign-out').send({}).expect(200);
     expect((await agent.get('/api/me')).status).toBe(401);
     expect((await request(t.app).get('/api/me').set('cookie', copy)).status).toBe(401);
-    expect((await request(t.app).post('/api/spools').set('cookie', copy).send({ document: sampleDocument('After sign-out') })).status).toBe(401);
+    expect(
+      (
+        await request(t.app)
+          .post('/api/spools')
+          .set('cookie', copy)
+          .send({ document: sampleDocument('After sign-out') })
+      ).status,
+    ).toBe(401);
   });
 
   it('revokes every session of the user on a password reset', async () => {
     const a = t.anon();
     const b = t.anon();
-    for (const x of [a, b]) await x.post('/api/auth/sign-in/email').send({ email: demoEmail('checker'), password: DEMO_PASSWORD }).expect(200);
+    for (const x of [a, b])
+      await x
+        .post('/api/auth/sign-in/email')
+        .send({ email: demoEmail('checker'), password: DEMO_PASSWORD })
+        .expect(200);
     await a.get('/api/me').expect(200);
     await b.get('/api/spools').expect(200);
     await resetPassword(demoEmail('checker'), 'checker-new-password');
     expect((await a.get('/api/me')).status).toBe(401);
-    expect((await b.post('/api/spools').send({ document: sampleDocument('After reset') })).status).toBe(401);
+    expect(
+      (await b.post('/api/spools').send({ document: sampleDocument('After reset') })).status,
+    ).toBe(401);
     await resetPassword(demoEmail('checker'), DEMO_PASSWORD);
     t.forget('checker');
   });
@@ -191,12 +254,21 @@ describe('share links', () => {
     const token = made.body.token as string;
     expect(token.length).toBeGreaterThanOrEqual(32);
     expect(made.body.url).toBe(`${t.config.publicUrl}/share/${token}`);
-    const [row] = await t.database.db.select().from(shareLinks).where(eq(shareLinks.id, made.body.id));
+    const [row] = await t.database.db
+      .select()
+      .from(shareLinks)
+      .where(eq(shareLinks.id, made.body.id));
     expect(row!.tokenHash).toBe(createHash('sha256').update(token).digest('hex'));
     expect(JSON.stringify(row)).not.toContain(token);
     const list = await lead.get(`/api/spools/${s.id}/shares`);
     expect(list.body.items).toHaveLength(1);
-    expect(list.body.items[0]).toMatchObject({ id: made.body.id, state: 'active', revision: 0, createdBy: { name: expect.any(String) }, expiresAt: expect.any(String) });
+    expect(list.body.items[0]).toMatchObject({
+      id: made.body.id,
+      state: 'active',
+      revision: 0,
+      createdBy: { name: expect.any(String) },
+      expiresAt: expect.any(String),
+    });
     expect(JSON.stringify(list.body)).not.toContain(token);
     expect(list.body.items[0].token).toBeUndefined();
     expect(list.body.items[0].url).toBeUndefined();
@@ -209,7 +281,10 @@ describe('share links', () => {
   it('stop working when their spool is deleted', async () => {
     const s = await createSpool('Deleted with links');
     const lead = await t.signIn('lead');
-    const tokens = [(await lead.post(`/api/spools/${s.id}/shares`).send({})).body.token, (await lead.post(`/api/spools/${s.id}/shares`).send({})).body.token];
+    const tokens = [
+      (await lead.post(`/api/spools/${s.id}/shares`).send({})).body.token,
+      (await lead.post(`/api/spools/${s.id}/shares`).send({})).body.token,
+    ];
     for (const tok of tokens) expect((await t.anon().get(`/api/share/${tok}`)).status).toBe(200);
     await lead.delete(`/api/spools/${s.id}`).expect(204);
     for (const tok of tokens) {
@@ -224,13 +299,31 @@ describe('share links', () => {
   it('show the check without the team material source notes', async () => {
     const admin = await t.signIn('admin');
     // Invented team material; values chosen for the test, not from any table.
-    const csv = ['id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi', 'QZ-9,Team spec QZ,9,70,38,100,23.3', 'QZ-9,,,,,600,20.0'].join('\n');
+    const csv = [
+      'id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi',
+      'QZ-9,Team spec QZ,9,70,38,100,23.3',
+      'QZ-9,,,,,600,20.0',
+    ].join('\n');
     const note = 'Owner internal spec QZ-9 rev C, table 7 (confidential)';
-    await admin.post('/api/materials/import').field('source', note).attach('file', Buffer.from(csv), 'materials.csv').expect(201);
-    const s = await createSpool('Team material share', sampleDocument('Team material share', { conditions: { pressure: 150, temperature: 300, material: 'QZ-9' } }));
-    const own = await admin.post('/api/check').send(sampleDocument('x', { conditions: { pressure: 150, temperature: 300, material: 'QZ-9' } }));
+    await admin
+      .post('/api/materials/import')
+      .field('source', note)
+      .attach('file', Buffer.from(csv), 'materials.csv')
+      .expect(201);
+    const s = await createSpool(
+      'Team material share',
+      sampleDocument('Team material share', {
+        conditions: { pressure: 150, temperature: 300, material: 'QZ-9' },
+      }),
+    );
+    const own = await admin
+      .post('/api/check')
+      .send(
+        sampleDocument('x', { conditions: { pressure: 150, temperature: 300, material: 'QZ-9' } }),
+      );
     expect(JSON.stringify(own.body)).toContain('rev C, table 7');
-    const token = (await (await t.signIn('lead')).post(`/api/spools/${s.id}/shares`).send({})).body.token;
+    const token = (await (await t.signIn('lead')).post(`/api/spools/${s.id}/shares`).send({})).body
+      .token;
     const view = await t.anon().get(`/api/share/${token}`);
     expect(view.status).toBe(200);
     expect(view.body.check.summary.invalid).toBe(0);
@@ -245,23 +338,55 @@ describe('share links', () => {
 describe('team members', () => {
   it('can add a removed member again, who then signs in with the new password', async () => {
     const admin = await t.signIn('admin');
-    const add = await admin.post('/api/team/members').send({ email: 'returning@spoolwright.test', name: 'Ren Turner', role: 'designer', password: 'first-password-1' });
+    const add = await admin.post('/api/team/members').send({
+      email: 'returning@spoolwright.test',
+      name: 'Ren Turner',
+      role: 'designer',
+      password: 'first-password-1',
+    });
     expect(add.status).toBe(201);
     const member = t.anon();
-    await member.post('/api/auth/sign-in/email').send({ email: 'returning@spoolwright.test', password: 'first-password-1' }).expect(200);
+    await member
+      .post('/api/auth/sign-in/email')
+      .send({ email: 'returning@spoolwright.test', password: 'first-password-1' })
+      .expect(200);
     await member.get('/api/spools').expect(200);
     await admin.delete(`/api/team/members/${add.body.userId}`).expect(204);
     // Removal signs the member out at once.
     expect((await member.get('/api/spools')).status).toBe(401);
-    const again = await admin.post('/api/team/members').send({ email: 'Returning@spoolwright.test', name: 'Ren Turner-Ash', role: 'checker', password: 'second-password-2' });
+    const again = await admin.post('/api/team/members').send({
+      email: 'Returning@spoolwright.test',
+      name: 'Ren Turner-Ash',
+      role: 'checker',
+      password: 'second-password-2',
+    });
     expect(again.status).toBe(201);
-    expect(again.body).toMatchObject({ userId: add.body.userId, role: 'checker', name: 'Ren Turner-Ash' });
-    await t.anon().post('/api/auth/sign-in/email').send({ email: 'returning@spoolwright.test', password: 'first-password-1' }).expect(401);
+    expect(again.body).toMatchObject({
+      userId: add.body.userId,
+      role: 'checker',
+      name: 'Ren Turner-Ash',
+    });
+    await t
+      .anon()
+      .post('/api/auth/sign-in/email')
+      .send({ email: 'returning@spoolwright.test', password: 'first-password-1' })
+      .expect(401);
     const back = t.anon();
-    await back.post('/api/auth/sign-in/email').send({ email: 'returning@spoolwright.test', password: 'second-password-2' }).expect(200);
-    expect((await back.get('/api/me')).body).toMatchObject({ role: 'checker', team: { id: 'team-larkspur' } });
+    await back
+      .post('/api/auth/sign-in/email')
+      .send({ email: 'returning@spoolwright.test', password: 'second-password-2' })
+      .expect(200);
+    expect((await back.get('/api/me')).body).toMatchObject({
+      role: 'checker',
+      team: { id: 'team-larkspur' },
+    });
     // A member of another team is still refused.
-    const taken = await admin.post('/api/team/members').send({ email: 'second.admin@spoolwright.test', name: 'X', role: 'designer', password: 'whatever-password' });
+    const taken = await admin.post('/api/team/members').send({
+      email: 'second.admin@spoolwright.test',
+      name: 'X',
+      role: 'designer',
+      password: 'whatever-password',
+    });
     expect(taken.status).toBe(409);
   });
 });
@@ -274,12 +399,23 @@ describe('CSV uploads', () => {
     expect(r.status).toBe(422);
     expect(r.body.error.message).toMatch(/ligne-export\.csv is not UTF-8.*line 2/);
     expect(r.body.error.details[0].path).toBe('file');
-    const utf16 = Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from('name,pressure,temperature\nA,1,2\n', 'utf16le')]);
-    const u = await (await t.signIn('admin')).post('/api/materials/import').field('source', 'x').attach('file', utf16, 'materials-utf16.csv');
+    const utf16 = Buffer.concat([
+      Buffer.from([0xff, 0xfe]),
+      Buffer.from('name,pressure,temperature\nA,1,2\n', 'utf16le'),
+    ]);
+    const u = await (await t.signIn('admin'))
+      .post('/api/materials/import')
+      .field('source', 'x')
+      .attach('file', utf16, 'materials-utf16.csv');
     expect(u.status).toBe(422);
     expect(u.body.error.message).toMatch(/materials-utf16\.csv is UTF-16/);
-    const bom = Buffer.concat([Buffer.from([0xef, 0xbb, 0xbf]), Buffer.from('name,pressure,temperature\nBOM spool,100,100\n')]);
-    expect((await designer.post('/api/spools/import').attach('file', bom, 'bom.csv')).status).toBe(201);
+    const bom = Buffer.concat([
+      Buffer.from([0xef, 0xbb, 0xbf]),
+      Buffer.from('name,pressure,temperature\nBOM spool,100,100\n'),
+    ]);
+    expect((await designer.post('/api/spools/import').attach('file', bom, 'bom.csv')).status).toBe(
+      201,
+    );
   });
 });
 
@@ -287,13 +423,33 @@ describe('Content-Security-Policy', () => {
   it('is sent on API answers and on the app shell', async () => {
     const dist = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-dist-'));
     fs.writeFileSync(path.join(dist, 'index.html'), '<!doctype html><title>x</title>');
-    const auth = createAuth({ db: t.database.db, config: t.config, mailer: t.mailer, logger: silentLogger });
-    const withClient = createApp({ db: t.database.db, auth, mailer: t.mailer, config: t.config, logger: silentLogger, staticDir: dist });
+    const auth = createAuth({
+      db: t.database.db,
+      config: t.config,
+      mailer: t.mailer,
+      logger: silentLogger,
+    });
+    const withClient = createApp({
+      db: t.database.db,
+      auth,
+      mailer: t.mailer,
+      config: t.config,
+      logger: silentLogger,
+      staticDir: dist,
+    });
     try {
-      for (const r of [await request(t.app).get('/api/health'), await request(withClient).get('/spools').set('accept', 'text/html')]) {
+      for (const r of [
+        await request(t.app).get('/api/health'),
+        await request(withClient).get('/spools').set('accept', 'text/html'),
+      ]) {
         expect(r.status).toBe(200);
         const csp = String(r.headers['content-security-policy']);
-        const directives = new Map(csp.split(';').map((d) => d.trim().split(/\s+/)).map(([k, ...v]) => [k!, v]));
+        const directives = new Map(
+          csp
+            .split(';')
+            .map((d) => d.trim().split(/\s+/))
+            .map(([k, ...v]) => [k!, v]),
+        );
         expect(directives.get('default-src')).toEqual(["'self'"]);
         expect(directives.get('script-src')).toEqual(["'self'"]);
         expect(directives.get('object-src')).toEqual(["'none'"]);
@@ -312,13 +468,29 @@ describe('Content-Security-Policy', () => {
 describe('the mailer', () => {
   it('accepts mail only with its credentials and stops the catcher on close', async () => {
     const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-mailer-'));
-    const mailer = await createMailer({ db: t.database.db, from: 'Spoolwright <no-reply@spoolwright.test>', logger: silentLogger, mailDir: path.join(dir, 'mail') });
+    const mailer = await createMailer({
+      db: t.database.db,
+      from: 'Spoolwright <no-reply@spoolwright.test>',
+      logger: silentLogger,
+      mailDir: path.join(dir, 'mail'),
+    });
     try {
       const { host, port } = mailer.catcherAddress!;
       // Another local program without the credentials cannot post into the outbox.
       const intruder = nodemailer.createTransport({ host, port, secure: false, ignoreTLS: true });
-      await expect(intruder.sendMail({ from: 'x@evil.test', to: demoEmail('admin'), subject: 'hi', text: 'x' })).rejects.toThrow();
-      await mailer.send({ to: demoEmail('admin'), subject: 'Über ünïcode — a long subject line that nodemailer folds and encodes', text: 'Grüße\nSecond line' });
+      await expect(
+        intruder.sendMail({
+          from: 'x@evil.test',
+          to: demoEmail('admin'),
+          subject: 'hi',
+          text: 'x',
+        }),
+      ).rejects.toThrow();
+      await mailer.send({
+        to: demoEmail('admin'),
+        subject: 'Über ünïcode — a long subject line that nodemailer folds and encodes',
+        text: 'Grüße\nSecond line',
+      });
       const text = await readMail(dir, demoEmail('admin'));
       expect(text).toBe('Grüße\nSecond line\n');
       await mailer.close();
@@ -331,7 +503,9 @@ describe('the mailer', () => {
         sock.once('error', () => resolve(true));
       });
       expect(refused).toBe(true);
-      await expect(mailer.send({ to: demoEmail('admin'), subject: 'late', text: 'x' })).rejects.toThrow(/closed/);
+      await expect(
+        mailer.send({ to: demoEmail('admin'), subject: 'late', text: 'x' }),
+      ).rejects.toThrow(/closed/);
     } finally {
       await mailer.close();
       fs.rmSync(dir, { recursive: true, force: true });
@@ -340,23 +514,35 @@ describe('the mailer', () => {
 });
 
 describe('migration 0004 (mail and share tokens) on an existing database', () => {
-  it('keeps existing share links working by their token and hides old outbox tokens', { timeout: 120_000 }, async () => {
-    const { PGlite } = await import('@electric-sql/pglite');
-    const { drizzle } = await import('drizzle-orm/pglite');
-    const { migrate } = await import('drizzle-orm/pglite/migrator');
-    const { MIGRATIONS_DIR } = await import('../../server/db/client');
-    // The migrations before 0004, as a database made before this change has them.
-    const old = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-mig-'));
-    fs.mkdirSync(path.join(old, 'meta'));
-    const journal = JSON.parse(fs.readFileSync(path.join(MIGRATIONS_DIR, 'meta/_journal.json'), 'utf8')) as { entries: { tag: string }[] };
-    const before = journal.entries.slice(0, journal.entries.findIndex((e) => e.tag.startsWith('0004')));
-    for (const e of before) fs.copyFileSync(path.join(MIGRATIONS_DIR, `${e.tag}.sql`), path.join(old, `${e.tag}.sql`));
-    fs.writeFileSync(path.join(old, 'meta/_journal.json'), JSON.stringify({ ...journal, entries: before }));
-    const client = await PGlite.create();
-    try {
-      const db = drizzle({ client });
-      await migrate(db, { migrationsFolder: old });
-      await client.exec(`
+  it(
+    'keeps existing share links working by their token and hides old outbox tokens',
+    { timeout: 120_000 },
+    async () => {
+      const { PGlite } = await import('@electric-sql/pglite');
+      const { drizzle } = await import('drizzle-orm/pglite');
+      const { migrate } = await import('drizzle-orm/pglite/migrator');
+      const { MIGRATIONS_DIR } = await import('../../server/db/client');
+      // The migrations before 0004, as a database made before this change has them.
+      const old = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-mig-'));
+      fs.mkdirSync(path.join(old, 'meta'));
+      const journal = JSON.parse(
+        fs.readFileSync(path.join(MIGRATIONS_DIR, 'meta/_journal.json'), 'utf8'),
+      ) as { entries: { tag: string }[] };
+      const before = journal.entries.slice(
+        0,
+        journal.entries.findIndex((e) => e.tag.startsWith('0004')),
+      );
+      for (const e of before)
+        fs.copyFileSync(path.join(MIGRATIONS_DIR, `${e.tag}.sql`), path.join(old, `${e.tag}.sql`));
+      fs.writeFileSync(
+        path.join(old, 'meta/_journal.json'),
+        JSON.stringify({ ...journal, entries: before }),
+      );
+      const client = await PGlite.create();
+      try {
+        const db = drizzle({ client });
+        await migrate(db, { migrationsFolder: old });
+        await client.exec(`
         insert into teams (id, name) values ('t1', 'T');
         insert into "user" (id, name, email) values ('u1', 'U', 'u@x.test');
         insert into spools (id, team_id, name, document) values ('s1', 't1', 'S', '{}');
@@ -364,18 +550,29 @@ describe('migration 0004 (mail and share tokens) on an existing database', () =>
           values ('old-token-0123456789abcdefghijklmnop', 't1', 's1', 0, 'draft', 'S', '{}', now() + interval '1 day');
         insert into outbox ("to", "from", subject, text, raw)
           values ('u@x.test', 'f', 'Reset', 'Open http://h/api/auth/reset-password/SECRETTOKEN1?callbackURL=/r or http://h/accept-invite?token=SECRET2&x=1', 'raw');`);
-      await migrate(db, { migrationsFolder: MIGRATIONS_DIR });
-      const share = (await client.query<{ id: string; token_hash: string }>('select id, token_hash from share_links')).rows[0]!;
-      expect(share.token_hash).toBe(createHash('sha256').update('old-token-0123456789abcdefghijklmnop').digest('hex'));
-      expect(share.id).not.toContain('old-token');
-      const mail = (await client.query<{ text: string; team_id: string | null }>('select text, team_id from outbox')).rows[0]!;
-      expect(mail.team_id).toBeNull();
-      expect(mail.text).not.toMatch(/SECRET/);
-      expect(mail.text).toContain('/reset-password/[redacted]?callbackURL=/r');
-      expect(mail.text).toContain('accept-invite?token=[redacted]&x=1');
-    } finally {
-      await client.close();
-      fs.rmSync(old, { recursive: true, force: true });
-    }
-  });
+        await migrate(db, { migrationsFolder: MIGRATIONS_DIR });
+        const share = (
+          await client.query<{ id: string; token_hash: string }>(
+            'select id, token_hash from share_links',
+          )
+        ).rows[0]!;
+        expect(share.token_hash).toBe(
+          createHash('sha256').update('old-token-0123456789abcdefghijklmnop').digest('hex'),
+        );
+        expect(share.id).not.toContain('old-token');
+        const mail = (
+          await client.query<{ text: string; team_id: string | null }>(
+            'select text, team_id from outbox',
+          )
+        ).rows[0]!;
+        expect(mail.team_id).toBeNull();
+        expect(mail.text).not.toMatch(/SECRET/);
+        expect(mail.text).toContain('/reset-password/[redacted]?callbackURL=/r');
+        expect(mail.text).toContain('accept-invite?token=[redacted]&x=1');
+      } finally {
+        await client.close();
+        fs.rmSync(old, { recursive: true, force: true });
+      }
+    },
+  );
 });

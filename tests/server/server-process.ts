@@ -12,18 +12,37 @@ export interface ServerProcess {
   exited: Promise<number | string>;
 }
 
-export async function spawnServer(dataDir: string, opts: { port?: number; env?: Record<string, string>; waitReady?: boolean } = {}): Promise<ServerProcess> {
+export async function spawnServer(
+  dataDir: string,
+  opts: { port?: number; env?: Record<string, string>; waitReady?: boolean } = {},
+): Promise<ServerProcess> {
   const port = opts.port ?? (await getFreePort());
   const child = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server/index.ts')], {
     cwd: ROOT,
-    env: { ...process.env, DATA_DIR: dataDir, PORT: String(port), HOST: '127.0.0.1', RATE_LIMIT: 'off', SPOOLWRIGHT_QUIET: '1', ...opts.env },
+    env: {
+      ...process.env,
+      DATA_DIR: dataDir,
+      PORT: String(port),
+      HOST: '127.0.0.1',
+      RATE_LIMIT: 'off',
+      SPOOLWRIGHT_QUIET: '1',
+      ...opts.env,
+    },
     stdio: ['ignore', 'pipe', 'pipe'],
   });
   let out = '';
   child.stdout!.on('data', (d: Buffer) => (out += d.toString()));
   child.stderr!.on('data', (d: Buffer) => (out += d.toString()));
-  const exited = new Promise<number | string>((resolve) => child.once('exit', (code, signal) => resolve(code ?? signal ?? -1)));
-  const proc: ServerProcess = { child, url: `http://127.0.0.1:${port}`, port, output: () => out, exited };
+  const exited = new Promise<number | string>((resolve) =>
+    child.once('exit', (code, signal) => resolve(code ?? signal ?? -1)),
+  );
+  const proc: ServerProcess = {
+    child,
+    url: `http://127.0.0.1:${port}`,
+    port,
+    output: () => out,
+    exited,
+  };
   if (opts.waitReady !== false) {
     await Promise.race([
       new Promise<void>((resolve, reject) => {
@@ -38,7 +57,9 @@ export async function spawnServer(dataDir: string, opts: { port?: number; env?: 
           reject(new Error(`server exited (${code}) before it was ready: ${out}`));
         });
       }),
-      new Promise<void>((_, reject) => setTimeout(() => reject(new Error(`server not ready in 120 s: ${out}`)), 120_000)),
+      new Promise<void>((_, reject) =>
+        setTimeout(() => reject(new Error(`server not ready in 120 s: ${out}`)), 120_000),
+      ),
     ]);
   }
   return proc;
@@ -68,7 +89,11 @@ export async function signInCookie(url: string, email: string, password: string)
 export async function api(url: string, cookie: string, method: string, p: string, body?: unknown) {
   const r = await fetch(`${url}${p}`, {
     method,
-    headers: { cookie, origin: url, ...(body === undefined ? {} : { 'content-type': 'application/json' }) },
+    headers: {
+      cookie,
+      origin: url,
+      ...(body === undefined ? {} : { 'content-type': 'application/json' }),
+    },
     body: body === undefined ? undefined : JSON.stringify(body),
   });
   const text = await r.text();

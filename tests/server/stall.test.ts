@@ -57,11 +57,17 @@ describe('POST /api/check in the worker pool', () => {
   it('refuses a bad document from the pool with the field named', async () => {
     const lead = await t.signIn('lead');
     const doc = buildLongSpool(400, 'Pool invalid');
-    const bad = { ...doc, elements: doc.elements.map((e, i) => (i === 321 ? { ...e, id: 'x\u0000' } : e)) };
+    const bad = {
+      ...doc,
+      elements: doc.elements.map((e, i) => (i === 321 ? { ...e, id: 'x\u0000' } : e)),
+    };
     const r = await lead.post('/api/check').send(bad);
     expect(r.status).toBe(422);
     expect(r.body.error.details[0].path).toBe('elements[321].id');
-    const notJson = await lead.post('/api/check').set('content-type', 'application/json').send(`${JSON.stringify(doc).slice(0, 20_000)}`);
+    const notJson = await lead
+      .post('/api/check')
+      .set('content-type', 'application/json')
+      .send(`${JSON.stringify(doc).slice(0, 20_000)}`);
     expect(notJson.status).toBe(400);
     expect(notJson.body.error.details[0].path).toBe('body');
   }, 60_000);
@@ -71,9 +77,16 @@ describe('share links', () => {
   it('store the check of the frozen revision when created and serve it unchanged', async () => {
     const admin = await t.signIn('admin');
     // Invented team material; values chosen for the test, not from any table.
-    const material = 'id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\nSTALL-1,Team spec ST,1,70,38,100,23.3\nSTALL-1,,,,,400,23.3';
-    await admin.post('/api/materials/import?source=stall%20test%20table').set('content-type', 'text/csv').send(material).expect(201);
-    const doc = sampleDocument('Shared frozen', { conditions: { pressure: 150, temperature: 300, material: 'STALL-1' } });
+    const material =
+      'id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\nSTALL-1,Team spec ST,1,70,38,100,23.3\nSTALL-1,,,,,400,23.3';
+    await admin
+      .post('/api/materials/import?source=stall%20test%20table')
+      .set('content-type', 'text/csv')
+      .send(material)
+      .expect(201);
+    const doc = sampleDocument('Shared frozen', {
+      conditions: { pressure: 150, temperature: 300, material: 'STALL-1' },
+    });
     const created = await admin.post('/api/spools').send({ document: doc });
     expect(created.body.summary.invalid).toBe(0);
     const share = await admin.post(`/api/spools/${created.body.id}/shares`).send({});
@@ -88,7 +101,10 @@ describe('share links', () => {
     expect((await admin.post('/api/check').send(doc)).body.summary.invalid).toBe(3);
     const again = await t.anon().get(`/api/share/${token}`);
     expect(again.body.check).toEqual(first.body.check);
-    expect(again.body).toMatchObject({ sharedAt: first.body.sharedAt, expiresAt: first.body.expiresAt });
+    expect(again.body).toMatchObject({
+      sharedAt: first.body.sharedAt,
+      expiresAt: first.body.expiresAt,
+    });
     await t.idle();
   });
 
@@ -96,7 +112,8 @@ describe('share links', () => {
     const limited = await createTestApp({ rateLimit: true });
     try {
       const codes: number[] = [];
-      for (let i = 0; i < SHARE_REQUESTS_PER_MINUTE + 2; i++) codes.push((await limited.anon().get('/api/share/no-such-token')).status);
+      for (let i = 0; i < SHARE_REQUESTS_PER_MINUTE + 2; i++)
+        codes.push((await limited.anon().get('/api/share/no-such-token')).status);
       expect(codes.slice(0, SHARE_REQUESTS_PER_MINUTE).every((c) => c === 404)).toBe(true);
       const over = await limited.anon().get('/api/share/no-such-token');
       expect(over.status).toBe(429);
@@ -105,18 +122,25 @@ describe('share links', () => {
       await limited.close();
     }
     // Off (RATE_LIMIT=off, as in this suite's app): never limited.
-    for (let i = 0; i < SHARE_REQUESTS_PER_MINUTE + 5; i++) expect((await t.anon().get('/api/share/no-such-token')).status).toBe(404);
+    for (let i = 0; i < SHARE_REQUESTS_PER_MINUTE + 5; i++)
+      expect((await t.anon().get('/api/share/no-such-token')).status).toBe(404);
   });
 });
 
 describe('line-list import', () => {
   const head = 'name,pressure,temperature,material';
-  const rows = (n: number, prefix: string) => Array.from({ length: n }, (_, i) => `${prefix}-${i},150,100,A106-B`).join('\n');
+  const rows = (n: number, prefix: string) =>
+    Array.from({ length: n }, (_, i) => `${prefix}-${i},150,100,A106-B`).join('\n');
 
   it(`refuses more than ${LINE_LIST_MAX_ROWS} rows at once, saying so, and writes nothing`, async () => {
     const lead = await t.signIn('lead');
     const before = (await lead.get('/api/spools?pageSize=1')).body.total;
-    let r: { status: number; body: { error: { message: string; details: { path: string; message: string }[] } } } | undefined;
+    let r:
+      | {
+          status: number;
+          body: { error: { message: string; details: { path: string; message: string }[] } };
+        }
+      | undefined;
     // 60,000 short rows (~800 kB, under the 1 MB upload limit).
     const huge = `name,pressure,temperature\n${Array.from({ length: 60_000 }, (_, i) => `H${i},150,100`).join('\n')}`;
     const delay = await loopHeldShare(async () => {
@@ -124,7 +148,10 @@ describe('line-list import', () => {
     });
     expect(r?.status).toBe(422);
     expect(r?.body.error.message).toContain('2,000');
-    expect(r?.body.error.details[0]).toMatchObject({ path: 'file', message: expect.stringContaining('2,000') });
+    expect(r?.body.error.details[0]).toMatchObject({
+      path: 'file',
+      message: expect.stringContaining('2,000'),
+    });
     expect((await lead.get('/api/spools?pageSize=1')).body.total).toBe(before);
     expect(delay).toBeLessThan(0.5);
   });

@@ -48,14 +48,32 @@ describe('pipe masses — ASME B36.10M plain-end weights', () => {
   });
   it('other materials scale by density (type 316 7.98 g/cm³, published product data)', () => {
     const base = { units: 'imperial', conditions: { pressure: 150, temperature: 100 } };
-    const cs = sheetOf(doc({ ...base, conditions: { ...base.conditions, material: 'A106-B' }, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40S', length: 120 }] }));
-    const ss = sheetOf(doc({ ...base, conditions: { ...base.conditions, material: 'A312-TP316' }, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40S', length: 120 }] }));
+    const cs = sheetOf(
+      doc({
+        ...base,
+        conditions: { ...base.conditions, material: 'A106-B' },
+        elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40S', length: 120 }],
+      }),
+    );
+    const ss = sheetOf(
+      doc({
+        ...base,
+        conditions: { ...base.conditions, material: 'A312-TP316' },
+        elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40S', length: 120 }],
+      }),
+    );
     expect(ss.elements[0]!.mass / cs.elements[0]!.mass).toBeCloseTo(7980 / 7850, 9);
     // 10 ft of NPS 4 Sch 40 carbon steel: 10 × 10.79 lb (B36.10M Table 1), to 0.25 %.
     expect(Math.abs(cs.totalMass - 107.9) / 107.9).toBeLessThan(0.0025);
   });
   it('water-filled mass adds the bore full of water (1000 kg/m³, common practice)', () => {
-    const s = sheetOf(doc({ units: 'metric', conditions: { pressure: 1, temperature: 20, material: 'A106-B' }, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 1000 }] }));
+    const s = sheetOf(
+      doc({
+        units: 'metric',
+        conditions: { pressure: 1, temperature: 20, material: 'A106-B' },
+        elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 1000 }],
+      }),
+    );
     const bore = 114.3 - 2 * 6.02; // mm, B36.10M NPS 4 Sch 40
     expect(s.filledMass - s.totalMass).toBeCloseTo((1000 * Math.PI * (bore / 1000) ** 2) / 4, 6);
   });
@@ -63,7 +81,12 @@ describe('pipe masses — ASME B36.10M plain-end weights', () => {
 
 // A spool drawn in the sketcher: east 100, north 50, up 30 in (intersection to intersection), NPS 2 Sch 40, 3D bends (R = 6 in).
 const drawn = (): SpoolDocument => {
-  const store = createSpoolStore({ units: 'imperial', conditions: { pressure: 300, temperature: 200, material: 'A106-B' }, defaultBendRadius: { multipleOfD: 3 }, elements: [] });
+  const store = createSpoolStore({
+    units: 'imperial',
+    conditions: { pressure: 300, temperature: 200, material: 'A106-B' },
+    defaultBendRadius: { multipleOfD: 3 },
+    elements: [],
+  });
   const s = store.getState();
   s.startRun({ nps: '2', schedule: '40' });
   s.addLeg('east', 100);
@@ -80,7 +103,8 @@ describe('cut list of drawn spools (bend tangent R·tan(θ/2), arc R·θ)', () =
     const straights = sheet.elements.filter((e) => e.kind === 'straight');
     expect(straights.map((e) => e.cutLength)).toEqual([94, 38, 24]); // 100 − 6, 50 − 2·6, 30 − 6
     const legs = legLengths(buildSpoolPath(d));
-    for (const e of straights) expect(e.tangentBefore + e.cutLength + e.tangentAfter).toBeCloseTo(legs.get(e.id)!, 9);
+    for (const e of straights)
+      expect(e.tangentBefore + e.cutLength + e.tangentAfter).toBeCloseTo(legs.get(e.id)!, 9);
     const bends = sheet.elements.filter((e) => e.bend);
     expect(bends).toHaveLength(2);
     for (const b of bends) {
@@ -103,7 +127,14 @@ describe('cut list of drawn spools (bend tangent R·tan(θ/2), arc R·θ)', () =
       shop: { bendTangent: 8 },
       elements: [
         { id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 30, endType: 'threaded' },
-        { id: 'B1', kind: 'bend', nps: '4', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 45 },
+        {
+          id: 'B1',
+          kind: 'bend',
+          nps: '4',
+          schedule: '40',
+          bendRadius: { multipleOfD: 3 },
+          angle: 45,
+        },
         { id: 'S2', kind: 'straight', nps: '4', schedule: '40', length: 20 },
       ],
     });
@@ -130,10 +161,22 @@ describe('bend list follows the engine', () => {
   // NPS 4 Sch 40, 3D bend, 1000 psi, A106 B at 100 °F, c = 1/16 in: passes, but the wall before bending needs a heavier schedule.
   const d = doc({
     units: 'imperial',
-    conditions: { pressure: 1000, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 },
+    conditions: {
+      pressure: 1000,
+      temperature: 100,
+      material: 'A106-B',
+      corrosionAllowance: 0.0625,
+    },
     elements: [
       { id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 24 },
-      { id: 'B1', kind: 'bend', nps: '4', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90 },
+      {
+        id: 'B1',
+        kind: 'bend',
+        nps: '4',
+        schedule: '40',
+        bendRadius: { multipleOfD: 3 },
+        angle: 90,
+      },
     ],
   });
   const check = checkSpool(d);
@@ -151,7 +194,10 @@ describe('bend list follows the engine', () => {
   });
   it('table factor and geometric estimate, the larger governs (B31.1 Table 102.4.5: 3D → 1.25)', () => {
     expect(b.bend!.tableFactor).toBeCloseTo(1.25, 9);
-    expect(b.bend!.wallBeforeBending).toBeCloseTo(Math.max(pb.geometricWall, pb.tableWall ?? 0), 12);
+    expect(b.bend!.wallBeforeBending).toBeCloseTo(
+      Math.max(pb.geometricWall, pb.tableWall ?? 0),
+      12,
+    );
     expect(b.bend!.radiusOverD).toBeCloseTo(12 / 4.5, 12);
     expect(b.bend!.radiusOverNps).toBeCloseTo(3, 12);
     expect(b.bend!.flattening).toContain('332.2.1');
@@ -168,18 +214,64 @@ describe('bend list follows the engine', () => {
       ['4', '40', 'A106-B', 1],
       ['4', pb.orderSchedule, 'A106-B', 1],
     ]);
-    expect(sheet.bom.reduce((s, l) => s + l.mass, 0)).toBeCloseTo(sheet.elements.reduce((s, e) => s + e.mass, 0), 9);
+    expect(sheet.bom.reduce((s, l) => s + l.mass, 0)).toBeCloseTo(
+      sheet.elements.reduce((s, e) => s + e.mass, 0),
+      9,
+    );
   });
   it('JSON has the documented shape', () => {
     const j = toShopJson(sheet);
-    expect(Object.keys(j)).toEqual(['units', 'elements', 'bom', 'welds', 'developedLength', 'totalMass', 'filledMass', 'hydrotest', 'caution']);
-    expect(Object.keys(j.elements[1]!)).toEqual(['id', 'kind', 'nps', 'schedule', 'orderSchedule', 'orderWall', 'cutLength', 'mass', 'bend']);
-    expect(Object.keys(j.elements[1]!.bend!)).toEqual(['angle', 'radius', 'radiusOverD', 'tableFactor', 'wallBeforeBending', 'extradosWallAfter', 'intradosWallAfter', 'arcLength', 'tangent']);
+    expect(Object.keys(j)).toEqual([
+      'units',
+      'elements',
+      'bom',
+      'welds',
+      'developedLength',
+      'totalMass',
+      'filledMass',
+      'hydrotest',
+      'caution',
+    ]);
+    expect(Object.keys(j.elements[1]!)).toEqual([
+      'id',
+      'kind',
+      'nps',
+      'schedule',
+      'orderSchedule',
+      'orderWall',
+      'cutLength',
+      'mass',
+      'bend',
+    ]);
+    expect(Object.keys(j.elements[1]!.bend!)).toEqual([
+      'angle',
+      'radius',
+      'radiusOverD',
+      'tableFactor',
+      'wallBeforeBending',
+      'extradosWallAfter',
+      'intradosWallAfter',
+      'arcLength',
+      'tangent',
+    ]);
     expect(Object.keys(j.bom[0]!)).toEqual(['nps', 'schedule', 'material', 'length', 'mass']);
-    expect(Object.keys(j.hydrotest!)).toEqual(['pressure', 'ratio', 'limitedBy', 'governing', 'equation']);
+    expect(Object.keys(j.hydrotest!)).toEqual([
+      'pressure',
+      'ratio',
+      'limitedBy',
+      'governing',
+      'equation',
+    ]);
   });
   it('leaves out uncheckable elements and says so', () => {
-    const bad = doc({ units: 'imperial', conditions: { pressure: 100, temperature: 100, material: 'A106-B' }, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 10 }, { id: 'S2', kind: 'straight', nps: '4', schedule: '999', length: 10 }] });
+    const bad = doc({
+      units: 'imperial',
+      conditions: { pressure: 100, temperature: 100, material: 'A106-B' },
+      elements: [
+        { id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 10 },
+        { id: 'S2', kind: 'straight', nps: '4', schedule: '999', length: 10 },
+      ],
+    });
     const s = sheetOf(bad);
     expect(s.elements.map((e) => e.id)).toEqual(['S1']);
     expect(s.skipped[0]).toMatchObject({ id: 'S2' });
@@ -188,9 +280,14 @@ describe('bend list follows the engine', () => {
 });
 
 describe('hydrotest — B31.3 para. 345.4.2', () => {
-  const spool = (conditions: Record<string, unknown>, elements: unknown[], shop?: unknown) => doc({ units: 'imperial', conditions, elements, ...(shop ? { shop } : {}) });
+  const spool = (conditions: Record<string, unknown>, elements: unknown[], shop?: unknown) =>
+    doc({ units: 'imperial', conditions, elements, ...(shop ? { shop } : {}) });
   it('worked example: A106 B at 500 °F, ST/S = 20.0/18.9 → PT = 1.587·P (B31.3 Table A-1 values, para. 345.4.2)', () => {
-    const s = sheetOf(spool({ pressure: 100, temperature: 500, material: 'A106-B' }, [{ id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 24 }]));
+    const s = sheetOf(
+      spool({ pressure: 100, temperature: 500, material: 'A106-B' }, [
+        { id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 24 },
+      ]),
+    );
     const h = s.hydrotest!;
     expect(h.ratio).toBeCloseTo(20.0 / 18.9, 9);
     expect(h.pressure / 100).toBeCloseTo(1.587, 3);
@@ -203,7 +300,14 @@ describe('hydrotest — B31.3 para. 345.4.2', () => {
   it('the lowest ratio governs across materials (A312 TP316 at 500 °F 18.0 ksi, from memory)', () => {
     const s = sheetOf(
       spool({ pressure: 100, temperature: 500, material: 'A106-B' }, [
-        { id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 24, conditions: { material: 'A312-TP316' } },
+        {
+          id: 'S1',
+          kind: 'straight',
+          nps: '4',
+          schedule: '80',
+          length: 24,
+          conditions: { material: 'A312-TP316' },
+        },
         { id: 'S2', kind: 'straight', nps: '4', schedule: '80', length: 24 },
       ]),
     );
@@ -211,7 +315,11 @@ describe('hydrotest — B31.3 para. 345.4.2', () => {
     expect(s.hydrotest!.ratio).toBeCloseTo(20.0 / 18.9, 9);
   });
   it('ST/S is capped at 6.5 (para. 345.4.2(b)); A106 B at 1000 °F: S = 2.5 ksi, from memory', () => {
-    const s = sheetOf(spool({ pressure: 10, temperature: 1000, material: 'A106-B' }, [{ id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 24 }]));
+    const s = sheetOf(
+      spool({ pressure: 10, temperature: 1000, material: 'A106-B' }, [
+        { id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 24 },
+      ]),
+    );
     expect(s.hydrotest!.ratio).toBe(6.5);
     expect(s.hydrotest!.pressure).toBeCloseTo(1.5 * 10 * 6.5, 9);
     expect(s.hydrotest!.notes.join(' ')).toContain('6.5');
@@ -235,10 +343,22 @@ describe('hydrotest — B31.3 para. 345.4.2', () => {
     expect(h.equation).toContain('345.4.2(c)');
   });
   it('test temperature is a spool setting (°C in metric documents, default 21 °C)', () => {
-    const m = sheetOf(doc({ units: 'metric', conditions: { pressure: 1, temperature: 260, material: 'A106-B' }, elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 600 }] }));
+    const m = sheetOf(
+      doc({
+        units: 'metric',
+        conditions: { pressure: 1, temperature: 260, material: 'A106-B' },
+        elements: [{ id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 600 }],
+      }),
+    );
     expect(m.hydrotest!.testTemperature).toBe(21);
     expect(m.hydrotest!.ratio).toBeCloseTo(20.0 / 18.9, 9); // 260 °C = 500 °F
-    const hot = sheetOf(spool({ pressure: 100, temperature: 500, material: 'A106-B' }, [{ id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 24 }], { testTemperature: 500 }));
+    const hot = sheetOf(
+      spool(
+        { pressure: 100, temperature: 500, material: 'A106-B' },
+        [{ id: 'S1', kind: 'straight', nps: '4', schedule: '80', length: 24 }],
+        { testTemperature: 500 },
+      ),
+    );
     expect(hot.hydrotest!.ratio).toBeCloseTo(1, 12);
   });
 });

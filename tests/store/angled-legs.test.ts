@@ -79,7 +79,13 @@ describe('angled legs', () => {
   it('draws a rolled offset: 45° from east toward north rolled 30° toward up is one 45° bend each way', () => {
     const store = fresh();
     const s = store.getState();
-    const rolled = heading({ from: 'east', toward: 'north', angle: 45, rollToward: 'up', roll: 30 });
+    const rolled = heading({
+      from: 'east',
+      toward: 'north',
+      angle: 45,
+      rollToward: 'up',
+      roll: 30,
+    });
     // cos45·E + sin45·(cos30·N + sin30·Up)
     expect(rolled.east).toBeCloseTo(Math.SQRT1_2, 9);
     expect(rolled.north).toBeCloseTo(Math.SQRT1_2 * Math.cos(Math.PI / 6), 9);
@@ -89,7 +95,10 @@ describe('angled legs', () => {
     expect(s.addLeg('east', 80)).toEqual({ ok: true });
     const bends = store.getState().doc.elements.filter(isBend);
     expect(bends.map((b) => b.angle)).toEqual([45, 45]);
-    expect(store.getState().doc.elements.filter(isStraight)[1]!.length).toBeCloseTo(60 - 2 * T45, 5);
+    expect(store.getState().doc.elements.filter(isStraight)[1]!.length).toBeCloseTo(
+      60 - 2 * T45,
+      5,
+    );
   });
 
   it('rolls a leg up from east by 30°: a 30° bend with R·tan(15°) tangents', () => {
@@ -111,7 +120,12 @@ describe('angled legs', () => {
     s.addLeg('north', 50); // NE → N: 45°
     s.addLeg(heading({ from: 'north', toward: 'west', angle: 45 }), 50); // N → NW: 45°
     s.addLeg(heading({ from: 'south', toward: 'west', angle: 45 }), 50); // NW → SW: 90°
-    expect(store.getState().doc.elements.filter(isBend).map((b) => b.angle)).toEqual([45, 45, 90]);
+    expect(
+      store
+        .getState()
+        .doc.elements.filter(isBend)
+        .map((b) => b.angle),
+    ).toEqual([45, 45, 90]);
   });
 
   it('merges a leg drawn the same way as the last one (no bend)', () => {
@@ -130,11 +144,17 @@ describe('angled legs', () => {
     s.addLeg(NE45(), 50);
     const before = store.getState().doc;
     const sw = heading({ from: 'west', toward: 'south', angle: 45 });
-    expect(s.addLeg(sw, 50)).toEqual({ ok: false, message: 'a leg cannot double back on the previous one' });
+    expect(s.addLeg(sw, 50)).toEqual({
+      ok: false,
+      message: 'a leg cannot double back on the previous one',
+    });
     // A 90° turn (NE → SE) needs R·tan(45°) = 6 in from the new leg.
     const r = s.addLeg(heading({ from: 'east', toward: 'south', angle: 45 }), 5);
     expect(r.ok).toBe(false);
-    if (!r.ok) expect(r.message).toMatch(/this leg \(5 in\) is too short for its bend: it must be longer than 6 in/);
+    if (!r.ok)
+      expect(r.message).toMatch(
+        /this leg \(5 in\) is too short for its bend: it must be longer than 6 in/,
+      );
     expect(store.getState().doc).toBe(before);
     // Between two 45° bends a leg needs more than 2 × 2.485 = 4.971 in.
     const store2 = fresh();
@@ -142,7 +162,10 @@ describe('angled legs', () => {
     store2.getState().addLeg(NE45(), 4.5);
     const r2 = store2.getState().addLeg('east', 50);
     expect(r2.ok).toBe(false);
-    if (!r2.ok) expect(r2.message).toMatch(/is too short for the bends at its ends: it must be longer than 4\.971 in/);
+    if (!r2.ok)
+      expect(r2.message).toMatch(
+        /is too short for the bends at its ends: it must be longer than 4\.971 in/,
+      );
   });
 
   it('refuses a heading of zero length, naming the field', () => {
@@ -157,7 +180,9 @@ describe('angled legs', () => {
     const s = store.getState();
     s.addLeg('east', 100);
     s.addLeg('north', 60);
-    expect(s.insertLegAfter('S1', heading({ from: 'east', toward: 'down', angle: 45 }), 30)).toEqual({ ok: true });
+    expect(
+      s.insertLegAfter('S1', heading({ from: 'east', toward: 'down', angle: 45 }), 30),
+    ).toEqual({ ok: true });
     const bends = store.getState().doc.elements.filter(isBend);
     // east → 45° down → north: 45°, then between the down-east leg and north: 90°.
     expect(bends.map((b) => b.angle)).toEqual([45, 90]);
@@ -170,15 +195,46 @@ describe('angled legs', () => {
     s.addLeg('north', 60);
     expect(s.updateElement('S2', { heading: NE45() })).toEqual({ ok: true });
     expect(store.getState().doc.elements.filter(isBend)[0]!.angle).toBe(45);
-    expect(s.updateElement('S2', { heading: { east: Number.NaN, north: 1, up: 0 } }).ok).toBe(false);
+    expect(s.updateElement('S2', { heading: { east: Number.NaN, north: 1, up: 0 } }).ok).toBe(
+      false,
+    );
   });
 
   it('loads old documents (axis directions only) and documents with headings', () => {
-    const old = { ...doc(), elements: [{ kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 10, direction: 'east' }] };
+    const old = {
+      ...doc(),
+      elements: [
+        { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 10, direction: 'east' },
+      ],
+    };
     expect(parseSpoolDocument(old).ok).toBe(true);
-    const withHeading = { ...doc(), elements: [{ kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 10, heading: { east: 1, north: 1, up: 0 } }] };
+    const withHeading = {
+      ...doc(),
+      elements: [
+        {
+          kind: 'straight',
+          id: 'S1',
+          nps: '2',
+          schedule: '40',
+          length: 10,
+          heading: { east: 1, north: 1, up: 0 },
+        },
+      ],
+    };
     expect(parseSpoolDocument(withHeading).ok).toBe(true);
-    const bad = { ...doc(), elements: [{ kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 10, heading: { east: 0, north: 0, up: 0 } }] };
+    const bad = {
+      ...doc(),
+      elements: [
+        {
+          kind: 'straight',
+          id: 'S1',
+          nps: '2',
+          schedule: '40',
+          length: 10,
+          heading: { east: 0, north: 0, up: 0 },
+        },
+      ],
+    };
     const r = parseSpoolDocument(bad);
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.issues[0]!.path).toBe('elements[0].heading');
@@ -197,11 +253,20 @@ describe('editing a bend angle', () => {
     const bends = els.filter(isBend);
     // east → (45° toward north) → east: a 45° offset, both bends 45°.
     expect(bends.map((b) => b.angle)).toEqual([45, 45]);
-    expect(els.filter(isStraight)[1]!.heading).toEqual({ east: 0.707106781187, north: 0.707106781187, up: 0 });
+    expect(els.filter(isStraight)[1]!.heading).toEqual({
+      east: 0.707106781187,
+      north: 0.707106781187,
+      up: 0,
+    });
     // Leg lengths stay: the offset leg is still 50 in, so its cut is 50 − 2·R·tan(22.5°).
     expect(els.filter(isStraight)[1]!.length).toBeCloseTo(50 - 2 * T45, 5);
     s.undo();
-    expect(store.getState().doc.elements.filter(isBend).map((b) => b.angle)).toEqual([90, 90]);
+    expect(
+      store
+        .getState()
+        .doc.elements.filter(isBend)
+        .map((b) => b.angle),
+    ).toEqual([90, 90]);
   });
 
   it('refuses 180°, zero and an angle on a straight, naming the field', () => {
@@ -209,9 +274,18 @@ describe('editing a bend angle', () => {
     const s = store.getState();
     s.addLeg('east', 100);
     s.addLeg('north', 50);
-    expect(s.updateElement('B1', { angle: 180 })).toMatchObject({ ok: false, message: expect.stringMatching(/^angle: must be less than 180/) });
-    expect(s.updateElement('B1', { angle: 0 })).toMatchObject({ ok: false, message: 'angle: must be greater than zero' });
-    expect(s.updateElement('S1', { angle: 30 })).toMatchObject({ ok: false, message: 'angle: a straight has no bend angle' });
+    expect(s.updateElement('B1', { angle: 180 })).toMatchObject({
+      ok: false,
+      message: expect.stringMatching(/^angle: must be less than 180/),
+    });
+    expect(s.updateElement('B1', { angle: 0 })).toMatchObject({
+      ok: false,
+      message: 'angle: must be greater than zero',
+    });
+    expect(s.updateElement('S1', { angle: 30 })).toMatchObject({
+      ok: false,
+      message: 'angle: a straight has no bend angle',
+    });
   });
 });
 

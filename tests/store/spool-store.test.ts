@@ -530,7 +530,9 @@ describe('replacing the document (import)', () => {
     const imported: SpoolDocument = {
       units: 'metric',
       conditions: { pressure: 1, temperature: 20, material: 'A312-TP316L' },
-      elements: [{ id: 'S7', kind: 'straight', nps: '2', schedule: '10S', length: 500, direction: 'north' }],
+      elements: [
+        { id: 'S7', kind: 'straight', nps: '2', schedule: '10S', length: 500, direction: 'north' },
+      ],
     };
     store.getState().replaceDocument(imported);
     expect(store.getState().doc).toBe(imported);
@@ -543,6 +545,8 @@ describe('replacing the document (import)', () => {
     expect(store.getState().doc).toBe(imported);
     // New ids continue past the imported ones.
     store.getState().addLeg('east', 1000);
-    expect(new Set(store.getState().doc.elements.map((e) => e.id)).size).toBe(store.getState().doc.elements.length);
+    expect(new Set(store.getState().doc.elements.map((e) => e.id)).size).toBe(
+      store.getState().doc.elements.length,
+    );
   });
 });

@@ -32,12 +32,28 @@ export function mockApi(role: string, handlers: Record<string, Handler>): SeenCa
       };
       calls.push(call);
       if (url.pathname === '/api/me') {
-        return new Response(JSON.stringify({ user: { id: 'u-admin', email: 'admin@t.test', name: 'Ada Admin' }, team: { id: 't', name: 'Test Team' }, role, permissions: [] }), { status: 200 });
+        return new Response(
+          JSON.stringify({
+            user: { id: 'u-admin', email: 'admin@t.test', name: 'Ada Admin' },
+            team: { id: 't', name: 'Test Team' },
+            role,
+            permissions: [],
+          }),
+          { status: 200 },
+        );
       }
       const h = handlers[`${call.method} ${url.pathname}`];
       const out = h?.(call);
-      if (!out) return new Response(JSON.stringify({ error: { code: 'not_found', message: `no route ${call.method} ${url.pathname}` } }), { status: 404 });
-      return new Response(out.body === undefined ? '' : JSON.stringify(out.body), { status: out.status ?? 200 });
+      if (!out)
+        return new Response(
+          JSON.stringify({
+            error: { code: 'not_found', message: `no route ${call.method} ${url.pathname}` },
+          }),
+          { status: 404 },
+        );
+      return new Response(out.body === undefined ? '' : JSON.stringify(out.body), {
+        status: out.status ?? 200,
+      });
     }),
   );
   return calls;
@@ -56,4 +72,5 @@ export function renderAt(ui: ReactNode, path: string, routePath = path.split('?'
   );
 }
 
-export const csvFile = (text: string, name = 'upload.csv') => new File([text], name, { type: 'text/csv' });
+export const csvFile = (text: string, name = 'upload.csv') =>
+  new File([text], name, { type: 'text/csv' });

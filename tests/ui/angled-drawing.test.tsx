@@ -21,7 +21,9 @@ describe('angled legs in the drawing bar', () => {
     renderWithStore(<DrawingBar canEdit />, store);
     await user.click(screen.getByRole('button', { name: 'Angled…' }));
     const group = screen.getByRole('group', { name: 'Angled leg' });
-    expect(within(group).getByTestId('angled-preview').textContent).toBe("45° from east toward north · bend at the run's end 45°");
+    expect(within(group).getByTestId('angled-preview').textContent).toBe(
+      "45° from east toward north · bend at the run's end 45°",
+    );
     const length = screen.getByLabelText('Leg length');
     await user.clear(length);
     await user.type(length, '24');
@@ -30,9 +32,14 @@ describe('angled legs in the drawing bar', () => {
     const bend = els.filter(isBend).at(-1)!;
     expect(bend.angle).toBe(45);
     const leg = els.at(-1)!;
-    expect(leg).toMatchObject({ kind: 'straight', heading: { east: 0.707106781187, north: 0.707106781187, up: 0 } });
+    expect(leg).toMatchObject({
+      kind: 'straight',
+      heading: { east: 0.707106781187, north: 0.707106781187, up: 0 },
+    });
     expect(isStraight(leg) && leg.length).toBeCloseTo(24 - T45, 5);
-    expect(screen.getByTestId('edit-notice').textContent).toContain('leg 45° from east toward north');
+    expect(screen.getByTestId('edit-notice').textContent).toContain(
+      'leg 45° from east toward north',
+    );
   });
 
   it('rolls a leg up from east by 30°: a 30° bend', async () => {
@@ -58,7 +65,9 @@ describe('angled legs in the drawing bar', () => {
     const roll = screen.getByLabelText('Angled leg roll');
     await user.clear(roll);
     await user.type(roll, '30');
-    expect(screen.getByTestId('angled-preview').textContent).toBe("45° from east toward north, rolled 30° toward up · bend at the run's end 45°");
+    expect(screen.getByTestId('angled-preview').textContent).toBe(
+      "45° from east toward north, rolled 30° toward up · bend at the run's end 45°",
+    );
     await user.click(screen.getByRole('button', { name: 'Draw angled leg' }));
     const leg = store.getState().doc.elements.at(-1)!;
     // cos45·E + sin45·(cos30·N + sin30·Up)
@@ -76,12 +85,16 @@ describe('angled legs in the drawing bar', () => {
     await user.click(screen.getByRole('button', { name: 'Angled…' }));
     await user.selectOptions(screen.getByLabelText('Angled leg toward'), 'west');
     const errors = await screen.findByTestId('angled-errors');
-    expect(errors.textContent).toContain('Toward must be perpendicular to east: choose north, south, up or down');
+    expect(errors.textContent).toContain(
+      'Toward must be perpendicular to east: choose north, south, up or down',
+    );
     await user.selectOptions(screen.getByLabelText('Angled leg toward'), 'north');
     const angle = screen.getByLabelText('Angled leg angle');
     await user.clear(angle);
     await user.type(angle, '180');
-    expect(screen.getByTestId('angled-errors').textContent).toContain('Angle must be more than 0° and less than 180°');
+    expect(screen.getByTestId('angled-errors').textContent).toContain(
+      'Angle must be more than 0° and less than 180°',
+    );
     await user.click(screen.getByRole('button', { name: 'Draw angled leg' }));
     expect(screen.getByTestId('edit-notice').textContent).toContain('Angle must be more than 0°');
     await user.clear(angle);
@@ -92,12 +105,18 @@ describe('angled legs in the drawing bar', () => {
     const roll = screen.getByLabelText('Angled leg roll');
     await user.clear(roll);
     await user.type(roll, '20');
-    expect(screen.getByTestId('angled-errors').textContent).toContain('Roll toward must be chosen for a roll above 0°');
+    expect(screen.getByTestId('angled-errors').textContent).toContain(
+      'Roll toward must be chosen for a roll above 0°',
+    );
     await user.selectOptions(screen.getByLabelText('Angled leg roll toward'), 'east');
-    expect(screen.getByTestId('angled-errors').textContent).toContain('Roll toward must be perpendicular to east and north: choose up or down');
+    expect(screen.getByTestId('angled-errors').textContent).toContain(
+      'Roll toward must be perpendicular to east and north: choose up or down',
+    );
     await user.clear(roll);
     await user.type(roll, '95');
-    expect(screen.getByTestId('angled-errors').textContent).toContain('Roll must be from 0° to 90°');
+    expect(screen.getByTestId('angled-errors').textContent).toContain(
+      'Roll must be from 0° to 90°',
+    );
     expect(store.getState().doc).toBe(before);
   });
 
@@ -110,7 +129,9 @@ describe('angled legs in the drawing bar', () => {
     await user.clear(length);
     await user.type(length, '1');
     await user.click(screen.getByRole('button', { name: 'Draw angled leg' }));
-    expect(screen.getByRole('alert').textContent).toMatch(/this leg \(1 in\) is too short for its bend: it must be longer than 1\.243 in/);
+    expect(screen.getByRole('alert').textContent).toMatch(
+      /this leg \(1 in\) is too short for its bend: it must be longer than 1\.243 in/,
+    );
   });
 });
 

@@ -10,8 +10,25 @@ afterEach(cleanup);
 // What the inspector's wall check shows of the engine's results (values come from the engine's own tests).
 const doc: SpoolDocument = {
   units: 'imperial',
-  conditions: { pressure: 2800, temperature: 100, material: 'A106-B', allowableStress: 20000, externalPressure: 14.7, elasticModulus: 29e6, yieldStrength: 35000 },
-  elements: [{ id: 'S1', kind: 'straight', nps: '2', schedule: '10', length: 40, conditions: { material: 'A312-TP316L' } }],
+  conditions: {
+    pressure: 2800,
+    temperature: 100,
+    material: 'A106-B',
+    allowableStress: 20000,
+    externalPressure: 14.7,
+    elasticModulus: 29e6,
+    yieldStrength: 35000,
+  },
+  elements: [
+    {
+      id: 'S1',
+      kind: 'straight',
+      nps: '2',
+      schedule: '10',
+      length: 40,
+      conditions: { material: 'A312-TP316L' },
+    },
+  ],
 };
 
 describe('check report: engine fields', () => {
@@ -30,7 +47,9 @@ describe('check report: engine fields', () => {
     expect(ext.allowablePressure).toBe(Math.min(ext.allowableUg28!, ext.allowableVIII2!));
   });
   it('shows the material-vs-spool-stress warning', () => {
-    const { container } = render(<CheckReport check={checkSpool(doc).elements[0]!} schedule="10" />);
+    const { container } = render(
+      <CheckReport check={checkSpool(doc).elements[0]!} schedule="10" />,
+    );
     const li = container.querySelector('[data-code="material-vs-spool-stress"]');
     expect(li?.textContent).toContain('A312-TP316L');
     expect(li?.className).toContain('amber');

@@ -8,7 +8,12 @@ import { DisplayUnitsProvider } from '@/features/sketch/components/display-units
 
 afterEach(cleanup);
 
-const conditions: Conditions = { pressure: 150, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 };
+const conditions: Conditions = {
+  pressure: 150,
+  temperature: 100,
+  material: 'A106-B',
+  corrosionAllowance: 0.0625,
+};
 
 function renderForm(display: 'imperial' | 'metric' = 'imperial') {
   const onApply = vi.fn();
@@ -26,7 +31,9 @@ describe('design conditions form', () => {
     const onApply = renderForm();
     // the material rule is checked once the fields themselves are valid
     await user.selectOptions(screen.getByLabelText('Material'), '');
-    expect(await screen.findByText('Material must be chosen (or give an allowable stress S)')).toBeTruthy();
+    expect(
+      await screen.findByText('Material must be chosen (or give an allowable stress S)'),
+    ).toBeTruthy();
 
     const pressure = screen.getByLabelText(/Internal design pressure/);
     await user.clear(pressure);
@@ -40,7 +47,9 @@ describe('design conditions form', () => {
 
     const tolerance = screen.getByLabelText(/Mill under-tolerance/);
     await user.type(tolerance, '12.5');
-    expect(await screen.findByText('Mill under-tolerance must be less than 1 (a fraction, e.g. 0.125)')).toBeTruthy();
+    expect(
+      await screen.findByText('Mill under-tolerance must be less than 1 (a fraction, e.g. 0.125)'),
+    ).toBeTruthy();
 
     await user.click(screen.getByRole('button', { name: 'Apply conditions' }));
     expect(onApply).not.toHaveBeenCalled();
@@ -69,11 +78,21 @@ describe('design conditions form', () => {
 
 describe('material picker', () => {
   it('lists team materials first and keeps an unknown stored material as an option', async () => {
-    const { MaterialChoicesProvider } = await import('@/features/sketch/components/material-choices');
+    const { MaterialChoicesProvider } = await import(
+      '@/features/sketch/components/material-choices'
+    );
     render(
       <DisplayUnitsProvider doc="imperial" display="imperial">
-        <MaterialChoicesProvider choices={[{ id: 'TEAM-1', label: 'Team spec 1 — test (team)', team: true }, { id: 'A106-B', label: 'ASTM A106 B', team: false }]}>
-          <ConditionsForm conditions={{ ...conditions, material: 'OLD-9' }} onApply={() => undefined} />
+        <MaterialChoicesProvider
+          choices={[
+            { id: 'TEAM-1', label: 'Team spec 1 — test (team)', team: true },
+            { id: 'A106-B', label: 'ASTM A106 B', team: false },
+          ]}
+        >
+          <ConditionsForm
+            conditions={{ ...conditions, material: 'OLD-9' }}
+            onApply={() => undefined}
+          />
         </MaterialChoicesProvider>
       </DisplayUnitsProvider>,
     );

@@ -7,7 +7,11 @@ import { drawnStore, renderWithStore } from './helpers';
 
 afterEach(cleanup);
 
-const ids = (store: ReturnType<typeof drawnStore>) => store.getState().doc.elements.map((e) => e.id).join(',');
+const ids = (store: ReturnType<typeof drawnStore>) =>
+  store
+    .getState()
+    .doc.elements.map((e) => e.id)
+    .join(',');
 
 describe('drawing bar', () => {
   it('draws legs by button and by key, converting a metric length to the document units', async () => {

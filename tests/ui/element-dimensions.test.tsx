@@ -9,7 +9,8 @@ import { drawnStore, renderWithStore } from './helpers';
 
 afterEach(cleanup);
 
-const el = (store: ReturnType<typeof drawnStore>, id: string) => store.getState().doc.elements.find((e) => e.id === id)!;
+const el = (store: ReturnType<typeof drawnStore>, id: string) =>
+  store.getState().doc.elements.find((e) => e.id === id)!;
 
 describe('explicit dimensions in the element form', () => {
   it('edits OD and nominal wall in metric display of an imperial spool, stored in inches', async () => {
@@ -29,7 +30,9 @@ describe('explicit dimensions in the element form', () => {
     expect(el(store, 'S1').outsideDiameter).toBeCloseTo(60.3 / 25.4, 9); // 2.374016 in
     expect(store.getState().past).toHaveLength(1);
     // The form shows the stored values back in mm.
-    await waitFor(() => expect((screen.getByLabelText(/^Nominal wall T/) as HTMLInputElement).value).toBe('5.54'));
+    await waitFor(() =>
+      expect((screen.getByLabelText(/^Nominal wall T/) as HTMLInputElement).value).toBe('5.54'),
+    );
     // The check uses the explicit wall: D from the element, T = 0.218110 in.
     const inputs = screen.getByTestId('inputs-table').textContent ?? '';
     expect(inputs).toContain('element nominalWall');
@@ -48,11 +51,15 @@ describe('explicit dimensions in the element form', () => {
     await user.clear(od);
     await user.type(od, '60.3');
     await user.type(wall, '40');
-    expect(await screen.findByText('Nominal wall T must be less than half the outside diameter (30.15)')).toBeTruthy();
+    expect(
+      await screen.findByText('Nominal wall T must be less than half the outside diameter (30.15)'),
+    ).toBeTruthy();
     await user.clear(wall);
     await user.type(wall, '5.54');
     await user.type(id, '50');
-    expect(await screen.findByText('Inside diameter d must equal D − 2T = 49.22, or be left empty')).toBeTruthy();
+    expect(
+      await screen.findByText('Inside diameter d must equal D − 2T = 49.22, or be left empty'),
+    ).toBeTruthy();
     await user.clear(id);
     await user.selectOptions(screen.getByLabelText('NPS'), '');
     await user.clear(od);
@@ -96,7 +103,10 @@ describe('equation trail in display units', () => {
     const store = drawnStore(150);
     store.getState().select('S1');
     renderWithStore(<ElementInspector />, store, 'imperial');
-    const eq3a = screen.getAllByTestId('trail-step').map((s) => s.textContent ?? '').find((s) => s.includes('Eq. (3a)'))!;
+    const eq3a = screen
+      .getAllByTestId('trail-step')
+      .map((s) => s.textContent ?? '')
+      .find((s) => s.includes('Eq. (3a)'))!;
     expect(eq3a).toContain('2.375');
     expect(eq3a).toMatch(/ in$/);
   });

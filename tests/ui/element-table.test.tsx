@@ -20,9 +20,21 @@ describe('element list', () => {
     const user = userEvent.setup();
     const doc = drawnStore(1100).getState().doc;
     const onSelect = vi.fn();
-    render(<ElementTable elements={doc.elements} checks={checkSpool(doc).elements} selectedId="B2" onSelect={onSelect} />);
+    render(
+      <ElementTable
+        elements={doc.elements}
+        checks={checkSpool(doc).elements}
+        selectedId="B2"
+        onSelect={onSelect}
+      />,
+    );
     expect(idsInOrder()).toEqual(['S1', 'B1', 'S2', 'B2', 'S3', 'B3', 'S4']);
-    expect(screen.getByTestId('element-table').querySelector('[aria-selected="true"]')?.getAttribute('data-element-id')).toBe('B2');
+    expect(
+      screen
+        .getByTestId('element-table')
+        .querySelector('[aria-selected="true"]')
+        ?.getAttribute('data-element-id'),
+    ).toBe('B2');
 
     await user.selectOptions(screen.getByLabelText('Filter elements by check'), 'fail');
     expect(idsInOrder()).toEqual(['B1', 'B2', 'B3']);
@@ -37,9 +49,27 @@ describe('element list', () => {
   });
 
   it('renders only the rows in view for a long spool', () => {
-    const elements: SpoolElement[] = Array.from({ length: 1000 }, (_, i) => ({ kind: 'straight', id: `S${i + 1}`, nps: '2', schedule: '40', length: 10, direction: 'east' }));
-    const doc: SpoolDocument = { units: 'imperial', conditions: { pressure: 150, temperature: 100, material: 'A106-B' }, elements };
-    render(<ElementTable elements={doc.elements} checks={checkSpool(doc).elements} selectedId={null} onSelect={() => undefined} />);
+    const elements: SpoolElement[] = Array.from({ length: 1000 }, (_, i) => ({
+      kind: 'straight',
+      id: `S${i + 1}`,
+      nps: '2',
+      schedule: '40',
+      length: 10,
+      direction: 'east',
+    }));
+    const doc: SpoolDocument = {
+      units: 'imperial',
+      conditions: { pressure: 150, temperature: 100, material: 'A106-B' },
+      elements,
+    };
+    render(
+      <ElementTable
+        elements={doc.elements}
+        checks={checkSpool(doc).elements}
+        selectedId={null}
+        onSelect={() => undefined}
+      />,
+    );
     expect(screen.getByTestId('element-count').textContent).toBe('1000 of 1000');
     expect(idsInOrder().length).toBeLessThan(100);
     expect(idsInOrder()[0]).toBe('S1');

@@ -20,11 +20,30 @@ const document = {
   shop: { bendTangent: 4 },
   elements: [
     { id: 'S1', kind: 'straight', nps: '4', schedule: '40', length: 48, direction: 'east' },
-    { id: 'B1', kind: 'bend', nps: '4', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90, direction: 'north' },
+    {
+      id: 'B1',
+      kind: 'bend',
+      nps: '4',
+      schedule: '40',
+      bendRadius: { multipleOfD: 3 },
+      angle: 90,
+      direction: 'north',
+    },
     { id: '=S2', kind: 'straight', nps: '4', schedule: '40', length: 36 },
   ],
 };
-const spool = { id: 's1', name: 'Shop =test', line: 'L-1', status: 'released', revision: 2, version: 5, worst: null, summary: null, updatedAt: '2026-01-02T10:00:00.000Z', document };
+const spool = {
+  id: 's1',
+  name: 'Shop =test',
+  line: 'L-1',
+  status: 'released',
+  revision: 2,
+  version: 5,
+  worst: null,
+  summary: null,
+  updatedAt: '2026-01-02T10:00:00.000Z',
+  document,
+};
 
 let role = 'fabricator';
 const downloads: { name: string; blob: Blob }[] = [];
@@ -35,16 +54,46 @@ beforeEach(() => {
     'fetch',
     vi.fn(async (input: string) => {
       const url = new URL(input, 'http://test.local');
-      if (url.pathname === '/api/me') return new Response(JSON.stringify({ user: { id: 'u1', email: 'f@b.test', name: 'F' }, team: { id: 't', name: 'T' }, role, permissions: [] }), { status: 200 });
-      if (url.pathname === '/api/spools/s1') return new Response(JSON.stringify(spool), { status: 200 });
-      if (url.pathname === '/api/materials') return new Response(JSON.stringify({ items: [] }), { status: 200 });
-      if (url.pathname === '/api/spools') return new Response(JSON.stringify({ items: [spool, { ...spool, id: 's2', name: 'Draft one', status: 'draft' }], total: 2, page: 1, pageSize: 25 }), { status: 200 });
-      return new Response(JSON.stringify({ error: { code: 'not-found', message: 'no route' } }), { status: 404 });
+      if (url.pathname === '/api/me')
+        return new Response(
+          JSON.stringify({
+            user: { id: 'u1', email: 'f@b.test', name: 'F' },
+            team: { id: 't', name: 'T' },
+            role,
+            permissions: [],
+          }),
+          { status: 200 },
+        );
+      if (url.pathname === '/api/spools/s1')
+        return new Response(JSON.stringify(spool), { status: 200 });
+      if (url.pathname === '/api/materials')
+        return new Response(JSON.stringify({ items: [] }), { status: 200 });
+      if (url.pathname === '/api/spools')
+        return new Response(
+          JSON.stringify({
+            items: [spool, { ...spool, id: 's2', name: 'Draft one', status: 'draft' }],
+            total: 2,
+            page: 1,
+            pageSize: 25,
+          }),
+          { status: 200 },
+        );
+      return new Response(JSON.stringify({ error: { code: 'not-found', message: 'no route' } }), {
+        status: 404,
+      });
     }),
   );
   let blob: Blob | null = null;
-  vi.stubGlobal('URL', Object.assign(URL, { createObjectURL: (b: Blob) => ((blob = b), 'blob:x'), revokeObjectURL: () => undefined }));
-  vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(function (this: HTMLAnchorElement) {
+  vi.stubGlobal(
+    'URL',
+    Object.assign(URL, {
+      createObjectURL: (b: Blob) => ((blob = b), 'blob:x'),
+      revokeObjectURL: () => undefined,
+    }),
+  );
+  vi.spyOn(HTMLAnchorElement.prototype, 'click').mockImplementation(function (
+    this: HTMLAnchorElement,
+  ) {
     if (blob) downloads.push({ name: this.download, blob });
   });
 });
@@ -78,7 +127,9 @@ const readBlob = (b: Blob) =>
 describe('fabrication sheet page', () => {
   it('shows the bend list, cut list, bill of materials, masses and hydrotest with the cautions', async () => {
     renderAt('/spools/s1/fabrication');
-    expect(await screen.findByRole('heading', { name: /Fabrication sheet · Shop =test/ })).toBeTruthy();
+    expect(
+      await screen.findByRole('heading', { name: /Fabrication sheet · Shop =test/ }),
+    ).toBeTruthy();
     const bends = screen.getByRole('table', { name: 'Bend list' });
     expect(within(bends).getByText('B1')).toBeTruthy();
     expect(within(bends).getByText('1.25')).toBeTruthy(); // B31.1 Table 102.4.5 at 3D
@@ -104,13 +155,23 @@ describe('fabrication sheet page', () => {
     await user.click(screen.getByRole('button', { name: 'Cut list CSV' }));
     await user.click(screen.getByRole('button', { name: 'Bill of materials CSV' }));
     await user.click(screen.getByRole('button', { name: 'Element table CSV' }));
-    expect(downloads.map((d) => d.name)).toEqual(['Shop-test-rev2-cut-list.csv', 'Shop-test-rev2-bom.csv', 'Shop-test-rev2-elements.csv']);
-    const cut = Papa.parse<Record<string, string>>((await readBlob(downloads[0]!.blob)).trim(), { header: true });
+    expect(downloads.map((d) => d.name)).toEqual([
+      'Shop-test-rev2-cut-list.csv',
+      'Shop-test-rev2-bom.csv',
+      'Shop-test-rev2-elements.csv',
+    ]);
+    const cut = Papa.parse<Record<string, string>>((await readBlob(downloads[0]!.blob)).trim(), {
+      header: true,
+    });
     expect(cut.meta.fields).toContain('cut length (in)');
     expect(cut.data.map((r) => r.element)).toEqual(['S1', 'B1', "'=S2"]); // a text cell a spreadsheet would run is neutralised
     expect(Number(cut.data[1]!['cut length (in)'])).toBeCloseTo(6 * Math.PI + 8, 4);
-    const bom = Papa.parse<Record<string, string>>((await readBlob(downloads[1]!.blob)).trim(), { header: true });
-    expect(bom.meta.fields).toEqual(expect.arrayContaining(['length to order (in)', 'mass (lb)', 'schedule (as ordered)']));
+    const bom = Papa.parse<Record<string, string>>((await readBlob(downloads[1]!.blob)).trim(), {
+      header: true,
+    });
+    expect(bom.meta.fields).toEqual(
+      expect.arrayContaining(['length to order (in)', 'mass (lb)', 'schedule (as ordered)']),
+    );
     const elements = await readBlob(downloads[2]!.blob);
     expect(elements.split('\n')[0]).toContain('MAWP (psi)');
   });
@@ -144,6 +205,8 @@ describe('shop settings in Design conditions', () => {
     await user.type(tangent, '6');
     await user.type(within(form).getByLabelText(/Hydrotest temperature/), '60');
     await user.click(within(form).getByRole('button', { name: 'Apply shop settings' }));
-    await waitFor(() => expect(store.getState().doc.shop).toEqual({ testTemperature: 60, bendTangent: 6 }));
+    await waitFor(() =>
+      expect(store.getState().doc.shop).toEqual({ testTemperature: 60, bendTangent: 6 }),
+    );
   });
 });

@@ -10,7 +10,13 @@ export function drawnStore(pressure = 150): SpoolStore {
   const doc: SpoolDocument = {
     units: 'imperial',
     name: 'UI test spool',
-    conditions: { pressure, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625, millTolerance: 0.125 },
+    conditions: {
+      pressure,
+      temperature: 100,
+      material: 'A106-B',
+      corrosionAllowance: 0.0625,
+      millTolerance: 0.125,
+    },
     defaultBendRadius: { multipleOfD: 1.5 },
     elements: [],
   };
@@ -24,7 +30,11 @@ export function drawnStore(pressure = 150): SpoolStore {
   return store;
 }
 
-export function renderWithStore(ui: ReactNode, store: SpoolStore, display: UnitSystem = 'imperial') {
+export function renderWithStore(
+  ui: ReactNode,
+  store: SpoolStore,
+  display: UnitSystem = 'imperial',
+) {
   return render(
     <SpoolStoreProvider store={store}>
       <DisplayUnitsProvider doc={store.getState().doc.units} display={display}>

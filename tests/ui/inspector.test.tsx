@@ -46,7 +46,11 @@ describe('element inspector', () => {
     await user.clear(radius);
     await user.type(radius, '3');
     await user.click(screen.getByRole('button', { name: 'Apply' }));
-    await waitFor(() => expect(store.getState().doc.elements.find((e) => e.id === 'B1')).toMatchObject({ bendRadius: { multipleOfD: 3 } }));
+    await waitFor(() =>
+      expect(store.getState().doc.elements.find((e) => e.id === 'B1')).toMatchObject({
+        bendRadius: { multipleOfD: 3 },
+      }),
+    );
     expect(store.getState().past).toHaveLength(1);
   });
 
@@ -65,7 +69,9 @@ describe('element inspector', () => {
     const user = userEvent.setup();
     // 1100 psi on 2" Sch 40 A106 B: the 1.5D bends fail at the intrados (see the e2e journey)
     const store = drawnStore(1100);
-    expect(checkSpool(store.getState().doc).elements.find((e) => e.id === 'B1')?.status).toBe('fail');
+    expect(checkSpool(store.getState().doc).elements.find((e) => e.id === 'B1')?.status).toBe(
+      'fail',
+    );
     store.getState().select('B1');
     renderWithStore(<ElementInspector />, store);
     const lightest = screen.getByTestId('lightest-schedule').textContent!;
@@ -74,7 +80,9 @@ describe('element inspector', () => {
     const b1 = store.getState().doc.elements.find((e) => e.id === 'B1');
     expect(b1?.schedule).toBe('80');
     expect(store.getState().canUndo).toBe(true);
-    expect(checkSpool(store.getState().doc).elements.find((e) => e.id === 'B1')?.status).toBe('pass');
+    expect(checkSpool(store.getState().doc).elements.find((e) => e.id === 'B1')?.status).toBe(
+      'pass',
+    );
     expect(await screen.findByRole('button', { name: 'in use' })).toBeTruthy();
   });
 
@@ -92,7 +100,11 @@ describe('element inspector', () => {
     await user.clear(pressure);
     await user.type(pressure, '400');
     await user.click(screen.getByRole('button', { name: 'Apply overrides' }));
-    await waitFor(() => expect(store.getState().doc.elements.find((e) => e.id === 'S2')?.conditions).toEqual({ pressure: 400 }));
+    await waitFor(() =>
+      expect(store.getState().doc.elements.find((e) => e.id === 'S2')?.conditions).toEqual({
+        pressure: 400,
+      }),
+    );
   });
 });
 
@@ -109,7 +121,9 @@ describe('element form pickers', () => {
     await user.selectOptions(screen.getByLabelText('NPS'), '26');
     await waitFor(() => expect(schedule.value).not.toBe('10S'));
     await user.click(screen.getByRole('button', { name: 'Apply' }));
-    await waitFor(() => expect(store.getState().doc.elements.find((e) => e.id === 'S1')).toMatchObject({ nps: '26' }));
+    await waitFor(() =>
+      expect(store.getState().doc.elements.find((e) => e.id === 'S1')).toMatchObject({ nps: '26' }),
+    );
     expect(store.getState().doc.elements.find((e) => e.id === 'S1')?.schedule).not.toBe('10S');
   });
 });
@@ -124,9 +138,13 @@ describe('inputs and their sources', () => {
     renderWithStore(<ElementInspector />, store);
     await user.click(screen.getByText('Inputs and their sources'));
     const table = screen.getByTestId('inputs-table');
-    const sRow = [...table.querySelectorAll('tr')].find((tr) => tr.querySelector('td')?.textContent === 'S')!;
+    const sRow = [...table.querySelectorAll('tr')].find(
+      (tr) => tr.querySelector('td')?.textContent === 'S',
+    )!;
     expect(sRow.textContent).toContain('from memory — verify');
-    const dRow = [...table.querySelectorAll('tr')].find((tr) => tr.querySelector('td')?.textContent === 'D')!;
+    const dRow = [...table.querySelectorAll('tr')].find(
+      (tr) => tr.querySelector('td')?.textContent === 'D',
+    )!;
     expect(dRow.textContent).not.toContain('from memory — verify');
   });
 });

@@ -23,10 +23,22 @@ const library = {
     { tempF: 200, value: 20000, fromMemory: true },
   ],
 };
-const team = { id: 'KX-1', spec: 'Owner KX', grade: '1', name: 'Owner KX 1', origin: 'team', sourceNote: 'Owner spec KX rev C, table 2', source: 'Team', stress: [{ tempF: 100, value: 18000 }] };
+const team = {
+  id: 'KX-1',
+  spec: 'Owner KX',
+  grade: '1',
+  name: 'Owner KX 1',
+  origin: 'team',
+  sourceNote: 'Owner spec KX rev C, table 2',
+  source: 'Team',
+  stress: [{ tempF: 100, value: 18000 }],
+};
 
 function api(extra: Parameters<typeof mockApi>[1] = {}) {
-  return mockApi('admin', { 'GET /api/materials': () => ({ body: { items: [team, library] } }), ...extra });
+  return mockApi('admin', {
+    'GET /api/materials': () => ({ body: { items: [team, library] } }),
+    ...extra,
+  });
 }
 
 describe('materials page', () => {
@@ -60,7 +72,14 @@ describe('materials page', () => {
 
   it('adds a material from the form and says how many spools were re-checked', async () => {
     const calls = api({
-      'POST /api/materials': (c) => ({ status: 201, body: { item: { ...JSON.parse(c.body!), name: 'Owner KX 2' }, replaces: null, rechecked: 4 } }),
+      'POST /api/materials': (c) => ({
+        status: 201,
+        body: {
+          item: { ...JSON.parse(c.body!), name: 'Owner KX 2' },
+          replaces: null,
+          rechecked: 4,
+        },
+      }),
     });
     const user = userEvent.setup();
     renderAt(<MaterialsPage />, '/materials');
@@ -81,9 +100,20 @@ describe('materials page', () => {
     await user.clear(within(form).getByLabelText(/^Row 2: temperature/));
     await user.type(within(form).getByLabelText(/^Row 2: temperature/), '400');
     await user.click(within(form).getByRole('button', { name: 'Add material' }));
-    expect((await screen.findByTestId('rechecked')).textContent).toBe('4 spools re-checked against the updated library.');
+    expect((await screen.findByTestId('rechecked')).textContent).toBe(
+      '4 spools re-checked against the updated library.',
+    );
     const sent = JSON.parse(calls.find((c) => c.method === 'POST')!.body!);
-    expect(sent).toMatchObject({ id: 'KX-2', tensileKsi: 60, points: [{ tempF: 100, stressKsi: 20 }, { tempF: 400, stressKsi: 19 }], sourceNote: 'Owner spec KX rev C, table 2', fromMemory: false });
+    expect(sent).toMatchObject({
+      id: 'KX-2',
+      tensileKsi: 60,
+      points: [
+        { tempF: 100, stressKsi: 20 },
+        { tempF: 400, stressKsi: 19 },
+      ],
+      sourceNote: 'Owner spec KX rev C, table 2',
+      fromMemory: false,
+    });
   });
 
   it('CSV: the dry run shows every problem by line and column; import only after a clean check', async () => {
@@ -91,18 +121,49 @@ describe('materials page', () => {
     const calls = api({
       'POST /api/materials/import/preview': () =>
         clean
-          ? { body: { ok: true, issues: [], items: [{ id: 'KX-3', spec: 'S', grade: '3', name: 'S 3', rows: 2, minTempF: 100, maxTempF: 300, fromMemory: true, replaces: null }] } }
+          ? {
+              body: {
+                ok: true,
+                issues: [],
+                items: [
+                  {
+                    id: 'KX-3',
+                    spec: 'S',
+                    grade: '3',
+                    name: 'S 3',
+                    rows: 2,
+                    minTempF: 100,
+                    maxTempF: 300,
+                    fromMemory: true,
+                    replaces: null,
+                  },
+                ],
+              },
+            }
           : {
               body: {
                 ok: false,
                 items: [],
                 issues: [
-                  { line: 3, column: 'stress_ksi', path: 'line 3: stress_ksi', message: 'stress_ksi must be a number' },
-                  { line: 4, column: 'from_memory', path: 'line 4: from_memory', message: 'from_memory must be yes or no' },
+                  {
+                    line: 3,
+                    column: 'stress_ksi',
+                    path: 'line 3: stress_ksi',
+                    message: 'stress_ksi must be a number',
+                  },
+                  {
+                    line: 4,
+                    column: 'from_memory',
+                    path: 'line 4: from_memory',
+                    message: 'from_memory must be yes or no',
+                  },
                 ],
               },
             },
-      'POST /api/materials/import': () => ({ status: 201, body: { imported: 1, items: [], rechecked: 7 } }),
+      'POST /api/materials/import': () => ({
+        status: 201,
+        body: { imported: 1, items: [], rechecked: 7 },
+      }),
     });
     const user = userEvent.setup();
     renderAt(<MaterialsPage />, '/materials');
@@ -131,17 +192,25 @@ describe('materials page', () => {
     await user.click(screen.getByRole('button', { name: 'Check the file' }));
     expect(await screen.findByTestId('materials-preview')).toBeTruthy();
     await user.click(screen.getByRole('button', { name: 'Import 1 material' }));
-    expect((await screen.findByTestId('rechecked')).textContent).toBe('7 spools re-checked against the updated library.');
-    await waitFor(() => expect(calls.filter((c) => c.path === '/api/materials/import').length).toBe(1));
+    expect((await screen.findByTestId('rechecked')).textContent).toBe(
+      '7 spools re-checked against the updated library.',
+    );
+    await waitFor(() =>
+      expect(calls.filter((c) => c.path === '/api/materials/import').length).toBe(1),
+    );
   });
 
   it('deletes a team material after confirmation and reports the re-check', async () => {
-    const calls = api({ 'DELETE /api/materials/KX-1': () => ({ body: { deleted: 'KX-1', rechecked: 3 } }) });
+    const calls = api({
+      'DELETE /api/materials/KX-1': () => ({ body: { deleted: 'KX-1', rechecked: 3 } }),
+    });
     const user = userEvent.setup();
     renderAt(<MaterialsPage />, '/materials');
     await user.click(await screen.findByRole('button', { name: 'Delete KX-1' }));
     await user.click(screen.getByRole('button', { name: 'Confirm delete' }));
-    expect((await screen.findByTestId('rechecked')).textContent).toBe('3 spools re-checked against the updated library.');
+    expect((await screen.findByTestId('rechecked')).textContent).toBe(
+      '3 spools re-checked against the updated library.',
+    );
     expect(calls.some((c) => c.method === 'DELETE')).toBe(true);
   });
 });

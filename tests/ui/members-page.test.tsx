@@ -12,10 +12,23 @@ afterEach(() => {
 });
 
 const members = [
-  { userId: 'u-admin', email: 'admin@t.test', name: 'Ada Admin', role: 'admin', createdAt: '2026-01-02T10:00:00.000Z' },
-  { userId: 'u-des', email: 'des@t.test', name: 'Dev Designer', role: 'designer', createdAt: '2026-01-03T10:00:00.000Z' },
+  {
+    userId: 'u-admin',
+    email: 'admin@t.test',
+    name: 'Ada Admin',
+    role: 'admin',
+    createdAt: '2026-01-02T10:00:00.000Z',
+  },
+  {
+    userId: 'u-des',
+    email: 'des@t.test',
+    name: 'Dev Designer',
+    role: 'designer',
+    createdAt: '2026-01-03T10:00:00.000Z',
+  },
 ];
-const LAST_ADMIN = 'A team keeps at least one admin: this is the only admin, so they cannot be removed or given another role. Make another member admin first.';
+const LAST_ADMIN =
+  'A team keeps at least one admin: this is the only admin, so they cannot be removed or given another role. Make another member admin first.';
 
 describe('members page', () => {
   it('names each bad field of the invitation before sending, then sends it', async () => {
@@ -24,7 +37,19 @@ describe('members page', () => {
       'GET /api/team/invitations': () => ({ body: { items: [] } }),
       'POST /api/team/invitations': (c) => {
         const b = JSON.parse(c.body!) as { email: string; name: string; role: string };
-        return { status: 201, body: { id: 'i1', ...b, state: 'pending', createdAt: '2026-01-04T10:00:00.000Z', expiresAt: '2026-01-11T10:00:00.000Z', acceptedAt: null, revokedAt: null, invitedBy: 'Ada Admin' } };
+        return {
+          status: 201,
+          body: {
+            id: 'i1',
+            ...b,
+            state: 'pending',
+            createdAt: '2026-01-04T10:00:00.000Z',
+            expiresAt: '2026-01-11T10:00:00.000Z',
+            acceptedAt: null,
+            revokedAt: null,
+            invitedBy: 'Ada Admin',
+          },
+        };
       },
     });
     const user = userEvent.setup();
@@ -42,14 +67,27 @@ describe('members page', () => {
     await user.click(within(form).getByRole('button', { name: 'Send invitation' }));
     expect(await screen.findByText(/Invitation sent to ilse@t.test/)).toBeTruthy();
     const post = calls.find((c) => c.method === 'POST' && c.path === '/api/team/invitations')!;
-    expect(JSON.parse(post.body!)).toEqual({ name: 'Ilse Varga', email: 'ilse@t.test', role: 'checker' });
+    expect(JSON.parse(post.body!)).toEqual({
+      name: 'Ilse Varga',
+      email: 'ilse@t.test',
+      role: 'checker',
+    });
   });
 
   it('puts a server refusal on the field it names', async () => {
     mockApi('admin', {
       'GET /api/team/members': () => ({ body: { items: members } }),
       'GET /api/team/invitations': () => ({ body: { items: [] } }),
-      'POST /api/team/invitations': () => ({ status: 409, body: { error: { code: 'conflict', message: 'des@t.test already has an account', details: [{ path: 'email', message: 'already has an account' }] } } }),
+      'POST /api/team/invitations': () => ({
+        status: 409,
+        body: {
+          error: {
+            code: 'conflict',
+            message: 'des@t.test already has an account',
+            details: [{ path: 'email', message: 'already has an account' }],
+          },
+        },
+      }),
     });
     const user = userEvent.setup();
     renderAt(<MembersPage />, '/team');
@@ -64,15 +102,29 @@ describe('members page', () => {
     const calls = mockApi('admin', {
       'GET /api/team/members': () => ({ body: { items: members } }),
       'GET /api/team/invitations': () => ({ body: { items: [] } }),
-      'PATCH /api/team/members/u-admin': () => ({ status: 409, body: { error: { code: 'conflict', message: LAST_ADMIN, details: [{ path: 'role', message: 'the last admin keeps the admin role' }] } } }),
-      'DELETE /api/team/members/u-admin': () => ({ status: 409, body: { error: { code: 'conflict', message: LAST_ADMIN } } }),
+      'PATCH /api/team/members/u-admin': () => ({
+        status: 409,
+        body: {
+          error: {
+            code: 'conflict',
+            message: LAST_ADMIN,
+            details: [{ path: 'role', message: 'the last admin keeps the admin role' }],
+          },
+        },
+      }),
+      'DELETE /api/team/members/u-admin': () => ({
+        status: 409,
+        body: { error: { code: 'conflict', message: LAST_ADMIN } },
+      }),
     });
     const user = userEvent.setup();
     renderAt(<MembersPage />, '/team');
     const row = (await screen.findByText('admin@t.test')).closest('tr')!;
     expect(within(row).getByText("The team's only admin")).toBeTruthy();
     await user.selectOptions(within(row).getByLabelText('Role of Ada Admin'), 'lead');
-    expect((await within(row).findByRole('alert')).textContent).toContain('A team keeps at least one admin');
+    expect((await within(row).findByRole('alert')).textContent).toContain(
+      'A team keeps at least one admin',
+    );
     expect(calls.find((c) => c.method === 'PATCH')!.body).toBe(JSON.stringify({ role: 'lead' }));
     await user.click(within(row).getByRole('button', { name: 'Remove Ada Admin' }));
     await user.click(within(row).getByRole('button', { name: 'Confirm removal' }));
@@ -81,18 +133,34 @@ describe('members page', () => {
   });
 
   it('lists invitations with their state; a pending one can be withdrawn', async () => {
-    const inv = { id: 'i9', email: 'oskar@t.test', name: 'Oskar Lind', role: 'designer', createdAt: '2026-01-04T10:00:00.000Z', expiresAt: '2026-01-11T10:00:00.000Z', acceptedAt: null, revokedAt: null, invitedBy: 'Ada Admin' };
+    const inv = {
+      id: 'i9',
+      email: 'oskar@t.test',
+      name: 'Oskar Lind',
+      role: 'designer',
+      createdAt: '2026-01-04T10:00:00.000Z',
+      expiresAt: '2026-01-11T10:00:00.000Z',
+      acceptedAt: null,
+      revokedAt: null,
+      invitedBy: 'Ada Admin',
+    };
     const calls = mockApi('admin', {
       'GET /api/team/members': () => ({ body: { items: members } }),
       'GET /api/team/invitations': () => ({ body: { items: [{ ...inv, state: 'pending' }] } }),
-      'DELETE /api/team/invitations/i9': () => ({ body: { ...inv, state: 'revoked', revokedAt: '2026-01-05T10:00:00.000Z' } }),
+      'DELETE /api/team/invitations/i9': () => ({
+        body: { ...inv, state: 'revoked', revokedAt: '2026-01-05T10:00:00.000Z' },
+      }),
     });
     const user = userEvent.setup();
     renderAt(<MembersPage />, '/team');
     const row = (await screen.findByText('oskar@t.test')).closest('tr')!;
     expect(within(row).getByText('Waiting')).toBeTruthy();
     await user.click(within(row).getByRole('button', { name: 'Withdraw' }));
-    await waitFor(() => expect(calls.some((c) => c.method === 'DELETE' && c.path === '/api/team/invitations/i9')).toBe(true));
+    await waitFor(() =>
+      expect(
+        calls.some((c) => c.method === 'DELETE' && c.path === '/api/team/invitations/i9'),
+      ).toBe(true),
+    );
   });
 
   it('is read-only for a member who cannot manage the team', async () => {
@@ -107,8 +175,19 @@ describe('members page', () => {
 describe('accept-invite page', () => {
   it('shows the invitation, checks the repeated password, accepts and signs in', async () => {
     const calls = mockApi('checker', {
-      'POST /api/invitations/lookup': () => ({ body: { email: 'ilse@t.test', name: 'Ilse Varga', role: 'checker', team: { name: 'Test Team' }, expiresAt: '2026-01-11T10:00:00.000Z' } }),
-      'POST /api/invitations/accept': () => ({ status: 201, body: { email: 'ilse@t.test', name: 'Ilse Varga', role: 'checker' } }),
+      'POST /api/invitations/lookup': () => ({
+        body: {
+          email: 'ilse@t.test',
+          name: 'Ilse Varga',
+          role: 'checker',
+          team: { name: 'Test Team' },
+          expiresAt: '2026-01-11T10:00:00.000Z',
+        },
+      }),
+      'POST /api/invitations/accept': () => ({
+        status: 201,
+        body: { email: 'ilse@t.test', name: 'Ilse Varga', role: 'checker' },
+      }),
       'POST /api/auth/sign-in/email': () => ({ body: { ok: true } }),
     });
     const user = userEvent.setup();
@@ -127,14 +206,26 @@ describe('accept-invite page', () => {
     await user.click(screen.getByRole('button', { name: 'Join the team and sign in' }));
     expect(await screen.findByText('elsewhere')).toBeTruthy();
     const accept = calls.find((c) => c.path === '/api/invitations/accept')!;
-    expect(JSON.parse(accept.body!)).toEqual({ token: 'tok-0123456789abcdef', password: 'a-good-password' });
+    expect(JSON.parse(accept.body!)).toEqual({
+      token: 'tok-0123456789abcdef',
+      password: 'a-good-password',
+    });
     const signIn = calls.find((c) => c.path === '/api/auth/sign-in/email')!;
     expect(JSON.parse(signIn.body!)).toEqual({ email: 'ilse@t.test', password: 'a-good-password' });
   });
 
   it('says why a used link cannot be used', async () => {
     mockApi('checker', {
-      'POST /api/invitations/lookup': () => ({ status: 410, body: { error: { code: 'gone', message: 'This invitation has already been used.', details: { state: 'accepted' } } } }),
+      'POST /api/invitations/lookup': () => ({
+        status: 410,
+        body: {
+          error: {
+            code: 'gone',
+            message: 'This invitation has already been used.',
+            details: { state: 'accepted' },
+          },
+        },
+      }),
     });
     renderAt(<AcceptInvitePage />, '/accept-invite?token=tok-0123456789abcdef');
     expect(await screen.findByText('This invitation has already been used.')).toBeTruthy();

@@ -4,11 +4,20 @@ import { cleanup, render, screen, waitFor, within } from '@testing-library/react
 import userEvent from '@testing-library/user-event';
 import { QueryClientProvider } from '@tanstack/react-query';
 import { createQueryClient } from '@/lib/query-client';
-import { countOpenByElement, groupThreads, ReviewPanel } from '@/features/review/components/review-panel';
+import {
+  countOpenByElement,
+  groupThreads,
+  ReviewPanel,
+} from '@/features/review/components/review-panel';
 import { ReturnForm } from '@/features/review/components/return-form';
 import type { ReviewComment } from '@/features/review/api/review-schemas';
 
-const comment = (id: number, elementId: string | null, body: string, o: Partial<ReviewComment> = {}): ReviewComment => ({
+const comment = (
+  id: number,
+  elementId: string | null,
+  body: string,
+  o: Partial<ReviewComment> = {},
+): ReviewComment => ({
   id,
   revision: 1,
   elementId,
@@ -29,7 +38,10 @@ beforeEach(() => {
     comment(1, 'B1', 'Radius too tight', { revision: 0 }),
     comment(2, null, 'Check the line number'),
     comment(3, 'B1', 'Wall short at the intrados'),
-    comment(4, 'S2', 'Old remark', { resolvedAt: '2026-01-03T10:00:00.000Z', resolvedBy: { id: 'u2', name: 'Dana Designer' } }),
+    comment(4, 'S2', 'Old remark', {
+      resolvedAt: '2026-01-03T10:00:00.000Z',
+      resolvedBy: { id: 'u2', name: 'Dana Designer' },
+    }),
   ];
   vi.stubGlobal(
     'fetch',
@@ -38,7 +50,8 @@ beforeEach(() => {
       const method = init?.method ?? 'GET';
       const body = init?.body ? JSON.parse(String(init.body)) : undefined;
       calls.push({ method, path: url.pathname, body });
-      if (url.pathname === '/api/spools/sp1/comments' && method === 'GET') return new Response(JSON.stringify({ items: store }), { status: 200 });
+      if (url.pathname === '/api/spools/sp1/comments' && method === 'GET')
+        return new Response(JSON.stringify({ items: store }), { status: 200 });
       if (url.pathname === '/api/spools/sp1/comments' && method === 'POST') {
         const c = comment(store.length + 1, body.elementId ?? null, body.body);
         store = [...store, c];
@@ -46,10 +59,22 @@ beforeEach(() => {
       }
       const m = /^\/api\/spools\/sp1\/comments\/(\d+)$/.exec(url.pathname);
       if (m && method === 'PATCH') {
-        store = store.map((c) => (c.id === Number(m[1]) ? { ...c, resolvedAt: body.resolved ? '2026-01-04T10:00:00.000Z' : null, resolvedBy: body.resolved ? { id: 'u2', name: 'Dana Designer' } : null } : c));
-        return new Response(JSON.stringify(store.find((c) => c.id === Number(m[1]))), { status: 200 });
+        store = store.map((c) =>
+          c.id === Number(m[1])
+            ? {
+                ...c,
+                resolvedAt: body.resolved ? '2026-01-04T10:00:00.000Z' : null,
+                resolvedBy: body.resolved ? { id: 'u2', name: 'Dana Designer' } : null,
+              }
+            : c,
+        );
+        return new Response(JSON.stringify(store.find((c) => c.id === Number(m[1]))), {
+          status: 200,
+        });
       }
-      return new Response(JSON.stringify({ error: { code: 'not_found', message: 'no route' } }), { status: 404 });
+      return new Response(JSON.stringify({ error: { code: 'not_found', message: 'no route' } }), {
+        status: 404,
+      });
     }),
   );
 });
@@ -62,7 +87,15 @@ function renderPanel(props: Partial<Parameters<typeof ReviewPanel>[0]> = {}) {
   const onSelectElement = vi.fn();
   render(
     <QueryClientProvider client={createQueryClient()}>
-      <ReviewPanel spoolId="sp1" revision={1} elementIds={['S1', 'B1', 'S2']} selectedId={null} onSelectElement={onSelectElement} canComment {...props} />
+      <ReviewPanel
+        spoolId="sp1"
+        revision={1}
+        elementIds={['S1', 'B1', 'S2']}
+        selectedId={null}
+        onSelectElement={onSelectElement}
+        canComment
+        {...props}
+      />
     </QueryClientProvider>,
   );
   return { onSelectElement };
@@ -110,8 +143,15 @@ describe('review panel', () => {
     await user.type(screen.getByLabelText(/New comment on revision 1/), 'Cut length?');
     await user.click(screen.getByRole('button', { name: 'Add comment' }));
     await screen.findByRole('region', { name: 'Thread on S1' });
-    expect(calls.find((c) => c.method === 'POST')?.body).toEqual({ body: 'Cut length?', elementId: 'S1' });
-    await waitFor(() => expect((screen.getByLabelText(/New comment on revision 1/) as HTMLTextAreaElement).value).toBe(''));
+    expect(calls.find((c) => c.method === 'POST')?.body).toEqual({
+      body: 'Cut length?',
+      elementId: 'S1',
+    });
+    await waitFor(() =>
+      expect(
+        (screen.getByLabelText(/New comment on revision 1/) as HTMLTextAreaElement).value,
+      ).toBe(''),
+    );
   });
 
   it('replies in a thread, resolves and reopens', async () => {
@@ -120,17 +160,35 @@ describe('review panel', () => {
     const thread = await screen.findByRole('region', { name: 'Thread on B1' });
     await user.type(within(thread).getByLabelText('Reply on B1'), 'Changed to Sch 80');
     await user.click(within(thread).getByRole('button', { name: 'Reply' }));
-    await waitFor(() => expect(within(screen.getByRole('region', { name: 'Thread on B1' })).getAllByTestId('comment')).toHaveLength(3));
-    expect(calls.find((c) => c.method === 'POST')?.body).toEqual({ body: 'Changed to Sch 80', elementId: 'B1' });
+    await waitFor(() =>
+      expect(
+        within(screen.getByRole('region', { name: 'Thread on B1' })).getAllByTestId('comment'),
+      ).toHaveLength(3),
+    );
+    expect(calls.find((c) => c.method === 'POST')?.body).toEqual({
+      body: 'Changed to Sch 80',
+      elementId: 'B1',
+    });
 
-    const first = within(screen.getByRole('region', { name: 'Thread on B1' })).getAllByTestId('comment')[0]!;
+    const first = within(screen.getByRole('region', { name: 'Thread on B1' })).getAllByTestId(
+      'comment',
+    )[0]!;
     await user.click(within(first).getByRole('button', { name: 'Resolve' }));
-    await waitFor(() => expect(screen.getByTestId('open-count').textContent).toBe('3 open · 2 resolved'));
-    expect(calls.find((c) => c.method === 'PATCH')).toMatchObject({ path: '/api/spools/sp1/comments/1', body: { resolved: true } });
+    await waitFor(() =>
+      expect(screen.getByTestId('open-count').textContent).toBe('3 open · 2 resolved'),
+    );
+    expect(calls.find((c) => c.method === 'PATCH')).toMatchObject({
+      path: '/api/spools/sp1/comments/1',
+      body: { resolved: true },
+    });
     await user.click(screen.getByRole('radio', { name: 'all' }));
-    const resolved = screen.getAllByTestId('comment').find((c) => c.getAttribute('data-comment-id') === '1')!;
+    const resolved = screen
+      .getAllByTestId('comment')
+      .find((c) => c.getAttribute('data-comment-id') === '1')!;
     await user.click(within(resolved).getByRole('button', { name: 'Reopen' }));
-    await waitFor(() => expect(screen.getByTestId('open-count').textContent).toBe('4 open · 1 resolved'));
+    await waitFor(() =>
+      expect(screen.getByTestId('open-count').textContent).toBe('4 open · 1 resolved'),
+    );
   });
 
   it('selects the element of a thread and hides the forms without the comment permission', async () => {

@@ -11,7 +11,15 @@ const rev0: SpoolDocument = {
   conditions: { pressure: 150, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 },
   elements: [
     { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 30, direction: 'east' },
-    { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: { multipleOfD: 1.5 }, angle: 90, direction: 'north' },
+    {
+      kind: 'bend',
+      id: 'B1',
+      nps: '2',
+      schedule: '40',
+      bendRadius: { multipleOfD: 1.5 },
+      angle: 90,
+      direction: 'north',
+    },
     { kind: 'straight', id: 'S2', nps: '2', schedule: '40', length: 30, direction: 'north' },
   ],
 };
@@ -25,7 +33,9 @@ describe('field diff', () => {
     ]);
   });
   it('lists the fields of an object that appears on one side', () => {
-    expect(diffFields({}, { conditions: { pressure: 300 } })).toEqual([{ field: 'conditions.pressure', before: undefined, after: 300 }]);
+    expect(diffFields({}, { conditions: { pressure: 300 } })).toEqual([
+      { field: 'conditions.pressure', before: undefined, after: 300 },
+    ]);
   });
   it('is empty for equal values', () => {
     expect(diffFields(rev0, structuredClone(rev0))).toEqual([]);
@@ -34,7 +44,10 @@ describe('field diff', () => {
 
 describe('revision diff', () => {
   it('is empty for the same document', () => {
-    const d = diffRevisions({ revision: 0, document: rev0 }, { revision: 1, document: structuredClone(rev0) as SpoolDocument });
+    const d = diffRevisions(
+      { revision: 0, document: rev0 },
+      { revision: 1, document: structuredClone(rev0) as SpoolDocument },
+    );
     expect(isEmptyDiff(d)).toBe(true);
   });
 
@@ -45,7 +58,11 @@ describe('revision diff', () => {
       conditions: { ...rev0.conditions, pressure: 300 },
       elements: [
         rev0.elements[0]!,
-        { ...rev0.elements[1]!, schedule: '80', bendRadius: { multipleOfD: 3 } } as SpoolDocument['elements'][number],
+        {
+          ...rev0.elements[1]!,
+          schedule: '80',
+          bendRadius: { multipleOfD: 3 },
+        } as SpoolDocument['elements'][number],
         { kind: 'straight', id: 'S3', nps: '2', schedule: '40', length: 12, direction: 'north' },
       ],
     };
@@ -68,9 +85,17 @@ describe('revision diff', () => {
   });
 
   it('names a reordering of kept elements', () => {
-    const swapped: SpoolDocument = { ...rev0, elements: [rev0.elements[2]!, rev0.elements[1]!, rev0.elements[0]!] };
+    const swapped: SpoolDocument = {
+      ...rev0,
+      elements: [rev0.elements[2]!, rev0.elements[1]!, rev0.elements[0]!],
+    };
     const d = diffRevisions({ revision: 0, document: rev0 }, { revision: 1, document: swapped });
-    expect(d.changed).toEqual([{ target: 'spool', fields: [{ field: 'elements order', before: 'S1 B1 S2', after: 'S2 B1 S1' }] }]);
+    expect(d.changed).toEqual([
+      {
+        target: 'spool',
+        fields: [{ field: 'elements order', before: 'S1 B1 S2', after: 'S2 B1 S1' }],
+      },
+    ]);
   });
 
   it('reports check status changes of kept elements', () => {
@@ -81,8 +106,14 @@ describe('revision diff', () => {
     const b = { revision: 1, document: hot, check: checkSpool(hot) };
     expect(a.check.elements.map((e) => e.status)).toEqual(['pass', 'pass', 'pass']);
     const d = diffRevisions(a, b);
-    expect(d.statusChanges.map((s) => `${s.id}:${s.before}>${s.after}`)).toEqual(['S1:pass>fail', 'B1:pass>fail', 'S2:pass>fail']);
-    expect(d.changed).toEqual([{ target: 'conditions', fields: [{ field: 'pressure', before: 150, after: 1500 }] }]);
+    expect(d.statusChanges.map((s) => `${s.id}:${s.before}>${s.after}`)).toEqual([
+      'S1:pass>fail',
+      'B1:pass>fail',
+      'S2:pass>fail',
+    ]);
+    expect(d.changed).toEqual([
+      { target: 'conditions', fields: [{ field: 'pressure', before: 150, after: 1500 }] },
+    ]);
   });
 
   it('formats values for display', () => {

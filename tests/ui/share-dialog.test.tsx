@@ -41,7 +41,15 @@ const doc: SpoolDocument = {
   conditions: { pressure: 150, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625 },
   elements: [
     { kind: 'straight', id: 'S1', nps: '2', schedule: '40', length: 30, direction: 'east' },
-    { kind: 'bend', id: 'B1', nps: '2', schedule: '40', bendRadius: { multipleOfD: 3 }, angle: 90, direction: 'north' },
+    {
+      kind: 'bend',
+      id: 'B1',
+      nps: '2',
+      schedule: '40',
+      bendRadius: { multipleOfD: 3 },
+      angle: 90,
+      direction: 'north',
+    },
     { kind: 'straight', id: 'S2', nps: '2', schedule: '40', length: 30, direction: 'north' },
   ],
 };
@@ -49,10 +57,26 @@ let publicAnswer: { status: number; body: unknown } = { status: 200, body: {} };
 
 beforeEach(() => {
   calls.length = 0;
-  shares = [share('old-expired', { expiresAt: iso(-1), active: false }), share('old-revoked', { revokedAt: iso(-0.5), active: false }), share('live')];
+  shares = [
+    share('old-expired', { expiresAt: iso(-1), active: false }),
+    share('old-revoked', { revokedAt: iso(-0.5), active: false }),
+    share('live'),
+  ];
   publicAnswer = {
     status: 200,
-    body: { spool: { name: 'Shared spool', line: '2"-SH-1', revision: 2, status: 'released', document: doc }, check: checkSpool(doc), sharedAt: iso(-1), expiresAt: iso(6), sharedBy: 'Lee Lead' },
+    body: {
+      spool: {
+        name: 'Shared spool',
+        line: '2"-SH-1',
+        revision: 2,
+        status: 'released',
+        document: doc,
+      },
+      check: checkSpool(doc),
+      sharedAt: iso(-1),
+      expiresAt: iso(6),
+      sharedBy: 'Lee Lead',
+    },
   };
   vi.stubGlobal(
     'fetch',
@@ -61,22 +85,44 @@ beforeEach(() => {
       const method = init?.method ?? 'GET';
       const body = init?.body ? JSON.parse(String(init.body)) : undefined;
       calls.push({ method, path: url.pathname, body });
-      const json = (b: unknown, status = 200) => new Response(b === undefined ? null : JSON.stringify(b), { status });
+      const json = (b: unknown, status = 200) =>
+        new Response(b === undefined ? null : JSON.stringify(b), { status });
       if (url.pathname === '/api/spools/sp1/revisions') {
-        return json({ items: [0, 1].map((r) => ({ revision: r, status: r === 0 ? 'released' : 'draft', name: 'Spool A', line: '', version: 3, current: r === 1, frozenAt: null, frozenBy: null, summary: { pass: 3, marginal: 0, fail: 0, review: 0, invalid: 0 }, worst: null })) });
+        return json({
+          items: [0, 1].map((r) => ({
+            revision: r,
+            status: r === 0 ? 'released' : 'draft',
+            name: 'Spool A',
+            line: '',
+            version: 3,
+            current: r === 1,
+            frozenAt: null,
+            frozenBy: null,
+            summary: { pass: 3, marginal: 0, fail: 0, review: 0, invalid: 0 },
+            worst: null,
+          })),
+        });
       }
-      if (url.pathname === '/api/spools/sp1/shares' && method === 'GET') return json({ items: shares });
+      if (url.pathname === '/api/spools/sp1/shares' && method === 'GET')
+        return json({ items: shares });
       if (url.pathname === '/api/spools/sp1/shares' && method === 'POST') {
-        const s = share('new', { revision: body.revision, expiresAt: iso(body.expiresInDays), createdAt: iso(0) });
+        const s = share('new', {
+          revision: body.revision,
+          expiresAt: iso(body.expiresInDays),
+          createdAt: iso(0),
+        });
         shares = [s, ...shares];
         return json({ ...s, url: 'http://app.test/share/secret-token' }, 201);
       }
       const m = /^\/api\/spools\/sp1\/shares\/([\w-]+)$/.exec(url.pathname);
       if (m && method === 'DELETE') {
-        shares = shares.map((s) => (s.id === m[1] ? { ...s, revokedAt: iso(0), active: false } : s));
+        shares = shares.map((s) =>
+          s.id === m[1] ? { ...s, revokedAt: iso(0), active: false } : s,
+        );
         return json(undefined, 204);
       }
-      if (url.pathname.startsWith('/api/share/')) return json(publicAnswer.body, publicAnswer.status);
+      if (url.pathname.startsWith('/api/share/'))
+        return json(publicAnswer.body, publicAnswer.status);
       return json({ error: { code: 'not_found', message: 'no route' } }, 404);
     }),
   );
@@ -117,7 +163,9 @@ describe('share dialog', () => {
     renderDialog();
     const list = await screen.findByTestId('share-list');
     await waitFor(() => expect(list.querySelectorAll('tbody tr')).toHaveLength(3));
-    expect([...list.querySelectorAll('tbody tr')].map((tr) => tr.getAttribute('data-state'))).toEqual(['expired', 'revoked', 'active']);
+    expect(
+      [...list.querySelectorAll('tbody tr')].map((tr) => tr.getAttribute('data-state')),
+    ).toEqual(['expired', 'revoked', 'active']);
     expect(list.textContent).toContain('Lee Lead');
     expect(within(list).getAllByRole('button', { name: 'Revoke' })).toHaveLength(1);
     expect(screen.queryByLabelText('Share link', { exact: true })).toBeNull();
@@ -141,9 +189,14 @@ describe('share dialog', () => {
     await user.click(screen.getByRole('button', { name: 'Create link' }));
     const link = (await screen.findByLabelText('Share link', { exact: true })) as HTMLInputElement;
     expect(link.value).toBe('http://app.test/share/secret-token');
-    expect(calls.find((c) => c.method === 'POST')?.body).toEqual({ revision: 0, expiresInDays: 14 });
+    expect(calls.find((c) => c.method === 'POST')?.body).toEqual({
+      revision: 0,
+      expiresInDays: 14,
+    });
     expect(screen.getByTestId('new-share').textContent).toContain('shown only now');
-    await waitFor(() => expect(screen.getByTestId('share-list').querySelectorAll('tbody tr')).toHaveLength(4));
+    await waitFor(() =>
+      expect(screen.getByTestId('share-list').querySelectorAll('tbody tr')).toHaveLength(4),
+    );
     // copy: the clipboard gets the link
     const writeText = vi.fn(async () => undefined);
     Object.defineProperty(navigator, 'clipboard', { value: { writeText }, configurable: true });
@@ -157,7 +210,11 @@ describe('share dialog', () => {
     renderDialog();
     const list = await screen.findByTestId('share-list');
     await user.click(await within(list).findByRole('button', { name: 'Revoke' }));
-    await waitFor(() => expect(list.querySelector('tr[data-share-id="live"]')?.getAttribute('data-state')).toBe('revoked'));
+    await waitFor(() =>
+      expect(list.querySelector('tr[data-share-id="live"]')?.getAttribute('data-state')).toBe(
+        'revoked',
+      ),
+    );
     expect(calls.find((c) => c.method === 'DELETE')?.path).toBe('/api/spools/sp1/shares/live');
   });
 });
@@ -179,31 +236,53 @@ describe('public share page', () => {
     const user = userEvent.setup();
     renderPublic();
     const banner = await screen.findByTestId('share-banner');
-    for (const want of ['Shared spool', 'line 2"-SH-1', 'revision 2', 'Released', 'Shared by Lee Lead']) expect(banner.textContent).toContain(want);
-    expect(screen.getByRole('link', { name: 'Download calc sheet (PDF)' }).getAttribute('href')).toBe('/api/share/tok123/calc-sheet.pdf');
+    for (const want of [
+      'Shared spool',
+      'line 2"-SH-1',
+      'revision 2',
+      'Released',
+      'Shared by Lee Lead',
+    ])
+      expect(banner.textContent).toContain(want);
+    expect(
+      screen.getByRole('link', { name: 'Download calc sheet (PDF)' }).getAttribute('href'),
+    ).toBe('/api/share/tok123/calc-sheet.pdf');
     await user.click(screen.getByText('B1', { selector: 'code' }));
     const inspector = await screen.findByTestId('inspector');
     expect(inspector.getAttribute('data-element-id')).toBe('B1');
     expect(within(inspector).getAllByTestId('trail-step').length).toBeGreaterThan(0);
     expect(screen.getAllByTestId('caution').length).toBeGreaterThan(0);
-    expect(screen.queryByRole('button', { name: /^(Save|Apply|Use schedule|Draw leg)/ })).toBeNull();
+    expect(
+      screen.queryByRole('button', { name: /^(Save|Apply|Use schedule|Draw leg)/ }),
+    ).toBeNull();
     expect((within(inspector).getByLabelText('Schedule') as HTMLSelectElement).disabled).toBe(true);
     expect(calls.every((c) => c.path.startsWith('/api/share/'))).toBe(true);
   });
 
   it('says a revoked link is revoked', async () => {
-    publicAnswer = { status: 410, body: { error: { code: 'gone', message: 'This share link was revoked' } } };
+    publicAnswer = {
+      status: 410,
+      body: { error: { code: 'gone', message: 'This share link was revoked' } },
+    };
     renderPublic();
-    expect((await screen.findByTestId('share-revoked')).textContent).toContain('This link was revoked');
+    expect((await screen.findByTestId('share-revoked')).textContent).toContain(
+      'This link was revoked',
+    );
     expect(screen.queryByTestId('share-banner')).toBeNull();
   });
 
   it('says an expired link has expired, and an unknown one does not exist', async () => {
-    publicAnswer = { status: 410, body: { error: { code: 'gone', message: 'This share link has expired' } } };
+    publicAnswer = {
+      status: 410,
+      body: { error: { code: 'gone', message: 'This share link has expired' } },
+    };
     renderPublic();
     expect((await screen.findByTestId('share-expired')).textContent).toContain('expired');
     cleanup();
-    publicAnswer = { status: 404, body: { error: { code: 'not_found', message: 'Share link not found' } } };
+    publicAnswer = {
+      status: 404,
+      body: { error: { code: 'not_found', message: 'Share link not found' } },
+    };
     renderPublic();
     expect((await screen.findByTestId('share-unknown')).textContent).toContain('No such link');
   });

@@ -29,14 +29,35 @@ beforeEach(() => {
     vi.fn(async (input: string) => {
       const url = new URL(input, 'http://test.local');
       if (url.pathname === '/api/me') {
-        return new Response(JSON.stringify({ user: { id: 'u1', email: 'a@b.test', name: 'A' }, team: { id: 't', name: 'T' }, role, permissions: [] }), { status: 200 });
+        return new Response(
+          JSON.stringify({
+            user: { id: 'u1', email: 'a@b.test', name: 'A' },
+            team: { id: 't', name: 'T' },
+            role,
+            permissions: [],
+          }),
+          { status: 200 },
+        );
       }
       if (url.pathname === '/api/spools') {
         listCalls.push(url.searchParams);
-        const items = [summary('s1', 'Alpha spool', 'draft'), summary('s2', 'Bravo spool', 'checked')];
-        return new Response(JSON.stringify({ items, total: 60, page: Number(url.searchParams.get('page') ?? 1), pageSize: 25 }), { status: 200 });
+        const items = [
+          summary('s1', 'Alpha spool', 'draft'),
+          summary('s2', 'Bravo spool', 'checked'),
+        ];
+        return new Response(
+          JSON.stringify({
+            items,
+            total: 60,
+            page: Number(url.searchParams.get('page') ?? 1),
+            pageSize: 25,
+          }),
+          { status: 200 },
+        );
       }
-      return new Response(JSON.stringify({ error: { code: 'not-found', message: 'no route' } }), { status: 404 });
+      return new Response(JSON.stringify({ error: { code: 'not-found', message: 'no route' } }), {
+        status: 404,
+      });
     }),
   );
 });

@@ -28,8 +28,20 @@ const designerQueue: Waiting = {
       spool: summary('s1', 'Returned spool', 'draft'),
       openComments: 2,
       comments: [
-        { id: 7, revision: 1, elementId: 'B1', body: 'Wall short', createdAt: '2026-01-02T09:00:00.000Z' },
-        { id: 8, revision: 1, elementId: null, body: 'See B1', createdAt: '2026-01-02T09:01:00.000Z' },
+        {
+          id: 7,
+          revision: 1,
+          elementId: 'B1',
+          body: 'Wall short',
+          createdAt: '2026-01-02T09:00:00.000Z',
+        },
+        {
+          id: 8,
+          revision: 1,
+          elementId: null,
+          body: 'See B1',
+          createdAt: '2026-01-02T09:01:00.000Z',
+        },
       ],
       since: '2026-01-02T09:02:00.000Z',
       note: 'See B1',
@@ -51,17 +63,27 @@ afterEach(() => {
 describe('waiting rows', () => {
   it('lists a designer’s returned spools with their open comments, each linking into the spool', () => {
     render(wrap(<WaitingRows waiting={designerQueue} />));
-    const row = screen.getByTestId('waiting-list').querySelector('[data-waiting-spool="s1"]') as HTMLElement;
-    expect(within(row).getByRole('link', { name: 'Returned spool' }).getAttribute('href')).toBe('/spools/s1?panel=review');
+    const row = screen
+      .getByTestId('waiting-list')
+      .querySelector('[data-waiting-spool="s1"]') as HTMLElement;
+    expect(within(row).getByRole('link', { name: 'Returned spool' }).getAttribute('href')).toBe(
+      '/spools/s1?panel=review',
+    );
     expect(within(row).getByTestId('waiting-open-comments').textContent).toBe('2 open comments');
-    expect(within(row).getByRole('link', { name: 'B1' }).getAttribute('href')).toBe('/spools/s1?element=B1&panel=review');
+    expect(within(row).getByRole('link', { name: 'B1' }).getAttribute('href')).toBe(
+      '/spools/s1?element=B1&panel=review',
+    );
     expect(within(row).getByText('Wall short')).toBeTruthy();
     // the return note is also a comment: shown once
     expect(within(row).getAllByText(/See B1/)).toHaveLength(1);
   });
 
   it('says so when nothing waits, in the role’s words', () => {
-    render(wrap(<WaitingRows waiting={{ role: 'fabricator', state: 'released', total: 0, items: [] }} />));
+    render(
+      wrap(
+        <WaitingRows waiting={{ role: 'fabricator', state: 'released', total: 0, items: [] }} />,
+      ),
+    );
     expect(screen.getByText('No spool has been released yet.')).toBeTruthy();
   });
 });
@@ -73,9 +95,21 @@ describe('waiting list and header count', () => {
       vi.fn(async (input: string) => {
         const url = new URL(input, 'http://test.local');
         if (url.pathname === '/api/waiting') {
-          return new Response(JSON.stringify({ role: 'checker', state: 'submitted', total: 2, items: [summary('a', 'Alpha', 'submitted'), summary('b', 'Bravo', 'submitted')].map((spool) => ({ spool, openComments: 0, since: null, note: null })) }), { status: 200 });
+          return new Response(
+            JSON.stringify({
+              role: 'checker',
+              state: 'submitted',
+              total: 2,
+              items: [summary('a', 'Alpha', 'submitted'), summary('b', 'Bravo', 'submitted')].map(
+                (spool) => ({ spool, openComments: 0, since: null, note: null }),
+              ),
+            }),
+            { status: 200 },
+          );
         }
-        return new Response(JSON.stringify({ error: { code: 'not_found', message: 'no route' } }), { status: 404 });
+        return new Response(JSON.stringify({ error: { code: 'not_found', message: 'no route' } }), {
+          status: 404,
+        });
       }),
     );
   });
@@ -93,6 +127,8 @@ describe('waiting list and header count', () => {
     expect(screen.getByTestId('waiting-total').textContent).toBe('2');
     expect(screen.getByTestId('waiting-count').textContent).toBe('Waiting on me2');
     expect(screen.getByTestId('waiting-count').getAttribute('href')).toBe('/spools#waiting');
-    expect(screen.getAllByRole('link', { name: /Alpha|Bravo/ }).map((a) => a.getAttribute('href'))).toEqual(['/spools/a?panel=review', '/spools/b?panel=review']);
+    expect(
+      screen.getAllByRole('link', { name: /Alpha|Bravo/ }).map((a) => a.getAttribute('href')),
+    ).toEqual(['/spools/a?panel=review', '/spools/b?panel=review']);
   });
 });

@@ -6,7 +6,8 @@ type Size = 'sm' | 'md';
 
 const variants: Record<Variant, string> = {
   primary: 'bg-copper-500 text-white hover:bg-copper-600 disabled:bg-steel-300',
-  secondary: 'border border-steel-300 bg-white text-steel-800 hover:bg-steel-100 disabled:text-steel-400 disabled:hover:bg-white',
+  secondary:
+    'border border-steel-300 bg-white text-steel-800 hover:bg-steel-100 disabled:text-steel-400 disabled:hover:bg-white',
   ghost: 'text-steel-700 hover:bg-steel-100 disabled:text-steel-300 disabled:hover:bg-transparent',
   danger: 'border border-red-300 bg-white text-red-700 hover:bg-red-50 disabled:text-steel-400',
 };

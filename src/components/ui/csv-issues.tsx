@@ -9,11 +9,18 @@ export interface CsvIssue {
 }
 
 /** Every problem of a CSV dry run by line and column; nothing has been written when this shows. */
-export function CsvIssuesTable({ issues, label = 'Problems in the file' }: { readonly issues: readonly CsvIssue[]; readonly label?: string }) {
+export function CsvIssuesTable({
+  issues,
+  label = 'Problems in the file',
+}: {
+  readonly issues: readonly CsvIssue[];
+  readonly label?: string;
+}) {
   return (
     <div role="alert" aria-label={label} className="rounded border border-red-300 bg-red-50 p-3">
       <p className="mb-2 text-sm font-medium text-red-800">
-        {issues.length} problem{issues.length === 1 ? '' : 's'} found; nothing was written. Fix the file and check it again.
+        {issues.length} problem{issues.length === 1 ? '' : 's'} found; nothing was written. Fix the
+        file and check it again.
       </p>
       <table className={tableClass} data-testid="csv-issues">
         <thead>

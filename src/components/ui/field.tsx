@@ -1,4 +1,10 @@
-import { forwardRef, useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
+import {
+  forwardRef,
+  useId,
+  type InputHTMLAttributes,
+  type ReactNode,
+  type SelectHTMLAttributes,
+} from 'react';
 import { cn } from '@/lib/cn';
 
 /** Input look without a width (callers set one). */
@@ -53,7 +59,14 @@ export const TextField = forwardRef<HTMLInputElement, TextFieldProps>(function T
   return (
     <FieldShell label={label} unit={unit} error={error} hint={hint} className={className}>
       {(id, describedBy) => (
-        <input ref={ref} id={id} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={fieldInputClass} {...rest} />
+        <input
+          ref={ref}
+          id={id}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy}
+          className={fieldInputClass}
+          {...rest}
+        />
       )}
     </FieldShell>
   );
@@ -73,7 +86,14 @@ export const SelectField = forwardRef<HTMLSelectElement, SelectFieldProps>(funct
   return (
     <FieldShell label={label} error={error} hint={hint} className={className}>
       {(id, describedBy) => (
-        <select ref={ref} id={id} aria-invalid={error ? true : undefined} aria-describedby={describedBy} className={fieldInputClass} {...rest}>
+        <select
+          ref={ref}
+          id={id}
+          aria-invalid={error ? true : undefined}
+          aria-describedby={describedBy}
+          className={fieldInputClass}
+          {...rest}
+        >
           {options.map((o) => (
             <option key={o.value} value={o.value}>
               {o.label}

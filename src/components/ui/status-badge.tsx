@@ -6,7 +6,13 @@ import { cn } from '@/lib/cn';
  * Check-status badge: the same colours, patterns and glyphs as the sketch (one visual code for
  * the whole app), so a status reads without colour too.
  */
-export function CheckBadge({ status, className }: { readonly status: string | null | undefined; readonly className?: string }) {
+export function CheckBadge({
+  status,
+  className,
+}: {
+  readonly status: string | null | undefined;
+  readonly className?: string;
+}) {
   if (!status) return <span className="text-xs text-steel-400">—</span>;
   const key = (status in STATUS_STYLES ? status : 'invalid') as CheckStatus;
   const look = STATUS_STYLES[key];
@@ -14,10 +20,17 @@ export function CheckBadge({ status, className }: { readonly status: string | nu
     <span
       data-check-status={status}
       title={look.description}
-      className={cn('inline-flex items-center gap-1 rounded border border-steel-200 bg-white px-1.5 py-px text-xs font-medium', className)}
+      className={cn(
+        'inline-flex items-center gap-1 rounded border border-steel-200 bg-white px-1.5 py-px text-xs font-medium',
+        className,
+      )}
       style={{ color: look.ink }}
     >
-      <span aria-hidden className="inline-block h-2.5 w-3.5 rounded-sm" style={{ background: statusSwatchBackground(key) }} />
+      <span
+        aria-hidden
+        className="inline-block h-2.5 w-3.5 rounded-sm"
+        style={{ background: statusSwatchBackground(key) }}
+      />
       <span aria-hidden>{look.glyph}</span>
       {status}
     </span>
@@ -34,7 +47,10 @@ const lifecycleLook: Record<string, { cls: string; label: string }> = {
 export function LifecycleBadge({ status }: { readonly status: string }) {
   const look = lifecycleLook[status] ?? { cls: 'bg-steel-100 text-steel-700', label: status };
   return (
-    <span data-lifecycle={status} className={cn('inline-flex rounded px-1.5 py-px text-xs font-medium', look.cls)}>
+    <span
+      data-lifecycle={status}
+      className={cn('inline-flex rounded px-1.5 py-px text-xs font-medium', look.cls)}
+    >
       {look.label}
     </span>
   );

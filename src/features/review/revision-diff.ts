@@ -1,6 +1,10 @@
 import type { CheckStatus, SpoolCheck } from '@shared/engine';
 import type { SpoolDocument, SpoolElement } from '@shared/model/spool';
-import { diffDocuments, diffFields, type FieldChange } from '@/features/sketch/components/document-diff';
+import {
+  diffDocuments,
+  diffFields,
+  type FieldChange,
+} from '@/features/sketch/components/document-diff';
 
 export interface RevisionSide {
   readonly revision: number;
@@ -22,7 +26,11 @@ export interface RevisionDiff {
   /** Elements (by id) and the document-level targets "spool" and "conditions" whose fields differ. */
   readonly changed: readonly { readonly target: string; readonly fields: readonly FieldChange[] }[];
   /** Elements present in both whose check status differs. */
-  readonly statusChanges: readonly { readonly id: string; readonly before: CheckStatus; readonly after: CheckStatus }[];
+  readonly statusChanges: readonly {
+    readonly id: string;
+    readonly before: CheckStatus;
+    readonly after: CheckStatus;
+  }[];
 }
 
 const SPOOL_FIELDS = ['units', 'name', 'line', 'origin', 'defaultBendRadius'] as const;
@@ -51,16 +59,30 @@ export function diffRevisions(a: RevisionSide, b: RevisionSide): RevisionDiff {
     } else if (c.target === 'spool') {
       const fields = diffFields(pick(a.document), pick(b.document));
       if (c.fields.includes('elements order')) {
-        const order = (d: SpoolDocument, keep: Map<string, unknown>) => d.elements.map((e) => e.id).filter((id) => keep.has(id)).join(' ');
-        fields.push({ field: 'elements order', before: order(a.document, newById), after: order(b.document, oldById) });
+        const order = (d: SpoolDocument, keep: Map<string, unknown>) =>
+          d.elements
+            .map((e) => e.id)
+            .filter((id) => keep.has(id))
+            .join(' ');
+        fields.push({
+          field: 'elements order',
+          before: order(a.document, newById),
+          after: order(b.document, oldById),
+        });
       }
       const existing = changed.find((x) => x.target === 'spool');
       if (existing) existing.fields.push(...fields);
       else if (fields.length > 0) changed.push({ target: 'spool', fields });
     } else if (c.target === 'conditions') {
-      changed.push({ target: 'conditions', fields: diffFields(a.document.conditions, b.document.conditions) });
+      changed.push({
+        target: 'conditions',
+        fields: diffFields(a.document.conditions, b.document.conditions),
+      });
     } else {
-      changed.push({ target: c.target, fields: diffFields(oldById.get(c.target), newById.get(c.target)) });
+      changed.push({
+        target: c.target,
+        fields: diffFields(oldById.get(c.target), newById.get(c.target)),
+      });
     }
   }
   const statusChanges: { id: string; before: CheckStatus; after: CheckStatus }[] = [];
@@ -68,7 +90,8 @@ export function diffRevisions(a: RevisionSide, b: RevisionSide): RevisionDiff {
     const before = new Map(a.check.elements.map((e) => [e.id, e.status]));
     for (const e of b.check.elements) {
       const was = before.get(e.id);
-      if (was !== undefined && was !== e.status) statusChanges.push({ id: e.id, before: was, after: e.status });
+      if (was !== undefined && was !== e.status)
+        statusChanges.push({ id: e.id, before: was, after: e.status });
     }
   }
   return { from: a.revision, to: b.revision, added, removed, changed, statusChanges };
@@ -83,4 +106,5 @@ export function formatDiffValue(v: unknown): string {
 }
 
 /** True when nothing differs. */
-export const isEmptyDiff = (d: RevisionDiff) => d.added.length + d.removed.length + d.changed.length + d.statusChanges.length === 0;
+export const isEmptyDiff = (d: RevisionDiff) =>
+  d.added.length + d.removed.length + d.changed.length + d.statusChanges.length === 0;

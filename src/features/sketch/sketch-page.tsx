@@ -13,12 +13,21 @@ import { readConflict, useUpdateSpool } from '@/features/spools/api/update-spool
 import { cn } from '@/lib/cn';
 import { useMaterials } from './api/get-materials';
 import { createSpoolStore, type SpoolStore } from './store/spool-store';
-import { SpoolStoreProvider, useSpoolCheck, useSpoolStore, useSpoolStoreApi } from './store/spool-store-context';
+import {
+  SpoolStoreProvider,
+  useSpoolCheck,
+  useSpoolStore,
+  useSpoolStoreApi,
+} from './store/spool-store-context';
 import { CanvasSlot } from './components/canvas-slot';
 import { CanvasTools } from './components/canvas-tools';
 import { ConditionsPanel } from './components/conditions-panel';
 import { ConflictPanel } from './components/conflict-panel';
-import { DisplayUnitsProvider, readStoredDisplayUnits, storeDisplayUnits } from './components/display-units';
+import {
+  DisplayUnitsProvider,
+  readStoredDisplayUnits,
+  storeDisplayUnits,
+} from './components/display-units';
 import { DrawingBar } from './components/drawing-bar';
 import { ElementInspector } from './components/element-inspector';
 import { ElementTable } from './components/element-table';
@@ -35,7 +44,15 @@ import type { CheckOptions } from '@shared/engine';
 
 type InspectorTab = 'element' | 'conditions' | 'review' | 'history';
 
-function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initialTab: InspectorTab; checkOptions: CheckOptions | undefined }) {
+function SketchScreen({
+  spool,
+  initialTab,
+  checkOptions,
+}: {
+  spool: Spool;
+  initialTab: InspectorTab;
+  checkOptions: CheckOptions | undefined;
+}) {
   const api = useSpoolStoreApi();
   const qc = useQueryClient();
   const role = useRole();
@@ -45,12 +62,17 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
   const [sharing, setSharing] = useState(false);
   const comments = useComments(spool.id);
   const openByElement = useMemo(() => countOpenByElement(comments.data ?? []), [comments.data]);
-  const openCount = useMemo(() => (comments.data ?? []).filter((c) => c.resolvedAt === null).length, [comments.data]);
+  const openCount = useMemo(
+    () => (comments.data ?? []).filter((c) => c.resolvedAt === null).length,
+    [comments.data],
+  );
   const doc = useSpoolStore((s) => s.doc);
   const isDirty = useSpoolStore((s) => s.isDirty);
   const selectedId = useSpoolStore((s) => s.selectedId);
   const check = useSpoolCheck();
-  const [displayUnits, setDisplayUnits] = useState<UnitSystem>(() => readStoredDisplayUnits() ?? spool.document.units);
+  const [displayUnits, setDisplayUnits] = useState<UnitSystem>(
+    () => readStoredDisplayUnits() ?? spool.document.units,
+  );
   const [tab, setTab] = useState<InspectorTab>(initialTab);
   // Stable, so the element list keeps its columns between renders.
   const selectElement = useCallback((id: string) => api.getState().select(id), [api]);
@@ -125,21 +147,42 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
           onImportIssues={setImportIssues}
           actions={
             canShare ? (
-              <Button size="sm" onClick={() => setSharing(true)} title="Read-only links for people without an account">
+              <Button
+                size="sm"
+                onClick={() => setSharing(true)}
+                title="Read-only links for people without an account"
+              >
                 Share…
               </Button>
             ) : null
           }
         />
-        {sharing ? <ShareDialog spoolId={spool.id} spoolName={spool.name || doc.name || 'spool'} currentRevision={spool.revision} onClose={() => setSharing(false)} /> : null}
-        {conflict ? <ConflictPanel mine={conflict.mine} current={conflict.current} onReload={reloadTheirs} onKeepEditing={keepMine} /> : null}
+        {sharing ? (
+          <ShareDialog
+            spoolId={spool.id}
+            spoolName={spool.name || doc.name || 'spool'}
+            currentRevision={spool.revision}
+            onClose={() => setSharing(false)}
+          />
+        ) : null}
+        {conflict ? (
+          <ConflictPanel
+            mine={conflict.mine}
+            current={conflict.current}
+            onReload={reloadTheirs}
+            onKeepEditing={keepMine}
+          />
+        ) : null}
         {saveError ? (
           <div className="px-3 py-1">
             <ErrorLine error={saveError} />
           </div>
         ) : null}
         {importIssues ? (
-          <div role="alert" className="border-b border-red-200 bg-red-50 px-3 py-2 text-sm text-red-800">
+          <div
+            role="alert"
+            className="border-b border-red-200 bg-red-50 px-3 py-2 text-sm text-red-800"
+          >
             <strong>Not imported:</strong>
             <ul className="list-disc pl-5 font-mono text-xs">
               {importIssues.slice(0, 20).map((iss, i) => (
@@ -148,7 +191,11 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
                 </li>
               ))}
             </ul>
-            <button type="button" className="text-xs underline" onClick={() => setImportIssues(null)}>
+            <button
+              type="button"
+              className="text-xs underline"
+              onClick={() => setImportIssues(null)}
+            >
               dismiss
             </button>
           </div>
@@ -164,10 +211,20 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
             </div>
             <CautionNote className="shrink-0 rounded-none border-t border-steel-200" />
             <div className="h-56 shrink-0 border-t border-steel-200 bg-white">
-              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={selectElement} markers={openByElement} onMarker={openThread} />
+              <ElementTable
+                elements={doc.elements}
+                checks={check.elements}
+                selectedId={selectedId}
+                onSelect={selectElement}
+                markers={openByElement}
+                onMarker={openThread}
+              />
             </div>
           </div>
-          <aside className="flex w-[26rem] shrink-0 flex-col border-l border-steel-200 bg-white" aria-label="Inspector">
+          <aside
+            className="flex w-[26rem] shrink-0 flex-col border-l border-steel-200 bg-white"
+            aria-label="Inspector"
+          >
             <div role="tablist" className="flex border-b border-steel-200 text-sm">
               {(
                 [
@@ -183,13 +240,22 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
                   role="tab"
                   aria-selected={tab === id}
                   onClick={() => setTab(id)}
-                  className={cn('flex-1 px-1.5 py-2 text-[13px]', tab === id ? 'border-b-2 border-copper-500 font-semibold text-steel-900' : 'text-steel-500 hover:text-steel-800')}
+                  className={cn(
+                    'flex-1 px-1.5 py-2 text-[13px]',
+                    tab === id
+                      ? 'border-b-2 border-copper-500 font-semibold text-steel-900'
+                      : 'text-steel-500 hover:text-steel-800',
+                  )}
                 >
                   {label}
                 </button>
               ))}
             </div>
-            <div role="tabpanel" aria-label={TAB_LABELS[tab]} className="min-h-0 flex-1 overflow-auto">
+            <div
+              role="tabpanel"
+              aria-label={TAB_LABELS[tab]}
+              className="min-h-0 flex-1 overflow-auto"
+            >
               {tab === 'element' ? <ElementInspector readOnly={!canEdit} /> : null}
               {tab === 'conditions' ? <ConditionsPanel readOnly={!canEdit} /> : null}
               {tab === 'review' ? (
@@ -202,7 +268,9 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
                   canComment={canComment}
                 />
               ) : null}
-              {tab === 'history' ? <HistoryPanel spoolId={spool.id} checkOptions={checkOptions} /> : null}
+              {tab === 'history' ? (
+                <HistoryPanel spoolId={spool.id} checkOptions={checkOptions} />
+              ) : null}
             </div>
           </aside>
         </div>
@@ -211,14 +279,28 @@ function SketchScreen({ spool, initialTab, checkOptions }: { spool: Spool; initi
   );
 }
 
-const TAB_LABELS: Record<InspectorTab, string> = { element: 'Selected element', conditions: 'Design conditions', review: 'Review', history: 'History' };
+const TAB_LABELS: Record<InspectorTab, string> = {
+  element: 'Selected element',
+  conditions: 'Design conditions',
+  review: 'Review',
+  history: 'History',
+};
 
-function SketchWorkspace({ initial, selectId, initialTab }: { initial: Spool; selectId: string | null; initialTab: InspectorTab }) {
+function SketchWorkspace({
+  initial,
+  selectId,
+  initialTab,
+}: {
+  initial: Spool;
+  selectId: string | null;
+  initialTab: InspectorTab;
+}) {
   const [store] = useState<SpoolStore>(() => {
     const s = createSpoolStore(initial.document);
     s.getState().load(initial.document, initial.version);
     // `?element=B1` (e.g. from the register's weakest-element link) opens with it selected.
-    if (selectId && initial.document.elements.some((e) => e.id === selectId)) s.getState().select(selectId);
+    if (selectId && initial.document.elements.some((e) => e.id === selectId))
+      s.getState().select(selectId);
     return s;
   });
   // Status, revision and version follow the query cache (saves and transitions update it).
@@ -226,7 +308,10 @@ function SketchWorkspace({ initial, selectId, initialTab }: { initial: Spool; se
   const spool = data ?? initial;
   // The team's own materials join the picker and the check (the server checks with them too).
   const materials = useMaterials();
-  const choices = useMemo(() => (materials.data ? toMaterialChoices(materials.data) : undefined), [materials.data]);
+  const choices = useMemo(
+    () => (materials.data ? toMaterialChoices(materials.data) : undefined),
+    [materials.data],
+  );
   const checkOptions = useMemo(() => {
     const team = materials.data?.filter((m) => m.origin === 'team') ?? [];
     return team.length > 0 ? { findMaterial: createMaterialLookup(team) } : undefined;
@@ -255,5 +340,12 @@ export function SketchPage() {
   // `?panel=review` (from the waiting list) opens the review thread beside the inspector.
   const panel = params.get('panel');
   const initialTab: InspectorTab = panel === 'review' || panel === 'history' ? panel : 'element';
-  return <SketchWorkspace key={query.data.id} initial={query.data} selectId={params.get('element')} initialTab={initialTab} />;
+  return (
+    <SketchWorkspace
+      key={query.data.id}
+      initial={query.data}
+      selectId={params.get('element')}
+      initialTab={initialTab}
+    />
+  );
 }

@@ -359,26 +359,22 @@ async function moreDesignerJourney(ctx: BrowserContext, base: string, shared: E2
           `exported ${doc.elements.length} elements, T ${doc.conditions.temperature}`,
         );
         const shorter = { ...doc, elements: doc.elements.slice(0, 5) };
-        await page
-          .getByTestId('import-input')
-          .setInputFiles({
-            name: 'shorter.spool.json',
-            mimeType: 'application/json',
-            buffer: Buffer.from(JSON.stringify(shorter)),
-          });
+        await page.getByTestId('import-input').setInputFiles({
+          name: 'shorter.spool.json',
+          mimeType: 'application/json',
+          buffer: Buffer.from(JSON.stringify(shorter)),
+        });
         await waitRows(page, 5);
         await page.getByTestId('dirty').waitFor();
         const bad = {
           ...doc,
           elements: [{ id: 'X1', kind: 'straight', nps: '2', schedule: '40', length: -3 }],
         };
-        await page
-          .getByTestId('import-input')
-          .setInputFiles({
-            name: 'bad.json',
-            mimeType: 'application/json',
-            buffer: Buffer.from(JSON.stringify(bad)),
-          });
+        await page.getByTestId('import-input').setInputFiles({
+          name: 'bad.json',
+          mimeType: 'application/json',
+          buffer: Buffer.from(JSON.stringify(bad)),
+        });
         const alert = page.getByText('Not imported:').locator('..');
         await alert.waitFor();
         const alertText = await alert.textContent();

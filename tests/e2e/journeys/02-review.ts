@@ -42,16 +42,34 @@ function reviewDocument(name: string) {
     units: 'imperial',
     name,
     line: '2"-RV-0902-A1',
-    conditions: { pressure: 1100, temperature: 100, material: 'A106-B', corrosionAllowance: 0.0625, millTolerance: 0.125 },
+    conditions: {
+      pressure: 1100,
+      temperature: 100,
+      material: 'A106-B',
+      corrosionAllowance: 0.0625,
+      millTolerance: 0.125,
+    },
     elements: [
       { kind: 'straight', id: 'S1', nps: '2', schedule: '80', direction: 'east', length: 36 },
-      { kind: 'bend', id: 'B1', nps: '2', schedule: '40', direction: 'north', bendRadius: { multipleOfD: 1.5 }, angle: 90 },
+      {
+        kind: 'bend',
+        id: 'B1',
+        nps: '2',
+        schedule: '40',
+        direction: 'north',
+        bendRadius: { multipleOfD: 1.5 },
+        angle: 90,
+      },
       { kind: 'straight', id: 'S2', nps: '2', schedule: '80', direction: 'north', length: 36 },
     ],
   };
 }
 
-async function signedIn(browser: Browser, base: string, email: string): Promise<{ ctx: BrowserContext; page: Page }> {
+async function signedIn(
+  browser: Browser,
+  base: string,
+  email: string,
+): Promise<{ ctx: BrowserContext; page: Page }> {
   // bypassCSP lets axe's script be injected once the server sends a Content-Security-Policy.
   const ctx = await newContext(browser, { bypassCSP: true });
   const page = await openPage(ctx);
@@ -72,7 +90,9 @@ async function clickElementOnCanvas(page: Page, id: string) {
     const pt = await projectElement(page, id);
     if (pt) {
       await page.mouse.click(pt.x, pt.y);
-      await page.locator(`[data-testid="element-table"] tr[data-element-id="${id}"][aria-selected="true"]`).waitFor();
+      await page
+        .locator(`[data-testid="element-table"] tr[data-element-id="${id}"][aria-selected="true"]`)
+        .waitFor();
       return;
     }
   }
@@ -101,7 +121,10 @@ export const reviewJourney: E2EJourney = {
       async () => {
         await step(STEPS[0], async () => {
           const { page } = track(await signedIn(browser, base, 'designer@spoolwright.test'));
-          const made = await page.request.post(`${base}/api/spools`, { data: { document: reviewDocument(name) }, headers: { Origin: base } });
+          const made = await page.request.post(`${base}/api/spools`, {
+            data: { document: reviewDocument(name) },
+            headers: { Origin: base },
+          });
           expect(made.ok(), `create answered ${made.status()} ${await made.text()}`);
           spoolId = ((await made.json()) as { id: string }).id;
           await openSpool(page, base, spoolId);
@@ -124,12 +147,24 @@ export const reviewJourney: E2EJourney = {
           await page.getByRole('tab', { name: /^Review/ }).click();
           const panel = page.getByTestId('review-panel');
           await panel.waitFor();
-          expect((await page.getByLabel('Pin to').inputValue()) === 'B1', 'the new comment is not pinned to the selected bend');
-          for (const text of ['Intrados wall short at 1100 psi: order Sch 80 bend pipe', 'Confirm the 1.5D radius with the bending shop']) {
+          expect(
+            (await page.getByLabel('Pin to').inputValue()) === 'B1',
+            'the new comment is not pinned to the selected bend',
+          );
+          for (const text of [
+            'Intrados wall short at 1100 psi: order Sch 80 bend pipe',
+            'Confirm the 1.5D radius with the bending shop',
+          ]) {
             await page.getByLabel(/New comment on revision/).fill(text);
             await page.getByRole('button', { name: 'Add comment' }).click();
             await page.locator('[data-testid="comment"]', { hasText: text }).waitFor();
-            await page.waitForFunction(() => (document.getElementById('new-comment-body') as HTMLTextAreaElement | null)?.value === '', null, { timeout: STEP_TIMEOUT });
+            await page.waitForFunction(
+              () =>
+                (document.getElementById('new-comment-body') as HTMLTextAreaElement | null)
+                  ?.value === '',
+              null,
+              { timeout: STEP_TIMEOUT },
+            );
           }
           await page.getByRole('tab', { name: 'Review (2)' }).waitFor();
           await page.getByTestId('comment-badge-B1').waitFor();
@@ -159,18 +194,27 @@ export const reviewJourney: E2EJourney = {
           expect(moved > 5, `the badge stayed put (${moved.toFixed(1)} px) while the view moved`);
           // the badge sits 6 px right of and 26 px above the bend's centre (the hook's point may lie a little along the arc)
           const off = Math.hypot(after!.x - (pt!.x + 6), after!.y - (pt!.y - 26));
-          expect(off < 15, `badge at ${after!.x},${after!.y}; bend at ${pt!.x},${pt!.y} (${off.toFixed(1)} px off)`);
+          expect(
+            off < 15,
+            `badge at ${after!.x},${after!.y}; bend at ${pt!.x},${pt!.y} (${off.toFixed(1)} px off)`,
+          );
           // badge: selects the element and opens its thread
           await page.locator('[data-testid="element-table"] tr[data-element-id="S1"]').click();
           await page.getByRole('tab', { name: 'Selected element' }).click();
           await badge.click();
-          await page.locator('[data-testid="element-table"] tr[data-element-id="B1"][aria-selected="true"]').waitFor();
+          await page
+            .locator('[data-testid="element-table"] tr[data-element-id="B1"][aria-selected="true"]')
+            .waitFor();
           await page.locator('[data-thread="B1"]').waitFor();
           // list marker: the same
           await page.getByRole('tab', { name: 'Selected element' }).click();
           await page.getByTestId('comment-marker-B1').click();
           await page.locator('[data-thread="B1"]').waitFor();
-          expect((await page.getByRole('tab', { name: /^Review/ }).getAttribute('aria-selected')) === 'true', 'the review tab is not open');
+          expect(
+            (await page.getByRole('tab', { name: /^Review/ }).getAttribute('aria-selected')) ===
+              'true',
+            'the review tab is not open',
+          );
         });
 
         await step(STEPS[3], async () => {
@@ -179,8 +223,14 @@ export const reviewJourney: E2EJourney = {
           const alert = page.getByRole('alert').filter({ hasText: 'still open' });
           await alert.waitFor();
           const text = (await alert.textContent()) ?? '';
-          expect(text.includes('B1') && text.includes('Intrados wall short'), `refusal reads "${text}"`);
-          expect((await page.locator('[data-lifecycle="submitted"]').count()) === 1, 'the spool left "submitted"');
+          expect(
+            text.includes('B1') && text.includes('Intrados wall short'),
+            `refusal reads "${text}"`,
+          );
+          expect(
+            (await page.locator('[data-lifecycle="submitted"]').count()) === 1,
+            'the spool left "submitted"',
+          );
           await screenshot(page, 'review-mark-checked-refused');
         });
 
@@ -196,12 +246,16 @@ export const reviewJourney: E2EJourney = {
           await form.waitFor();
           await form.getByRole('button', { name: 'Return with this note' }).click();
           await form.getByRole('alert').filter({ hasText: 'Note' }).waitFor();
-          await form.getByLabel(/Why is it returned/).fill('B1 fails at the intrados; see the two comments on it.');
+          await form
+            .getByLabel(/Why is it returned/)
+            .fill('B1 fails at the intrados; see the two comments on it.');
           await screenshot(page, 'review-return-note');
           await form.getByRole('button', { name: 'Return with this note' }).click();
           await page.locator('[data-lifecycle="draft"]').waitFor();
           expect(!prompted, 'a browser prompt was shown');
-          await page.locator('[data-testid="comment"]', { hasText: 'see the two comments' }).waitFor();
+          await page
+            .locator('[data-testid="comment"]', { hasText: 'see the two comments' })
+            .waitFor();
         });
 
         const designer = track(await signedIn(browser, base, 'designer@spoolwright.test'));
@@ -211,13 +265,18 @@ export const reviewJourney: E2EJourney = {
           await row.waitFor();
           const text = (await row.textContent()) ?? '';
           expect(text.includes('3 open comments'), `waiting row reads "${text}"`);
-          expect(text.includes('Intrados wall short') && text.includes('see the two comments'), `waiting row lacks the comments: "${text}"`);
+          expect(
+            text.includes('Intrados wall short') && text.includes('see the two comments'),
+            `waiting row lacks the comments: "${text}"`,
+          );
           expect((await waitingCount(page)) >= 1, 'header count is 0');
           await screenshot(page, 'review-register-waiting-designer');
           // the comment's link opens the spool with the bend selected and its thread beside it
           await row.getByRole('link', { name: 'B1' }).first().click();
           await page.getByTestId('review-panel').waitFor();
-          await page.locator('[data-testid="element-table"] tr[data-element-id="B1"][aria-selected="true"]').waitFor();
+          await page
+            .locator('[data-testid="element-table"] tr[data-element-id="B1"][aria-selected="true"]')
+            .waitFor();
         });
 
         await step(STEPS[6], async () => {
@@ -227,7 +286,12 @@ export const reviewJourney: E2EJourney = {
           const lightest = (await page.getByTestId('lightest-schedule').textContent())?.trim();
           await page.getByRole('button', { name: `Use schedule ${lightest}` }).click();
           await page.waitForFunction(
-            () => document.querySelector('[data-testid="element-table"] tr[data-element-id="B1"] [data-check-status]')?.getAttribute('data-check-status') === 'pass',
+            () =>
+              document
+                .querySelector(
+                  '[data-testid="element-table"] tr[data-element-id="B1"] [data-check-status]',
+                )
+                ?.getAttribute('data-check-status') === 'pass',
             null,
             { timeout: STEP_TIMEOUT },
           );
@@ -239,11 +303,26 @@ export const reviewJourney: E2EJourney = {
             const n = await open.count();
             expect(n === 3 - i, `${n} open comments before resolving #${i + 1}`);
             await open.first().getByRole('button', { name: 'Resolve' }).click();
-            await page.waitForFunction((want) => document.querySelectorAll('[data-testid="comment"][data-resolved="false"]').length === want, 2 - i, { timeout: STEP_TIMEOUT });
+            await page.waitForFunction(
+              (want) =>
+                document.querySelectorAll('[data-testid="comment"][data-resolved="false"]')
+                  .length === want,
+              2 - i,
+              { timeout: STEP_TIMEOUT },
+            );
           }
-          expect((await page.getByTestId('comment-badge-B1').count()) === 0, 'the badge stayed after resolving');
+          expect(
+            (await page.getByTestId('comment-badge-B1').count()) === 0,
+            'the badge stayed after resolving',
+          );
           await page.getByRole('radio', { name: 'resolved' }).click();
-          await page.waitForFunction(() => document.querySelectorAll('[data-testid="comment"][data-resolved="true"]').length === 3, null, { timeout: STEP_TIMEOUT });
+          await page.waitForFunction(
+            () =>
+              document.querySelectorAll('[data-testid="comment"][data-resolved="true"]').length ===
+              3,
+            null,
+            { timeout: STEP_TIMEOUT },
+          );
           await page.getByRole('button', { name: 'Submit for check' }).click();
           await page.locator('[data-lifecycle="submitted"]').waitFor();
         });
@@ -274,7 +353,10 @@ export const reviewJourney: E2EJourney = {
           await link.waitFor();
           shareUrl = await link.inputValue();
           expect(shareUrl.startsWith(`${base}/share/`), `share link is ${shareUrl}`);
-          await dialog.locator('[data-testid="share-list"] tr[data-state="active"]').first().waitFor();
+          await dialog
+            .locator('[data-testid="share-list"] tr[data-state="active"]')
+            .first()
+            .waitFor();
           await screenshot(page, 'share-dialog');
           const axe = await seriousViolations(page);
           expect(axe.length === 0, `axe with the share dialog open:\n${axe.join('\n')}`);
@@ -294,21 +376,51 @@ export const reviewJourney: E2EJourney = {
           await visitor.getByTestId('share-banner').waitFor();
           expect(!visitor.url().includes('/sign-in'), `went to ${visitor.url()}`);
           const banner = (await visitor.getByTestId('share-banner').textContent()) ?? '';
-          for (const want of [name, '2"-RV-0902-A1', 'revision 0', 'Released', 'Shared by', 'until']) {
+          for (const want of [
+            name,
+            '2"-RV-0902-A1',
+            'revision 0',
+            'Released',
+            'Shared by',
+            'until',
+          ]) {
             expect(banner.includes(want), `banner lacks "${want}": ${banner}`);
           }
           const pdf = visitor.getByRole('link', { name: 'Download calc sheet (PDF)' });
-          expect((await pdf.getAttribute('href'))?.endsWith('/calc-sheet.pdf'), 'no calc sheet link');
+          expect(
+            (await pdf.getAttribute('href'))?.endsWith('/calc-sheet.pdf'),
+            'no calc sheet link',
+          );
           await visitor.locator('[data-testid="element-table"] tr[data-element-id="B1"]').click();
           await visitor.locator('[data-testid="inspector"][data-element-id="B1"]').waitFor();
-          expect((await statusOf(visitor, 'B1')) === 'pass', `shared B1 is ${await statusOf(visitor, 'B1')}`);
+          expect(
+            (await statusOf(visitor, 'B1')) === 'pass',
+            `shared B1 is ${await statusOf(visitor, 'B1')}`,
+          );
           expect((await visitor.getByTestId('trail-step').count()) > 0, 'no equation trail');
           expect((await visitor.getByTestId('caution').count()) > 0, 'no caution');
-          for (const label of [/^Save/, /^Draw leg/, /^Use schedule/, /^Submit/, /^Share/, /^Apply/, /^Import/]) {
-            expect((await visitor.getByRole('button', { name: label }).count()) === 0, `an editing control ${String(label)} is shown`);
+          for (const label of [
+            /^Save/,
+            /^Draw leg/,
+            /^Use schedule/,
+            /^Submit/,
+            /^Share/,
+            /^Apply/,
+            /^Import/,
+          ]) {
+            expect(
+              (await visitor.getByRole('button', { name: label }).count()) === 0,
+              `an editing control ${String(label)} is shown`,
+            );
           }
-          expect(await visitor.getByLabel('Schedule').isDisabled(), 'the schedule picker is editable');
-          expect((await visitor.getByRole('link', { name: 'Spool register' }).count()) === 0, 'team navigation is shown');
+          expect(
+            await visitor.getByLabel('Schedule').isDisabled(),
+            'the schedule picker is editable',
+          );
+          expect(
+            (await visitor.getByRole('link', { name: 'Spool register' }).count()) === 0,
+            'team navigation is shown',
+          );
           const foreign = apiCalls.filter((p) => !p.startsWith('/api/share/'));
           expect(foreign.length === 0, `the public page called ${foreign.join(', ')}`);
           await screenshot(visitor, 'share-public-page');
@@ -319,8 +431,15 @@ export const reviewJourney: E2EJourney = {
         await step(STEPS[10], async () => {
           const page = lead.page;
           const dialog = page.getByRole('dialog', { name: 'Share spool' });
-          await dialog.locator('[data-testid="share-list"] tr[data-state="active"]').first().getByRole('button', { name: 'Revoke' }).click();
-          await dialog.locator('[data-testid="share-list"] tr[data-state="revoked"]').first().waitFor();
+          await dialog
+            .locator('[data-testid="share-list"] tr[data-state="active"]')
+            .first()
+            .getByRole('button', { name: 'Revoke' })
+            .click();
+          await dialog
+            .locator('[data-testid="share-list"] tr[data-state="revoked"]')
+            .first()
+            .waitFor();
           await screenshot(page, 'share-dialog-revoked');
           await dialog.getByRole('button', { name: 'Close' }).click();
           await visitor.reload();
@@ -328,7 +447,10 @@ export const reviewJourney: E2EJourney = {
           const text = (await visitor.getByTestId('share-revoked').textContent()) ?? '';
           expect(text.includes('revoked'), `page reads "${text}"`);
           expect(!visitor.url().includes('/sign-in'), 'a revoked link led to sign-in');
-          expect((await visitor.getByTestId('element-table').count()) === 0, 'the revoked page still shows the spool');
+          expect(
+            (await visitor.getByTestId('element-table').count()) === 0,
+            'the revoked page still shows the spool',
+          );
           await screenshot(visitor, 'share-revoked');
           const axe = await seriousViolations(visitor);
           expect(axe.length === 0, `axe on the revoked page:\n${axe.join('\n')}`);
@@ -341,33 +463,67 @@ export const reviewJourney: E2EJourney = {
             version: number;
             document: { elements: { id: string; length?: number }[] };
           };
-          const doc = { ...cur.document, elements: cur.document.elements.map((e) => (e.id === 'S2' ? { ...e, length: 40 } : e)) };
-          const put = await page.request.put(`${base}/api/spools/${spoolId}`, { data: { document: doc, baseVersion: cur.version }, headers: { Origin: base } });
+          const doc = {
+            ...cur.document,
+            elements: cur.document.elements.map((e) => (e.id === 'S2' ? { ...e, length: 40 } : e)),
+          };
+          const put = await page.request.put(`${base}/api/spools/${spoolId}`, {
+            data: { document: doc, baseVersion: cur.version },
+            headers: { Origin: base },
+          });
           expect(put.ok(), `edit answered ${put.status()}`);
           expect(((await put.json()) as { revision: number }).revision === 1, 'no new revision');
           await openSpool(page, base, spoolId);
           await page.getByRole('tab', { name: 'History' }).click();
           const history = page.getByTestId('history-panel');
           await history.waitFor();
-          await page.waitForFunction(() => document.querySelectorAll('[data-testid="event"]').length >= 6, null, { timeout: STEP_TIMEOUT });
+          await page.waitForFunction(
+            () => document.querySelectorAll('[data-testid="event"]').length >= 6,
+            null,
+            { timeout: STEP_TIMEOUT },
+          );
           const moves = await page.getByTestId('event-move').allTextContents();
-          for (const m of ['draft → submitted', 'submitted → draft', 'submitted → checked', 'checked → released']) {
-            expect(moves.some((x) => x.includes(m)), `events lack "${m}": ${moves.join(' | ')}`);
+          for (const m of [
+            'draft → submitted',
+            'submitted → draft',
+            'submitted → checked',
+            'checked → released',
+          ]) {
+            expect(
+              moves.some((x) => x.includes(m)),
+              `events lack "${m}": ${moves.join(' | ')}`,
+            );
           }
-          expect(((await history.textContent()) ?? '').includes('see the two comments'), 'the return note is not in the history');
+          expect(
+            ((await history.textContent()) ?? '').includes('see the two comments'),
+            'the return note is not in the history',
+          );
           await page.locator('[data-change="S2.length"]').waitFor();
           const change = (await page.locator('[data-change="S2.length"]').textContent()) ?? '';
           expect(change.includes('36 → 40'), `comparison reads "${change}"`);
           await screenshot(page, 'review-history');
-          await history.locator('li[data-revision="0"]').getByRole('link', { name: 'Open read-only' }).click();
+          await history
+            .locator('li[data-revision="0"]')
+            .getByRole('link', { name: 'Open read-only' })
+            .click();
           const banner = page.getByTestId('revision-banner');
           await banner.waitFor();
           expect((await banner.getAttribute('data-revision')) === '0', 'wrong revision opened');
           await page.locator('[data-testid="element-table"] tr[data-element-id="S2"]').click();
           await page.locator('[data-testid="inspector"][data-element-id="S2"]').waitFor();
-          expect((await page.getByLabel('Length (in)', { exact: true }).inputValue()) === '36', `rev. 0 S2 length reads ${await page.getByLabel('Length (in)', { exact: true }).inputValue()}`);
-          expect((await page.getByRole('button', { name: /^Save|^Draw leg|^Use schedule/ }).count()) === 0, 'editing controls on a read-only revision');
-          expect(await page.getByLabel('Length (in)', { exact: true }).isDisabled(), 'length is editable on a read-only revision');
+          expect(
+            (await page.getByLabel('Length (in)', { exact: true }).inputValue()) === '36',
+            `rev. 0 S2 length reads ${await page.getByLabel('Length (in)', { exact: true }).inputValue()}`,
+          );
+          expect(
+            (await page.getByRole('button', { name: /^Save|^Draw leg|^Use schedule/ }).count()) ===
+              0,
+            'editing controls on a read-only revision',
+          );
+          expect(
+            await page.getByLabel('Length (in)', { exact: true }).isDisabled(),
+            'length is editable on a read-only revision',
+          );
           await screenshot(page, 'review-revision-read-only');
           await banner.getByRole('link', { name: /Back to the current revision/ }).click();
           await page.getByTestId('sketcher').waitFor();
@@ -383,7 +539,9 @@ export const reviewJourney: E2EJourney = {
           expect(signin.ok(), `admin sign-in answered ${signin.status()}`);
           const r = await adminCtx.request.get(`${base}/api/admin/outbox?limit=200`);
           expect(r.ok(), `outbox answered ${r.status()}`);
-          const { items } = (await r.json()) as { items: { to: string; subject: string; text: string }[] };
+          const { items } = (await r.json()) as {
+            items: { to: string; subject: string; text: string }[];
+          };
           const mine = items.filter((m) => m.subject.includes(name));
           const want: [string, string][] = [
             [`Spool ${name} submitted`, 'checker@spoolwright.test'],
@@ -393,10 +551,19 @@ export const reviewJourney: E2EJourney = {
           ];
           for (const [subject, to] of want) {
             const m = mine.find((x) => x.subject === subject && x.to.includes(to));
-            expect(m, `no mail "${subject}" to ${to}; have: ${mine.map((x) => `${x.subject} → ${x.to}`).join(' | ')}`);
-            expect(m.text.includes(`${base}/spools/${spoolId}`), `mail "${subject}" lacks the spool link: ${m.text}`);
+            expect(
+              m,
+              `no mail "${subject}" to ${to}; have: ${mine.map((x) => `${x.subject} → ${x.to}`).join(' | ')}`,
+            );
+            expect(
+              m.text.includes(`${base}/spools/${spoolId}`),
+              `mail "${subject}" lacks the spool link: ${m.text}`,
+            );
           }
-          expect(mine.filter((x) => x.subject === `Spool ${name} submitted`).length === 2, 'the resubmission was not mailed');
+          expect(
+            mine.filter((x) => x.subject === `Spool ${name} submitted`).length === 2,
+            'the resubmission was not mailed',
+          );
         });
       },
       [...STEPS],

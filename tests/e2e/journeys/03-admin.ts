@@ -41,7 +41,13 @@ const CSV_MATERIAL_ID = `KX-C-${stamp}`;
  * The newest mail to `to` containing `link`: from the server's mailbox folder, or (while the
  * server still keeps links in its outbox rows) from the admin outbox.
  */
-async function waitForMailText(admin: Page, base: string, shared: E2EShared, to: string, link: RegExp): Promise<string> {
+async function waitForMailText(
+  admin: Page,
+  base: string,
+  shared: E2EShared,
+  to: string,
+  link: RegExp,
+): Promise<string> {
   const deadline = Date.now() + 15_000;
   while (Date.now() < deadline) {
     if (shared.dataDir) {
@@ -54,7 +60,10 @@ async function waitForMailText(admin: Page, base: string, shared: E2EShared, to:
     const r = await admin.request.get(`${base}/api/admin/outbox?limit=100`);
     if (r.ok()) {
       const items = ((await r.json()) as { items: { to: string; text: string }[] }).items;
-      const hit = items.find((i) => i.to.toLowerCase().includes(to.toLowerCase()) && link.test(i.text) && !seen.has(i.text));
+      const hit = items.find(
+        (i) =>
+          i.to.toLowerCase().includes(to.toLowerCase()) && link.test(i.text) && !seen.has(i.text),
+      );
       if (hit) {
         seen.add(hit.text);
         return hit.text;
@@ -90,7 +99,9 @@ export const adminJourney: E2EJourney = {
           await signIn(admin, base, 'admin@spoolwright.test');
           await admin.getByRole('link', { name: 'Members' }).click();
           await admin.getByRole('heading', { name: 'Team members' }).waitFor();
-          await admin.locator('[data-testid="members"] tr[data-member="admin@spoolwright.test"]').waitFor();
+          await admin
+            .locator('[data-testid="members"] tr[data-member="admin@spoolwright.test"]')
+            .waitFor();
           await screenshot(admin, 'admin-members');
         });
         await step(STEPS[1]!, async () => {
@@ -102,17 +113,30 @@ export const adminJourney: E2EJourney = {
           await form.getByLabel('Role').selectOption('checker');
           await form.getByRole('button', { name: 'Send invitation' }).click();
           await admin.getByText(`Invitation sent to ${NEW_EMAIL}`).waitFor();
-          await admin.locator(`[data-testid="invitations"] tr[data-invitation="${NEW_EMAIL}"][data-state="pending"]`).waitFor();
+          await admin
+            .locator(
+              `[data-testid="invitations"] tr[data-invitation="${NEW_EMAIL}"][data-state="pending"]`,
+            )
+            .waitFor();
           await screenshot(admin, 'admin-members-invited');
         });
         await step(STEPS[2]!, async () => {
-          const text = await waitForMailText(admin, base, shared, NEW_EMAIL, /accept-invite\?token=/);
+          const text = await waitForMailText(
+            admin,
+            base,
+            shared,
+            NEW_EMAIL,
+            /accept-invite\?token=/,
+          );
           const url = /(https?:\/\/\S+\/accept-invite\?token=[A-Za-z0-9_-]+)/.exec(text)?.[1];
           expect(url?.startsWith(base), `invitation link ${url}`);
           member = await openPage(memberCtx);
           await member.goto(url!);
           await member.getByTestId('invited-role').waitFor();
-          expect((await member.getByTestId('invited-role').textContent()) === 'Checker', 'invited as checker');
+          expect(
+            (await member.getByTestId('invited-role').textContent()) === 'Checker',
+            'invited as checker',
+          );
           await screenshot(member, 'accept-invite');
           await member.getByLabel('New password').fill(FIRST_PASSWORD);
           await member.getByLabel('Repeat the password').fill(FIRST_PASSWORD);
@@ -132,18 +156,35 @@ export const adminJourney: E2EJourney = {
           const row = admin.locator(`[data-testid="members"] tr[data-member="${NEW_EMAIL}"]`);
           await row.getByLabel(`Role of ${NEW_NAME}`).selectOption('designer');
           await admin.waitForFunction(
-            (email) => (document.querySelector(`[data-testid="members"] tr[data-member="${email}"] select`) as HTMLSelectElement | null)?.value === 'designer',
+            (email) =>
+              (
+                document.querySelector(
+                  `[data-testid="members"] tr[data-member="${email}"] select`,
+                ) as HTMLSelectElement | null
+              )?.value === 'designer',
             NEW_EMAIL,
           );
-          await admin.locator(`[data-testid="invitations"] tr[data-invitation="${NEW_EMAIL}"][data-state="accepted"]`).waitFor();
+          await admin
+            .locator(
+              `[data-testid="invitations"] tr[data-invitation="${NEW_EMAIL}"][data-state="accepted"]`,
+            )
+            .waitFor();
           await member!.reload();
-          await member!.getByTestId('role').filter({ hasText: /designer/i }).waitFor();
+          await member!
+            .getByTestId('role')
+            .filter({ hasText: /designer/i })
+            .waitFor();
         });
         await step(STEPS[4]!, async () => {
-          const row = admin.locator('[data-testid="members"] tr[data-member="admin@spoolwright.test"]');
+          const row = admin.locator(
+            '[data-testid="members"] tr[data-member="admin@spoolwright.test"]',
+          );
           await row.getByText("The team's only admin").waitFor();
           await row.getByLabel(/^Role of /).selectOption('lead');
-          await row.getByRole('alert').filter({ hasText: 'A team keeps at least one admin' }).waitFor();
+          await row
+            .getByRole('alert')
+            .filter({ hasText: 'A team keeps at least one admin' })
+            .waitFor();
           const value = await row.locator('select').inputValue();
           expect(value === 'admin', `role stays admin (${value})`);
           await screenshot(admin, 'admin-members-last-admin');
@@ -154,7 +195,9 @@ export const adminJourney: E2EJourney = {
         await step(STEPS[5]!, async () => {
           await admin.getByRole('link', { name: 'Materials' }).click();
           await admin.getByRole('heading', { name: 'Materials library' }).waitFor();
-          await admin.locator('[data-testid="materials"] tr[data-material="A106-B"][data-origin="library"]').waitFor();
+          await admin
+            .locator('[data-testid="materials"] tr[data-material="A106-B"][data-origin="library"]')
+            .waitFor();
           await screenshot(admin, 'admin-materials');
           const form = admin.getByRole('form', { name: 'Add a team material' });
           await form.getByRole('button', { name: 'Add material' }).click();
@@ -170,47 +213,84 @@ export const adminJourney: E2EJourney = {
           await form.getByRole('button', { name: 'Add a temperature row' }).click();
           await form.getByLabel(/^Row 2: temperature/).fill('400');
           await form.getByLabel(/^Row 2: allowable stress/).fill('19.5');
-          await form.getByLabel('Source note', { exact: true }).fill('Owner spec KX rev C, table 2');
+          await form
+            .getByLabel('Source note', { exact: true })
+            .fill('Owner spec KX rev C, table 2');
           await form.getByLabel(/recalled from memory/).check();
           await form.getByRole('button', { name: 'Add material' }).click();
           // The re-check runs as a background job: the note counts up, then says how many.
           await form.locator('[data-testid="rechecked"]:not([data-running])').waitFor();
           const note = await form.getByTestId('rechecked').textContent();
           expect(/^\d+ spools? re-checked/.test(note ?? ''), `re-check note "${note}"`);
-          const row = admin.locator(`[data-testid="materials"] tr[data-material="${MATERIAL_ID}"][data-origin="team"]`);
+          const row = admin.locator(
+            `[data-testid="materials"] tr[data-material="${MATERIAL_ID}"][data-origin="team"]`,
+          );
           await row.getByText('Owner spec KX rev C, table 2').waitFor();
-          expect((await row.locator('[data-from-memory]').textContent()) === 'yes', 'from-memory flag shown');
+          expect(
+            (await row.locator('[data-from-memory]').textContent()) === 'yes',
+            'from-memory flag shown',
+          );
         });
         await step(STEPS[6]!, async () => {
           const bad = `id,spec,grade,tensile_ksi,yield_ksi,temp_f,stress_ksi\n${CSV_MATERIAL_ID},Owner spec KX,C,60,35,100,20\n${CSV_MATERIAL_ID},Owner spec KX,C,60,35,300,abc\n`;
-          await admin.getByLabel('CSV file', { exact: true }).setInputFiles({ name: 'materials.csv', mimeType: 'text/csv', buffer: Buffer.from(bad) });
+          await admin.getByLabel('CSV file', { exact: true }).setInputFiles({
+            name: 'materials.csv',
+            mimeType: 'text/csv',
+            buffer: Buffer.from(bad),
+          });
           await admin.getByLabel('Source note for the file').fill('Owner spec KX rev C, table 3');
           await admin.getByRole('button', { name: 'Check the file' }).click();
-          const issue = admin.locator('[data-testid="csv-issues"] tr[data-line="3"][data-column="stress_ksi"]');
+          const issue = admin.locator(
+            '[data-testid="csv-issues"] tr[data-line="3"][data-column="stress_ksi"]',
+          );
           await issue.waitFor();
           await issue.scrollIntoViewIfNeeded();
           await screenshot(admin, 'admin-materials-csv-errors');
-          expect((await admin.getByRole('button', { name: /^Import \d/ }).count()) === 0, 'no import while the file has problems');
+          expect(
+            (await admin.getByRole('button', { name: /^Import \d/ }).count()) === 0,
+            'no import while the file has problems',
+          );
           const fixed = bad.replace(',300,abc', ',300,19.8');
-          await admin.getByLabel('CSV file', { exact: true }).setInputFiles({ name: 'materials.csv', mimeType: 'text/csv', buffer: Buffer.from(fixed) });
+          await admin.getByLabel('CSV file', { exact: true }).setInputFiles({
+            name: 'materials.csv',
+            mimeType: 'text/csv',
+            buffer: Buffer.from(fixed),
+          });
           await admin.getByRole('button', { name: 'Check the file' }).click();
           await admin.getByTestId('materials-preview').waitFor();
           await admin.getByRole('button', { name: 'Import 1 material' }).click();
           await admin.getByText(/^Imported 1 material/).waitFor();
-          await admin.locator(`[data-testid="materials"] tr[data-material="${CSV_MATERIAL_ID}"][data-origin="team"]`).waitFor();
+          await admin
+            .locator(
+              `[data-testid="materials"] tr[data-material="${CSV_MATERIAL_ID}"][data-origin="team"]`,
+            )
+            .waitFor();
         });
         await step(STEPS[7]!, async () => {
           await admin.getByRole('link', { name: 'Line-list import' }).click();
           await admin.getByRole('heading', { name: 'Line-list import' }).waitFor();
           const names = [`LL-${stamp}-1`, `LL-${stamp}-2`];
           const bad = `name,line,pressure,temperature,material\n${names[0]},2"-P-${stamp}-1,150,100,A106-B\n${names[1]},2"-P-${stamp}-2,high,100,A106-B\n`;
-          await admin.getByLabel('Line-list CSV').setInputFiles({ name: 'line-list.csv', mimeType: 'text/csv', buffer: Buffer.from(bad) });
+          await admin.getByLabel('Line-list CSV').setInputFiles({
+            name: 'line-list.csv',
+            mimeType: 'text/csv',
+            buffer: Buffer.from(bad),
+          });
           await admin.getByRole('button', { name: 'Check the file' }).click();
-          await admin.locator('[data-testid="csv-issues"] tr[data-line="3"][data-column="pressure"]').waitFor();
-          expect((await admin.getByRole('button', { name: /^Create \d/ }).count()) === 0, 'nothing to create while a cell is bad');
+          await admin
+            .locator('[data-testid="csv-issues"] tr[data-line="3"][data-column="pressure"]')
+            .waitFor();
+          expect(
+            (await admin.getByRole('button', { name: /^Create \d/ }).count()) === 0,
+            'nothing to create while a cell is bad',
+          );
           await screenshot(admin, 'admin-line-list-errors');
           const good = bad.replace(',high,', ',150,');
-          await admin.getByLabel('Line-list CSV').setInputFiles({ name: 'line-list.csv', mimeType: 'text/csv', buffer: Buffer.from(good) });
+          await admin.getByLabel('Line-list CSV').setInputFiles({
+            name: 'line-list.csv',
+            mimeType: 'text/csv',
+            buffer: Buffer.from(good),
+          });
           await admin.getByRole('button', { name: 'Check the file' }).click();
           await admin.locator('[data-testid="line-list-preview"] tr[data-line="3"]').waitFor();
           await screenshot(admin, 'admin-line-list-preview');
@@ -230,7 +310,13 @@ export const adminJourney: E2EJourney = {
           await page.getByRole('button', { name: 'Send the reset link' }).click();
           await page.getByText(/a link is on its way/).waitFor();
           await screenshot(page, 'forgot-password');
-          const text = await waitForMailText(admin, base, shared, NEW_EMAIL, /reset-password\?token=/);
+          const text = await waitForMailText(
+            admin,
+            base,
+            shared,
+            NEW_EMAIL,
+            /reset-password\?token=/,
+          );
           const url = /(https?:\/\/\S+\/reset-password\?token=[^\s]+)/.exec(text)?.[1];
           expect(url?.startsWith(base), `reset link ${url}`);
           await page.goto(url!);
@@ -242,18 +328,27 @@ export const adminJourney: E2EJourney = {
           await page.getByText(/Your password has been changed/).waitFor();
           await page.getByRole('link', { name: 'Sign in with the new password' }).click();
           await signInAs(page, base, NEW_EMAIL, RESET_PASSWORD);
-          await page.getByTestId('role').filter({ hasText: /designer/i }).waitFor();
+          await page
+            .getByTestId('role')
+            .filter({ hasText: /designer/i })
+            .waitFor();
           await ctx.close();
         });
         await step(STEPS[9]!, async () => {
           await admin.getByRole('link', { name: 'Outbox' }).click();
           await admin.getByRole('heading', { name: 'Outbox' }).waitFor();
-          const item = admin.locator(`[data-testid="outbox"] li[data-mail-to*="${NEW_EMAIL}"]`).filter({ hasText: 'invited' }).first();
+          const item = admin
+            .locator(`[data-testid="outbox"] li[data-mail-to*="${NEW_EMAIL}"]`)
+            .filter({ hasText: 'invited' })
+            .first();
           await item.waitFor();
           await item.getByRole('button').click();
           await item.getByText(/Hello Ilse Varga/).waitFor();
           const shown = (await item.locator('pre').textContent()) ?? '';
-          expect(shown.includes('accept-invite?token=[hidden]'), 'the invitation token is not shown in the outbox');
+          expect(
+            shown.includes('accept-invite?token=[hidden]'),
+            'the invitation token is not shown in the outbox',
+          );
           await screenshot(admin, 'admin-outbox');
         });
       },

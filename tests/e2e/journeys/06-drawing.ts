@@ -32,10 +32,16 @@ interface ScreenBox {
 }
 
 const screenBox = (page: Page) =>
-  page.evaluate(() => (window as unknown as { __spoolwright?: { spoolScreenBox(): ScreenBox } }).__spoolwright!.spoolScreenBox());
+  page.evaluate(() =>
+    (
+      window as unknown as { __spoolwright?: { spoolScreenBox(): ScreenBox } }
+    ).__spoolwright!.spoolScreenBox(),
+  );
 
 const rowsIds = (page: Page) =>
-  page.locator('[data-testid="element-table"] tbody tr').evaluateAll((trs) => trs.map((tr) => tr.getAttribute('data-element-id')));
+  page
+    .locator('[data-testid="element-table"] tbody tr')
+    .evaluateAll((trs) => trs.map((tr) => tr.getAttribute('data-element-id')));
 
 async function waitRows(page: Page, n: number): Promise<void> {
   await page.waitForFunction(
@@ -53,9 +59,15 @@ async function sizeCell(page: Page, id: string): Promise<string> {
 }
 
 async function framesSettle(page: Page): Promise<void> {
-  await page.waitForFunction(() => ((window as unknown as { __spoolwright?: { frames: number } }).__spoolwright?.frames ?? 0) >= 1, null, {
-    timeout: STEP_TIMEOUT,
-  });
+  await page.waitForFunction(
+    () =>
+      ((window as unknown as { __spoolwright?: { frames: number } }).__spoolwright?.frames ?? 0) >=
+      1,
+    null,
+    {
+      timeout: STEP_TIMEOUT,
+    },
+  );
   await page.waitForTimeout(400);
 }
 
@@ -101,9 +113,19 @@ export const drawingJourney: E2EJourney = {
           expect(err?.includes('Toward must be perpendicular to east'), `error reads "${err}"`);
           await page.getByLabel('Angled leg toward').selectOption('up');
           const ids = await rowsIds(page);
-          expect(JSON.stringify(ids) === JSON.stringify(['S1', 'B1', 'S2', 'B2', 'S3', 'B3', 'S4']), `elements are ${ids.join(',')}`);
-          const angles = [await sizeCell(page, 'B1'), await sizeCell(page, 'B2'), await sizeCell(page, 'B3')];
-          expect(JSON.stringify(angles) === JSON.stringify(['45°', '45°', '30°']), `bend angles read ${angles.join(', ')}`);
+          expect(
+            JSON.stringify(ids) === JSON.stringify(['S1', 'B1', 'S2', 'B2', 'S3', 'B3', 'S4']),
+            `elements are ${ids.join(',')}`,
+          );
+          const angles = [
+            await sizeCell(page, 'B1'),
+            await sizeCell(page, 'B2'),
+            await sizeCell(page, 'B3'),
+          ];
+          expect(
+            JSON.stringify(angles) === JSON.stringify(['45°', '45°', '30°']),
+            `bend angles read ${angles.join(', ')}`,
+          );
           // Cut length of the offset leg: 36 − 2 × R·tan 22.5° with R = 1.5 × 2 in (a new
           // spool's 1.5D bends, NPS 2) = 36 − 2.485 = 33.51 in.
           const s2 = await sizeCell(page, 'S2');
@@ -132,13 +154,26 @@ export const drawingJourney: E2EJourney = {
           const box = await screenBox(page);
           const c = box.canvas;
           const inside =
-            box.min.x >= c.left - 0.5 && box.max.x <= c.left + c.width + 0.5 && box.min.y >= c.top - 0.5 && box.max.y <= c.top + c.height + 0.5;
+            box.min.x >= c.left - 0.5 &&
+            box.max.x <= c.left + c.width + 0.5 &&
+            box.min.y >= c.top - 0.5 &&
+            box.max.y <= c.top + c.height + 0.5;
           expect(inside, `spool box ${JSON.stringify(box)} is not inside the canvas`);
           // and it uses the height: the tall riser fills most of it
-          expect(box.max.y - box.min.y > 0.6 * c.height, `spool box height ${box.max.y - box.min.y} of ${c.height}`);
+          expect(
+            box.max.y - box.min.y > 0.6 * c.height,
+            `spool box height ${box.max.y - box.min.y} of ${c.height}`,
+          );
           // the angled legs came back from the server
-          const angles = [await sizeCell(page, 'B1'), await sizeCell(page, 'B2'), await sizeCell(page, 'B3')];
-          expect(JSON.stringify(angles) === JSON.stringify(['45°', '45°', '30°']), `after reload: ${angles.join(', ')}`);
+          const angles = [
+            await sizeCell(page, 'B1'),
+            await sizeCell(page, 'B2'),
+            await sizeCell(page, 'B3'),
+          ];
+          expect(
+            JSON.stringify(angles) === JSON.stringify(['45°', '45°', '30°']),
+            `after reload: ${angles.join(', ')}`,
+          );
           await screenshot(page, 'drawing-tall-spool-first-fit');
         });
 
@@ -154,7 +189,9 @@ export const drawingJourney: E2EJourney = {
           const pt = await projectElement(page, 'B2');
           const c = after.canvas;
           expect(
-            pt && Math.abs(pt.x - (c.left + c.width / 2)) < c.width * 0.2 && Math.abs(pt.y - (c.top + c.height / 2)) < c.height * 0.2,
+            pt &&
+              Math.abs(pt.x - (c.left + c.width / 2)) < c.width * 0.2 &&
+              Math.abs(pt.y - (c.top + c.height / 2)) < c.height * 0.2,
             `B2 at ${JSON.stringify(pt)} is not near the canvas centre`,
           );
           await screenshot(page, 'drawing-focus-on-selected');
@@ -164,13 +201,22 @@ export const drawingJourney: E2EJourney = {
           await page.keyboard.press('f');
           await page.waitForTimeout(300);
           const fitted = await screenBox(page);
-          expect(Math.abs(fitted.max.y - fitted.min.y - (before.max.y - before.min.y)) < 2, 'F did not fit the spool again');
+          expect(
+            Math.abs(fitted.max.y - fitted.min.y - (before.max.y - before.min.y)) < 2,
+            'F did not fit the spool again',
+          );
           await page.keyboard.press('Shift+F');
           await page.waitForTimeout(300);
           const refocused = await screenBox(page);
-          expect(refocused.max.y - refocused.min.y > 4 * (fitted.max.y - fitted.min.y), 'Shift+F did not zoom to S3');
+          expect(
+            refocused.max.y - refocused.min.y > 4 * (fitted.max.y - fitted.min.y),
+            'Shift+F did not zoom to S3',
+          );
           await page.getByRole('button', { name: 'Keys ?' }).click();
-          await page.getByRole('dialog', { name: 'Sketcher keys' }).getByText('focus on the selected element').waitFor();
+          await page
+            .getByRole('dialog', { name: 'Sketcher keys' })
+            .getByText('focus on the selected element')
+            .waitFor();
           await page.getByRole('button', { name: 'Close key list' }).click();
         });
 
@@ -181,22 +227,50 @@ export const drawingJourney: E2EJourney = {
           await page.locator('[data-testid="inspector"][data-element-id="S1"]').waitFor();
           await page.getByLabel(/^Outside diameter D/).fill('60.3');
           await page.getByLabel(/^Nominal wall T/).fill('40');
-          const err = await page.getByText('Nominal wall T must be less than half the outside diameter (30.15)').textContent();
+          const err = await page
+            .getByText('Nominal wall T must be less than half the outside diameter (30.15)')
+            .textContent();
           expect(err, 'wall error shown');
           await page.getByLabel(/^Nominal wall T/).fill('5.54');
           await page.getByRole('button', { name: 'Apply', exact: true }).click();
           await page.waitForFunction(() => {
-            const s = (window as unknown as { __spoolwright?: { store: { getState(): { doc: { elements: { id: string; nominalWall?: number }[] } } } } }).__spoolwright;
+            const s = (
+              window as unknown as {
+                __spoolwright?: {
+                  store: {
+                    getState(): { doc: { elements: { id: string; nominalWall?: number }[] } };
+                  };
+                };
+              }
+            ).__spoolwright;
             const el = s?.store.getState().doc.elements.find((e) => e.id === 'S1');
             return el?.nominalWall !== undefined && Math.abs(el.nominalWall - 5.54 / 25.4) < 1e-9;
           });
           const stored = await page.evaluate(() => {
-            const s = (window as unknown as { __spoolwright: { store: { getState(): { doc: { units: string; elements: { id: string; outsideDiameter?: number }[] } } } } }).__spoolwright;
+            const s = (
+              window as unknown as {
+                __spoolwright: {
+                  store: {
+                    getState(): {
+                      doc: { units: string; elements: { id: string; outsideDiameter?: number }[] };
+                    };
+                  };
+                };
+              }
+            ).__spoolwright;
             const doc = s.store.getState().doc;
-            return { units: doc.units, od: doc.elements.find((e) => e.id === 'S1')?.outsideDiameter };
+            return {
+              units: doc.units,
+              od: doc.elements.find((e) => e.id === 'S1')?.outsideDiameter,
+            };
           });
           // stored in the document's own units: 60.3 mm = 2.374016 in
-          expect(stored.units === 'imperial' && stored.od !== undefined && Math.abs(stored.od - 60.3 / 25.4) < 1e-9, `stored ${JSON.stringify(stored)}`);
+          expect(
+            stored.units === 'imperial' &&
+              stored.od !== undefined &&
+              Math.abs(stored.od - 60.3 / 25.4) < 1e-9,
+            `stored ${JSON.stringify(stored)}`,
+          );
           const note = await page.getByTestId('trail-units').textContent();
           expect(note?.includes('mm, MPa, °C'), `trail note reads "${note}"`);
           const steps = await page.getByTestId('trail-step').allTextContents();

@@ -33,7 +33,9 @@ export const mailAndHeadersJourney: E2EJourney = {
         await page.addInitScript(() => {
           const w = window as unknown as { __csp: string[] };
           w.__csp = [];
-          document.addEventListener('securitypolicyviolation', (e) => w.__csp.push(`${e.violatedDirective} ${e.blockedURI}`));
+          document.addEventListener('securitypolicyviolation', (e) =>
+            w.__csp.push(`${e.violatedDirective} ${e.blockedURI}`),
+          );
         });
         page.on('console', (m) => {
           if (/Content Security Policy/i.test(m.text())) violations.push(m.text());
@@ -58,14 +60,18 @@ export const mailAndHeadersJourney: E2EJourney = {
           expect(fontsOk, 'the Barlow font did not load');
           await screenshot(page, 'csp-sketcher');
           // Each document starts its own list: read the sketcher's before moving on.
-          const readSeen = () => page.evaluate(() => (window as unknown as { __csp: string[] }).__csp);
+          const readSeen = () =>
+            page.evaluate(() => (window as unknown as { __csp: string[] }).__csp);
           const seen = await readSeen();
           // The calc sheet print view too.
           await page.goto(`${base}/spools/${id}/calc-sheet`);
           await page.getByTestId('calc-sheet').waitFor();
           await page.waitForTimeout(500);
           seen.push(...(await readSeen()));
-          expect(seen.length === 0 && violations.length === 0, `CSP violations: ${[...seen, ...violations].join('; ')}`);
+          expect(
+            seen.length === 0 && violations.length === 0,
+            `CSP violations: ${[...seen, ...violations].join('; ')}`,
+          );
         });
 
         await step(STEPS[1]!, async () => {
@@ -78,10 +84,19 @@ export const mailAndHeadersJourney: E2EJourney = {
           });
           expect(add.status() === 201, `adding a member: ${add.status()} ${await add.text()}`);
           const sentAfter = Date.now();
-          const req = await page.request.post(`${base}/api/auth/request-password-reset`, { data: { email }, headers: { origin: base } });
+          const req = await page.request.post(`${base}/api/auth/request-password-reset`, {
+            data: { email },
+            headers: { origin: base },
+          });
           expect(req.ok(), `reset request: ${req.status()}`);
-          const text = await readMail(shared.dataDir!, email, { subject: /reset/i, after: sentAfter, timeoutMs: 10_000 });
-          const link = new RegExp(`${base.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&')}/reset-password\\?token=([^\\s&]+)`).exec(text);
+          const text = await readMail(shared.dataDir!, email, {
+            subject: /reset/i,
+            after: sentAfter,
+            timeoutMs: 10_000,
+          });
+          const link = new RegExp(
+            `${base.replace(/[.*+?^${}()|[\]\\/]/g, '\\$&')}/reset-password\\?token=([^\\s&]+)`,
+          ).exec(text);
           expect(link, `no reset link in the mail:\n${text}`);
           const token = decodeURIComponent(link[1]!);
           const outbox = await page.request.get(`${base}/api/admin/outbox`);
@@ -89,11 +104,20 @@ export const mailAndHeadersJourney: E2EJourney = {
           expect(outbox.ok() && body.includes(email), 'the outbox does not list the reset mail');
           expect(!body.includes(token), 'the outbox shows the reset token');
           const anon = await newContext(browser);
-          const set = await anon.request.post(`${base}/api/auth/reset-password`, { data: { token, newPassword: 'second-password-2' }, headers: { origin: base } });
+          const set = await anon.request.post(`${base}/api/auth/reset-password`, {
+            data: { token, newPassword: 'second-password-2' },
+            headers: { origin: base },
+          });
           expect(set.ok(), `reset: ${set.status()} ${await set.text()}`);
-          const reuse = await anon.request.post(`${base}/api/auth/reset-password`, { data: { token, newPassword: 'third-password-3' }, headers: { origin: base } });
+          const reuse = await anon.request.post(`${base}/api/auth/reset-password`, {
+            data: { token, newPassword: 'third-password-3' },
+            headers: { origin: base },
+          });
           expect(reuse.status() === 400, `a used token worked again (${reuse.status()})`);
-          const login = await anon.request.post(`${base}/api/auth/sign-in/email`, { data: { email, password: 'second-password-2' }, headers: { origin: base } });
+          const login = await anon.request.post(`${base}/api/auth/sign-in/email`, {
+            data: { email, password: 'second-password-2' },
+            headers: { origin: base },
+          });
           expect(login.ok(), `sign-in with the new password: ${login.status()}`);
           await anon.close();
         });

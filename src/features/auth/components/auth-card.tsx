@@ -2,7 +2,13 @@ import type { ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 
 /** The centred card of the pages outside sign-in (sign-in, forgot/reset password, accept invitation). */
-export function AuthCard({ intro, children }: { readonly intro: ReactNode; readonly children: ReactNode }) {
+export function AuthCard({
+  intro,
+  children,
+}: {
+  readonly intro: ReactNode;
+  readonly children: ReactNode;
+}) {
   return (
     <main className="flex min-h-screen items-center justify-center bg-steel-100 font-sans">
       <div className="w-full max-w-sm rounded-lg border border-steel-200 bg-white p-6 shadow-sm">

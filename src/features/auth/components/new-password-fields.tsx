@@ -19,12 +19,24 @@ export function NewPasswordForm({
   /** The account's address, for password managers. */
   readonly username?: string;
 }) {
-  const form = useForm<NewPasswordInput>({ resolver: zodResolver(newPasswordSchema), defaultValues: { password: '', confirm: '' } });
+  const form = useForm<NewPasswordInput>({
+    resolver: zodResolver(newPasswordSchema),
+    defaultValues: { password: '', confirm: '' },
+  });
   const { errors } = form.formState;
   const submit = form.handleSubmit((v) => onSubmit(v.password));
   return (
     <form onSubmit={(e) => void submit(e)} noValidate className="flex flex-col gap-3">
-      {username ? <input type="email" name="username" autoComplete="username" value={username} readOnly hidden /> : null}
+      {username ? (
+        <input
+          type="email"
+          name="username"
+          autoComplete="username"
+          value={username}
+          readOnly
+          hidden
+        />
+      ) : null}
       <TextField
         label="New password"
         type="password"

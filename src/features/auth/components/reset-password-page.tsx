@@ -5,7 +5,8 @@ import { AuthCard } from './auth-card';
 import { NewPasswordForm } from './new-password-fields';
 
 function resetError(e: unknown): string {
-  if (isApiError(e) && /token/i.test(`${e.code} ${e.message}`)) return 'This reset link is not valid any more (it works once, within an hour). Ask for a new one.';
+  if (isApiError(e) && /token/i.test(`${e.code} ${e.message}`))
+    return 'This reset link is not valid any more (it works once, within an hour). Ask for a new one.';
   return e instanceof Error ? e.message : 'The password could not be changed';
 }
 

@@ -17,7 +17,10 @@ export function SignInPage() {
   const navigate = useNavigate();
   const me = useMe();
   const signIn = useSignIn();
-  const form = useForm<SignInInput>({ resolver: zodResolver(signInSchema), defaultValues: { email: '', password: '' } });
+  const form = useForm<SignInInput>({
+    resolver: zodResolver(signInSchema),
+    defaultValues: { email: '', password: '' },
+  });
 
   if (me.data) return <Navigate to={next} replace />;
 
@@ -34,7 +37,13 @@ export function SignInPage() {
         </div>
         <p className="mb-4 text-sm text-steel-600">Sign in to your team's spools.</p>
         <form onSubmit={(e) => void onSubmit(e)} className="flex flex-col gap-3" noValidate>
-          <TextField label="Email" type="email" autoComplete="username" {...form.register('email')} error={form.formState.errors.email?.message} />
+          <TextField
+            label="Email"
+            type="email"
+            autoComplete="username"
+            {...form.register('email')}
+            error={form.formState.errors.email?.message}
+          />
           <TextField
             label="Password"
             type="password"

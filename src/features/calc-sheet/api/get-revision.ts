@@ -14,7 +14,10 @@ export const revisionSchema = z
     line: z.string(),
     current: z.boolean(),
     document: z.custom<SpoolDocument>(
-      (v) => typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements),
+      (v) =>
+        typeof v === 'object' &&
+        v !== null &&
+        Array.isArray((v as { elements?: unknown }).elements),
       'document must be a spool document',
     ),
   })
@@ -22,11 +25,17 @@ export const revisionSchema = z
 export type Revision = z.infer<typeof revisionSchema>;
 
 export function getRevision(id: string, revision: number, signal?: AbortSignal): Promise<Revision> {
-  return apiRequest(`/spools/${encodeURIComponent(id)}/revisions/${revision}`, { schema: revisionSchema, signal });
+  return apiRequest(`/spools/${encodeURIComponent(id)}/revisions/${revision}`, {
+    schema: revisionSchema,
+    signal,
+  });
 }
 
 export const revisionQueryOptions = (id: string, revision: number) =>
-  queryOptions({ queryKey: [...spoolKeys.revisions(id), revision] as const, queryFn: ({ signal }) => getRevision(id, revision, signal) });
+  queryOptions({
+    queryKey: [...spoolKeys.revisions(id), revision] as const,
+    queryFn: ({ signal }) => getRevision(id, revision, signal),
+  });
 
 export function useRevision(id: string, revision: number | undefined) {
   return useQuery({ ...revisionQueryOptions(id, revision ?? -1), enabled: revision !== undefined });

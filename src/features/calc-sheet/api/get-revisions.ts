@@ -19,11 +19,17 @@ export const revisionListSchema = z.object({
 export type RevisionListItem = z.infer<typeof revisionListSchema>['items'][number];
 
 export function getRevisions(id: string, signal?: AbortSignal): Promise<RevisionListItem[]> {
-  return apiRequest(`/spools/${encodeURIComponent(id)}/revisions`, { schema: revisionListSchema, signal }).then((d) => d.items);
+  return apiRequest(`/spools/${encodeURIComponent(id)}/revisions`, {
+    schema: revisionListSchema,
+    signal,
+  }).then((d) => d.items);
 }
 
 export const revisionsQueryOptions = (id: string) =>
-  queryOptions({ queryKey: spoolKeys.revisions(id), queryFn: ({ signal }) => getRevisions(id, signal) });
+  queryOptions({
+    queryKey: spoolKeys.revisions(id),
+    queryFn: ({ signal }) => getRevisions(id, signal),
+  });
 
 export function useRevisions(id: string) {
   return useQuery(revisionsQueryOptions(id));

@@ -20,11 +20,17 @@ export const spoolEventsSchema = z.object({
 export type SpoolEvent = z.infer<typeof spoolEventsSchema>['items'][number];
 
 export function getSpoolEvents(id: string, signal?: AbortSignal): Promise<SpoolEvent[]> {
-  return apiRequest(`/spools/${encodeURIComponent(id)}/events`, { schema: spoolEventsSchema, signal }).then((d) => d.items);
+  return apiRequest(`/spools/${encodeURIComponent(id)}/events`, {
+    schema: spoolEventsSchema,
+    signal,
+  }).then((d) => d.items);
 }
 
 export const spoolEventsQueryOptions = (id: string) =>
-  queryOptions({ queryKey: [...spoolKeys.all, 'events', id] as const, queryFn: ({ signal }) => getSpoolEvents(id, signal) });
+  queryOptions({
+    queryKey: [...spoolKeys.all, 'events', id] as const,
+    queryFn: ({ signal }) => getSpoolEvents(id, signal),
+  });
 
 export function useSpoolEvents(id: string) {
   return useQuery(spoolEventsQueryOptions(id));

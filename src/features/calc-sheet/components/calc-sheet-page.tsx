@@ -22,7 +22,8 @@ import './calc-sheet-print.css';
 const printCautionCss = `@media print { @page { @bottom-left { content: "Caution. ${CAUTION.replace(/["\\]/g, '\\$&')}"; font-family: Barlow, sans-serif; font-size: 7pt; color: #364151; width: 78%; vertical-align: top; padding-top: 3mm; } } }`;
 
 /** Address of the PDF of a revision (the server draws it from the same model). */
-export const calcSheetPdfUrl = (spoolId: string, revision: number) => `${API_BASE}/spools/${encodeURIComponent(spoolId)}/calc-sheet.pdf?revision=${revision}`;
+export const calcSheetPdfUrl = (spoolId: string, revision: number) =>
+  `${API_BASE}/spools/${encodeURIComponent(spoolId)}/calc-sheet.pdf?revision=${revision}`;
 
 /** /spools/:spoolId/calc-sheet?revision=N — the calc sheet of a revision, printable, with its PDF. */
 export function CalcSheetPage() {
@@ -32,7 +33,8 @@ export function CalcSheetPage() {
   const current = revisions.data?.find((r) => r.current);
   const asked = params.get('revision');
   const askedNumber = asked !== null && /^\d+$/.test(asked) ? Number(asked) : undefined;
-  const known = askedNumber === undefined || (revisions.data?.some((r) => r.revision === askedNumber) ?? true);
+  const known =
+    askedNumber === undefined || (revisions.data?.some((r) => r.revision === askedNumber) ?? true);
   const revisionNumber = askedNumber ?? current?.revision;
   const revision = useRevision(spoolId, known ? revisionNumber : undefined);
   const events = useSpoolEvents(spoolId);
@@ -42,7 +44,10 @@ export function CalcSheetPage() {
   const sheet = useMemo(() => {
     if (!revision.data || !events.data || !materials.data) return null;
     const team = materials.data.filter((m) => m.origin === 'team');
-    const check = checkSpool(revision.data.document, team.length > 0 ? { findMaterial: createMaterialLookup(team) } : {});
+    const check = checkSpool(
+      revision.data.document,
+      team.length > 0 ? { findMaterial: createMaterialLookup(team) } : {},
+    );
     return buildCalcSheet({
       team: me.data?.team?.name ?? null,
       revision: revision.data.revision,
@@ -59,7 +64,10 @@ export function CalcSheetPage() {
     <div className="calc-sheet-page h-full overflow-auto bg-steel-100">
       <style>{printCautionCss}</style>
       <div className="cs-no-print sticky top-0 z-10 flex flex-wrap items-center gap-3 border-b border-steel-200 bg-steel-50 px-4 py-2">
-        <Link to={`/spools/${encodeURIComponent(spoolId)}`} className="text-sm text-copper-600 hover:underline">
+        <Link
+          to={`/spools/${encodeURIComponent(spoolId)}`}
+          className="text-sm text-copper-600 hover:underline"
+        >
           ← Back to the sketch
         </Link>
         <h1 className="text-sm font-semibold text-steel-800">Calc sheet</h1>

@@ -4,13 +4,24 @@ import { cn } from '@/lib/cn';
 
 function FromMemory() {
   return (
-    <span className="ml-1 rounded bg-amber-100 px-1 text-[10px] font-semibold text-amber-900" title="recalled from memory: verify against the licensed edition">
+    <span
+      className="ml-1 rounded bg-amber-100 px-1 text-[10px] font-semibold text-amber-900"
+      title="recalled from memory: verify against the licensed edition"
+    >
       FROM MEMORY: verify
     </span>
   );
 }
 
-function RowsTable({ rows, withSource, testId }: { rows: readonly SheetRow[]; withSource?: boolean; testId?: string }) {
+function RowsTable({
+  rows,
+  withSource,
+  testId,
+}: {
+  rows: readonly SheetRow[];
+  withSource?: boolean;
+  testId?: string;
+}) {
   return (
     <table className="cs-table w-full text-xs" data-testid={testId}>
       {withSource ? (
@@ -24,7 +35,13 @@ function RowsTable({ rows, withSource, testId }: { rows: readonly SheetRow[]; wi
       ) : null}
       <tbody>
         {rows.map((r) => (
-          <tr key={r.label} className={cn(r.strong && 'font-semibold', r.value.startsWith('ORDER HEAVIER') && 'text-red-700')}>
+          <tr
+            key={r.label}
+            className={cn(
+              r.strong && 'font-semibold',
+              r.value.startsWith('ORDER HEAVIER') && 'text-red-700',
+            )}
+          >
             <td>{r.label}</td>
             <td className="tabular-nums">{r.value}</td>
             {withSource ? (
@@ -44,7 +61,12 @@ function RowsTable({ rows, withSource, testId }: { rows: readonly SheetRow[]; wi
 
 function ElementSection({ e }: { e: SheetElement }) {
   return (
-    <section className="cs-element flex flex-col gap-3" data-testid="calc-sheet-element" data-element-id={e.id} aria-label={e.title}>
+    <section
+      className="cs-element flex flex-col gap-3"
+      data-testid="calc-sheet-element"
+      data-element-id={e.id}
+      aria-label={e.title}
+    >
       <header>
         <h2 className="flex items-center gap-2 text-lg font-semibold text-steel-900">
           {e.title} <CheckBadge status={e.status} />
@@ -55,7 +77,10 @@ function ElementSection({ e }: { e: SheetElement }) {
         <p className="text-xs text-steel-500">{e.description}</p>
       </header>
       {e.issues.length > 0 ? (
-        <ul role="alert" className="rounded border border-red-200 bg-red-50 p-2 text-xs text-red-800">
+        <ul
+          role="alert"
+          className="rounded border border-red-200 bg-red-50 p-2 text-xs text-red-800"
+        >
           {e.issues.map((i) => (
             <li key={i}>{i}</li>
           ))}
@@ -92,7 +117,9 @@ function ElementSection({ e }: { e: SheetElement }) {
                   <td>{c.t}</td>
                   <td>{c.tm}</td>
                   <td>{c.orderedWall}</td>
-                  {e.cases.some((x) => x.allowablePressure !== '—') ? <td>{c.allowablePressure}</td> : null}
+                  {e.cases.some((x) => x.allowablePressure !== '—') ? (
+                    <td>{c.allowablePressure}</td>
+                  ) : null}
                 </tr>
               ))}
             </tbody>
@@ -110,7 +137,16 @@ function ElementSection({ e }: { e: SheetElement }) {
           <h3 className="cs-h3">Notes</h3>
           <ul className="flex flex-col gap-1 text-xs">
             {e.messages.map((m, i) => (
-              <li key={i} className={cn(m.level === 'error' ? 'text-red-800' : m.level === 'warning' ? 'text-amber-900' : 'text-steel-700')}>
+              <li
+                key={i}
+                className={cn(
+                  m.level === 'error'
+                    ? 'text-red-800'
+                    : m.level === 'warning'
+                      ? 'text-amber-900'
+                      : 'text-steel-700',
+                )}
+              >
                 {m.level === 'info' ? 'note' : m.level}: {m.text}
               </li>
             ))}
@@ -119,20 +155,35 @@ function ElementSection({ e }: { e: SheetElement }) {
       ) : null}
       <div>
         <h3 className="cs-h3">Equation trail</h3>
-        <p className="mb-1 text-[11px] text-steel-500">Substituted values are in the document's units.</p>
+        <p className="mb-1 text-[11px] text-steel-500">
+          Substituted values are in the document's units.
+        </p>
         {e.trail.map((g) => (
           <div key={g.title} className="mb-2">
-            <h4 className={cn('text-xs font-semibold', g.governing ? 'text-copper-600' : 'text-steel-800')}>{g.title}</h4>
+            <h4
+              className={cn(
+                'text-xs font-semibold',
+                g.governing ? 'text-copper-600' : 'text-steel-800',
+              )}
+            >
+              {g.title}
+            </h4>
             <ol className="flex flex-col gap-1">
               {g.steps.map((s, i) => (
-                <li key={i} className="cs-step rounded border border-steel-200 p-1.5 text-xs" data-testid="calc-sheet-trail-step">
+                <li
+                  key={i}
+                  className="cs-step rounded border border-steel-200 p-1.5 text-xs"
+                  data-testid="calc-sheet-trail-step"
+                >
                   <div className="flex justify-between gap-2">
                     <span className="font-medium text-steel-700">{s.label}</span>
                     <span className="shrink-0 text-steel-500">{s.equation}</span>
                   </div>
                   <div className="font-mono text-steel-600">{s.formula}</div>
                   <div className="font-mono text-steel-800">{s.substituted}</div>
-                  <div className="text-right font-mono font-semibold text-steel-900">{s.result}</div>
+                  <div className="text-right font-mono font-semibold text-steel-900">
+                    {s.result}
+                  </div>
                 </li>
               ))}
             </ol>
@@ -187,7 +238,8 @@ export function CalcSheetView({ sheet }: { sheet: CalcSheet }) {
           {sheet.derived.length > 0 ? (
             <>
               <p className="my-1 text-xs text-steel-500">
-                Values the check took for elements that keep the spool conditions (elements with their own conditions list theirs under their inputs):
+                Values the check took for elements that keep the spool conditions (elements with
+                their own conditions list theirs under their inputs):
               </p>
               <RowsTable rows={sheet.derived} withSource />
             </>
@@ -198,7 +250,8 @@ export function CalcSheetView({ sheet }: { sheet: CalcSheet }) {
           <p className="text-sm">{sheet.summary}</p>
           {sheet.fromMemoryCount > 0 ? (
             <p className="text-sm font-semibold text-amber-900">
-              {sheet.fromMemoryCount} input value(s) are recalled from memory and flagged FROM MEMORY: verify them against the licensed edition.
+              {sheet.fromMemoryCount} input value(s) are recalled from memory and flagged FROM
+              MEMORY: verify them against the licensed edition.
             </p>
           ) : null}
           <table className="cs-table mt-2 w-full text-xs" data-testid="calc-sheet-overview">
@@ -218,7 +271,10 @@ export function CalcSheetView({ sheet }: { sheet: CalcSheet }) {
               {sheet.overview.map((r) => (
                 <tr key={r.id}>
                   <td>
-                    <a href={`#element-${r.id}`} className="text-copper-600 underline-offset-2 hover:underline">
+                    <a
+                      href={`#element-${r.id}`}
+                      className="text-copper-600 underline-offset-2 hover:underline"
+                    >
                       {r.id}
                     </a>
                   </td>

@@ -42,10 +42,19 @@ function Section({ title, children, id }: { title: string; children: ReactNode; 
   );
 }
 
-const th = 'border-b border-steel-300 px-2 py-1 text-left font-semibold text-steel-600 whitespace-nowrap';
+const th =
+  'border-b border-steel-300 px-2 py-1 text-left font-semibold text-steel-600 whitespace-nowrap';
 const td = 'border-b border-steel-100 px-2 py-1 align-top tabular-nums';
 
-function SheetTable({ head, rows, label }: { head: readonly ReactNode[]; rows: readonly (readonly ReactNode[])[]; label: string }) {
+function SheetTable({
+  head,
+  rows,
+  label,
+}: {
+  head: readonly ReactNode[];
+  rows: readonly (readonly ReactNode[])[];
+  label: string;
+}) {
   return (
     <div className="overflow-x-auto">
       <table aria-label={label} className="w-full border-collapse text-xs">
@@ -93,7 +102,22 @@ function BendList({ sheet }: { sheet: FabricationSheet }) {
     <>
       <SheetTable
         label="Bend list"
-        head={['Bend', 'NPS', 'Angle', `R (${u.length})`, 'R/D', 'R/NPS', 'Table factor', `Table wall (${u.length})`, `Geometric wall (${u.length})`, `Before bending (${u.length})`, 'Order', `Extrados after / needed (${u.length})`, `Intrados after / needed (${u.length})`, '']}
+        head={[
+          'Bend',
+          'NPS',
+          'Angle',
+          `R (${u.length})`,
+          'R/D',
+          'R/NPS',
+          'Table factor',
+          `Table wall (${u.length})`,
+          `Geometric wall (${u.length})`,
+          `Before bending (${u.length})`,
+          'Order',
+          `Extrados after / needed (${u.length})`,
+          `Intrados after / needed (${u.length})`,
+          '',
+        ]}
         rows={bends.map((e) => {
           const b = e.bend!;
           return [
@@ -107,7 +131,8 @@ function BendList({ sheet }: { sheet: FabricationSheet }) {
             n(b.tableWall),
             n(b.geometricWall),
             <span key="before">
-              {n(b.wallBeforeBending)} <span className="text-steel-500">({b.governingEstimate} governs)</span>
+              {n(b.wallBeforeBending)}{' '}
+              <span className="text-steel-500">({b.governingEstimate} governs)</span>
             </span>,
             <span key="order" className={cn(b.orderHeavier && 'font-semibold text-copper-600')}>
               {e.orderSchedule ? `Sch ${e.orderSchedule}` : 'by wall'} · {n(e.orderWall)}
@@ -115,7 +140,11 @@ function BendList({ sheet }: { sheet: FabricationSheet }) {
             `${n(b.extradosWallAfter)} / ${n(b.extradosWallRequired)}`,
             `${n(b.intradosWallAfter)} / ${n(b.intradosWallRequired)}`,
             b.orderHeavier ? (
-              <strong key="flag" className="rounded bg-copper-500 px-1.5 py-px text-white" data-testid={`order-heavier-${e.id}`}>
+              <strong
+                key="flag"
+                className="rounded bg-copper-500 px-1.5 py-px text-white"
+                data-testid={`order-heavier-${e.id}`}
+              >
                 order heavier
               </strong>
             ) : (
@@ -125,8 +154,9 @@ function BendList({ sheet }: { sheet: FabricationSheet }) {
         })}
       />
       <p className="mt-1 text-xs text-steel-600">
-        Wall before bending: the larger of the B31.1 Table 102.4.5 factor × tm and the geometric estimate (neutral axis at the centreline); walls after
-        bending are those of the pipe as ordered, less mill under-tolerance. {bends[0]!.bend!.flattening}
+        Wall before bending: the larger of the B31.1 Table 102.4.5 factor × tm and the geometric
+        estimate (neutral axis at the centreline); walls after bending are those of the pipe as
+        ordered, less mill under-tolerance. {bends[0]!.bend!.flattening}
       </p>
     </>
   );
@@ -139,14 +169,29 @@ function CutList({ sheet, legs }: { sheet: FabricationSheet; legs: ReadonlyMap<s
     <>
       <SheetTable
         label="Cut list"
-        head={['Piece', 'Kind', 'NPS', 'Order', `Leg (${u.length})`, `Tangents taken (${u.length})`, `Arc R·θ (${u.length})`, `Bending tangents (${u.length})`, `Cut length (${u.length})`, 'End 1', 'End 2', `Mass (${m.mass})`]}
+        head={[
+          'Piece',
+          'Kind',
+          'NPS',
+          'Order',
+          `Leg (${u.length})`,
+          `Tangents taken (${u.length})`,
+          `Arc R·θ (${u.length})`,
+          `Bending tangents (${u.length})`,
+          `Cut length (${u.length})`,
+          'End 1',
+          'End 2',
+          `Mass (${m.mass})`,
+        ]}
         rows={sheet.elements.map((e) => [
           <code key="id">{e.id}</code>,
           e.kind,
           e.nps ?? `D ${n(e.outsideDiameter)}`,
           `${e.orderSchedule ? `Sch ${e.orderSchedule}` : 'by wall'} · ${n(e.orderWall)}`,
           e.kind === 'straight' ? n(legs.get(e.id)) : '—',
-          e.kind === 'straight' ? `${n(e.tangentBefore)} + ${n(e.tangentAfter)}` : `${n(e.bend?.tangent)} each leg`,
+          e.kind === 'straight'
+            ? `${n(e.tangentBefore)} + ${n(e.tangentAfter)}`
+            : `${n(e.bend?.tangent)} each leg`,
           e.bend ? n(e.bend.arcLength) : '—',
           e.bend ? `2 × ${n(e.bend.bendingTangent)}` : '—',
           <strong key="cut" data-testid={`cut-${e.id}`}>
@@ -158,9 +203,10 @@ function CutList({ sheet, legs }: { sheet: FabricationSheet; legs: ReadonlyMap<s
         ])}
       />
       <p className="mt-1 text-xs text-steel-600">
-        <span data-testid="weld-count">{sheet.welds}</span> butt welds{sheet.otherJoints > 0 ? `, ${sheet.otherJoints} other joints` : ''}. A leg is
-        measured between the intersections of the centrelines (as the sketch labels it); a straight is cut to its leg less the tangent R·tan(θ/2) of
-        each bend beside it.
+        <span data-testid="weld-count">{sheet.welds}</span> butt welds
+        {sheet.otherJoints > 0 ? `, ${sheet.otherJoints} other joints` : ''}. A leg is measured
+        between the intersections of the centrelines (as the sketch labels it); a straight is cut to
+        its leg less the tangent R·tan(θ/2) of each bend beside it.
       </p>
     </>
   );
@@ -172,7 +218,18 @@ function BillOfMaterials({ sheet }: { sheet: FabricationSheet }) {
   return (
     <SheetTable
       label="Bill of materials"
-      head={['NPS', `OD (${u.length})`, 'Schedule (as ordered)', `Wall (${u.length})`, 'Material', 'Pieces', `Length to order (${u.length})`, `Length (${m.run})`, `Mass per length (${m.massPerRun})`, `Mass (${m.mass})`]}
+      head={[
+        'NPS',
+        `OD (${u.length})`,
+        'Schedule (as ordered)',
+        `Wall (${u.length})`,
+        'Material',
+        'Pieces',
+        `Length to order (${u.length})`,
+        `Length (${m.run})`,
+        `Mass per length (${m.massPerRun})`,
+        `Mass (${m.mass})`,
+      ]}
       rows={sheet.bom.map((b) => [
         b.nps ?? '—',
         n(b.outsideDiameter),
@@ -192,23 +249,44 @@ function BillOfMaterials({ sheet }: { sheet: FabricationSheet }) {
 function HydrotestPanel({ sheet }: { sheet: FabricationSheet }) {
   const h = sheet.hydrotest;
   const u = UNIT_LABELS[sheet.units];
-  if (!h) return <p className="text-xs text-steel-500">No element with an allowable stress: no test pressure.</p>;
+  if (!h)
+    return (
+      <p className="text-xs text-steel-500">
+        No element with an allowable stress: no test pressure.
+      </p>
+    );
   return (
     <div className="flex flex-col gap-2">
       <p className="text-sm">
-        Test pressure <strong data-testid="test-pressure">{n(h.pressure)} {u.pressure}</strong> at {n(h.testTemperature)} {u.temperature} · ST/S ={' '}
-        {n(h.ratio)} ({h.governing} governs)
+        Test pressure{' '}
+        <strong data-testid="test-pressure">
+          {n(h.pressure)} {u.pressure}
+        </strong>{' '}
+        at {n(h.testTemperature)} {u.temperature} · ST/S = {n(h.ratio)} ({h.governing} governs)
         {h.limitedBy ? (
           <>
             {' '}
-            · <strong className="text-copper-600">reduced from {n(h.unreducedPressure)} {u.pressure}: yield at test temperature in {h.limitedBy}</strong> (para. 345.4.2(c))
+            ·{' '}
+            <strong className="text-copper-600">
+              reduced from {n(h.unreducedPressure)} {u.pressure}: yield at test temperature in{' '}
+              {h.limitedBy}
+            </strong>{' '}
+            (para. 345.4.2(c))
           </>
         ) : null}
       </p>
       <p className="font-mono text-xs text-steel-700">{h.equation}</p>
       <SheetTable
         label="Hydrotest by element"
-        head={['Element', `ST (${u.pressure})`, `S (${u.pressure})`, 'ST/S', `Sy at test (${u.pressure})`, `Pressure at yield (${u.pressure})`, 'Source of ST']}
+        head={[
+          'Element',
+          `ST (${u.pressure})`,
+          `S (${u.pressure})`,
+          'ST/S',
+          `Sy at test (${u.pressure})`,
+          `Pressure at yield (${u.pressure})`,
+          'Source of ST',
+        ]}
         rows={h.elements.map((e) => [
           <code key="id">{e.id}</code>,
           n(e.ST),
@@ -219,7 +297,11 @@ function HydrotestPanel({ sheet }: { sheet: FabricationSheet }) {
             {e.syFromMemory ? <span className="text-copper-600"> (from memory)</span> : null}
           </span>,
           n(e.yieldPressure),
-          <span key="src" className="line-clamp-1 max-w-md text-steel-500 print:line-clamp-none" title={`ST: ${e.stSource}${e.sySource ? ` · Sy: ${e.sySource}` : ''}`}>
+          <span
+            key="src"
+            className="line-clamp-1 max-w-md text-steel-500 print:line-clamp-none"
+            title={`ST: ${e.stSource}${e.sySource ? ` · Sy: ${e.sySource}` : ''}`}
+          >
             {e.stFromMemory ? <strong className="text-copper-600">from memory · </strong> : null}
             {e.stSource}
           </span>,
@@ -232,7 +314,11 @@ function HydrotestPanel({ sheet }: { sheet: FabricationSheet }) {
           ))}
         </ul>
       ) : null}
-      <p role="note" className="rounded border-l-4 border-copper-500 bg-copper-400/10 px-2 py-1 text-xs text-steel-700" data-testid="hydrotest-caution">
+      <p
+        role="note"
+        className="rounded border-l-4 border-copper-500 bg-copper-400/10 px-2 py-1 text-xs text-steel-700"
+        data-testid="hydrotest-caution"
+      >
         {h.caution}
       </p>
     </div>
@@ -240,16 +326,29 @@ function HydrotestPanel({ sheet }: { sheet: FabricationSheet }) {
 }
 
 /** The fabrication sheet of one spool (saved revision): what the shop orders, cuts, welds, weighs and tests. */
-export function FabricationSheetView({ spool, doc, check, sheet }: { spool: Spool; doc: SpoolDocument; check: SpoolCheck; sheet: FabricationSheet }) {
+export function FabricationSheetView({
+  spool,
+  doc,
+  check,
+  sheet,
+}: {
+  spool: Spool;
+  doc: SpoolDocument;
+  check: SpoolCheck;
+  sheet: FabricationSheet;
+}) {
   const u = UNIT_LABELS[sheet.units];
   const m = MASS_LABELS[sheet.units];
   const legs = useMemo(() => legLengths(buildSpoolPath(doc)), [doc]);
-  const download = (name: TableName, table: Table) => downloadText(csvFileName(doc.name, spool.revision, name), tableToCsv(table));
+  const download = (name: TableName, table: Table) =>
+    downloadText(csvFileName(doc.name, spool.revision, name), tableToCsv(table));
   const elementNotes = sheet.elements.flatMap((e) => e.notes.map((t) => `${e.id}: ${t}`));
   return (
     <div className="flex flex-col gap-4 p-4 print:p-0" data-testid="fabrication-sheet">
       <div className="flex flex-wrap items-center gap-3">
-        <h1 className="text-lg font-semibold text-steel-900">Fabrication sheet · {doc.name || 'unnamed spool'}</h1>
+        <h1 className="text-lg font-semibold text-steel-900">
+          Fabrication sheet · {doc.name || 'unnamed spool'}
+        </h1>
         {doc.line ? <span className="text-sm text-steel-600">line {doc.line}</span> : null}
         <LifecycleBadge status={spool.status} />
         <span className="text-xs text-steel-500" data-testid="sheet-revision">
@@ -257,7 +356,10 @@ export function FabricationSheetView({ spool, doc, check, sheet }: { spool: Spoo
         </span>
         <CheckBadge status={check.worst} />
         <div className="ml-auto flex flex-wrap gap-2 print:hidden">
-          <Link to={`/spools/${spool.id}`} className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100">
+          <Link
+            to={`/spools/${spool.id}`}
+            className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100"
+          >
             Open sketch
           </Link>
           <Link
@@ -290,16 +392,27 @@ export function FabricationSheetView({ spool, doc, check, sheet }: { spool: Spoo
       </div>
       <CautionNote />
       {spool.status !== 'released' ? (
-        <p role="status" className="rounded border border-amber-300 bg-amber-50 px-2 py-1 text-sm text-amber-900">
+        <p
+          role="status"
+          className="rounded border border-amber-300 bg-amber-50 px-2 py-1 text-sm text-amber-900"
+        >
           This revision is not released for fabrication (state: {spool.status}).
         </p>
       ) : null}
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-3 lg:grid-cols-6">
-        <Figure label={`Developed length (${u.length})`} value={n(sheet.developedLength)} testId="developed-length" />
+        <Figure
+          label={`Developed length (${u.length})`}
+          value={n(sheet.developedLength)}
+          testId="developed-length"
+        />
         <Figure label={`Pipe to order (${u.length})`} value={n(sheet.orderLength)} />
         <Figure label="Butt welds" value={sheet.welds} />
         <Figure label={`Mass empty (${m.mass})`} value={n(sheet.totalMass)} testId="mass-empty" />
-        <Figure label={`Mass full of water (${m.mass})`} value={n(sheet.filledMass)} testId="mass-filled" />
+        <Figure
+          label={`Mass full of water (${m.mass})`}
+          value={n(sheet.filledMass)}
+          testId="mass-filled"
+        />
         <Figure label={`Hydrotest (${u.pressure})`} value={n(sheet.hydrotest?.pressure)} />
       </div>
       <Section title="Bend list" id="bend-list">
@@ -311,8 +424,9 @@ export function FabricationSheetView({ spool, doc, check, sheet }: { spool: Spoo
       <Section title="Bill of materials" id="bom">
         <BillOfMaterials sheet={sheet} />
         <p className="mt-1 text-xs text-steel-600">
-          Mass from the ring area and the material density (carbon steel 7850 kg/m³, the basis of the ASME B36.10M plain-end formula 10.69·(D − t)·t lb/ft).
-          Spool mass is the pipe as built (developed length, walls as ordered); water {n(sheet.waterDensity.value)} kg/m³.
+          Mass from the ring area and the material density (carbon steel 7850 kg/m³, the basis of
+          the ASME B36.10M plain-end formula 10.69·(D − t)·t lb/ft). Spool mass is the pipe as built
+          (developed length, walls as ordered); water {n(sheet.waterDensity.value)} kg/m³.
         </p>
       </Section>
       <Section title="Hydrotest (B31.3 para. 345.4.2)" id="hydrotest">
@@ -353,7 +467,10 @@ function FabricationScreen({ spool }: { spool: Spool }) {
   if (materials.isPending) return <LoadingLine label="Loading materials…" />;
   if (!parsed.ok || !result) {
     return (
-      <div role="alert" className="m-4 rounded border border-red-200 bg-red-50 px-3 py-2 text-sm text-red-800">
+      <div
+        role="alert"
+        className="m-4 rounded border border-red-200 bg-red-50 px-3 py-2 text-sm text-red-800"
+      >
         The stored spool document is not valid:
         <ul className="list-disc pl-5 font-mono text-xs">
           {(parsed.ok ? [] : parsed.issues).map((i) => (
@@ -365,7 +482,14 @@ function FabricationScreen({ spool }: { spool: Spool }) {
       </div>
     );
   }
-  return <FabricationSheetView spool={spool} doc={parsed.doc} check={result.check} sheet={result.sheet} />;
+  return (
+    <FabricationSheetView
+      spool={spool}
+      doc={parsed.doc}
+      check={result.check}
+      sheet={result.sheet}
+    />
+  );
 }
 
 /** `/spools/:spoolId/fabrication`: the printable fabrication sheet, for every role. */

@@ -10,7 +10,10 @@ const importedSchema = z.object({
 
 /** `POST /api/spools/import` (spool:edit): one spool per row, all rows or none (422). */
 export function importLineList(csv: string) {
-  return apiRequest('/spools/import', { rawBody: { contentType: 'text/csv', text: csv }, schema: importedSchema });
+  return apiRequest('/spools/import', {
+    rawBody: { contentType: 'text/csv', text: csv },
+    schema: importedSchema,
+  });
 }
 
 export function useImportLineList() {

@@ -2,7 +2,12 @@ import { useMutation } from '@tanstack/react-query';
 import { z } from 'zod';
 import { apiRequest } from '@/lib/api';
 
-const csvIssueSchema = z.object({ line: z.number().nullable(), column: z.string().nullable(), path: z.string(), message: z.string() });
+const csvIssueSchema = z.object({
+  line: z.number().nullable(),
+  column: z.string().nullable(),
+  path: z.string(),
+  message: z.string(),
+});
 
 const previewSchema = z.object({
   ok: z.boolean(),
@@ -22,7 +27,10 @@ export type LineListPreview = z.infer<typeof previewSchema>;
 
 /** `POST /api/spools/import/preview` (spool:edit): the spools a line-list CSV would create; never writes. */
 export function previewLineList(csv: string) {
-  return apiRequest('/spools/import/preview', { rawBody: { contentType: 'text/csv', text: csv }, schema: previewSchema });
+  return apiRequest('/spools/import/preview', {
+    rawBody: { contentType: 'text/csv', text: csv },
+    schema: previewSchema,
+  });
 }
 
 export function usePreviewLineList() {

@@ -14,7 +14,12 @@ const UNITS = {
   metric: { pressure: 'MPa', temperature: '°C', length: 'mm' },
 } as const;
 
-const cell = (v: unknown, unit?: string) => (typeof v === 'number' ? `${formatNumber(v)}${unit ? ` ${unit}` : ''}` : typeof v === 'string' && v !== '' ? v : '—');
+const cell = (v: unknown, unit?: string) =>
+  typeof v === 'number'
+    ? `${formatNumber(v)}${unit ? ` ${unit}` : ''}`
+    : typeof v === 'string' && v !== ''
+      ? v
+      : '—';
 
 /**
  * Line-list import: one spool per CSV row with its design conditions. Check the file first
@@ -29,16 +34,25 @@ export function LineListPage() {
   const checked = preview.data && preview.variables === file?.text ? preview.data : undefined;
 
   return (
-    <PageFrame title="Line-list import" intro="Create spools from a line list: one row per spool with its design conditions; the elements are drawn afterwards in the sketcher.">
+    <PageFrame
+      title="Line-list import"
+      intro="Create spools from a line list: one row per spool with its design conditions; the elements are drawn afterwards in the sketcher."
+    >
       <Panel title="Upload">
         <p className="mb-3 text-sm text-steel-600">
-          Columns <code className="font-mono text-xs">name, pressure, temperature</code> (required) and{' '}
+          Columns <code className="font-mono text-xs">name, pressure, temperature</code> (required)
+          and{' '}
           <code className="font-mono text-xs">
-            line, units, external pressure, material, allowable stress, quality factor, product form, corrosion allowance, mill tolerance, stiffened length
+            line, units, external pressure, material, allowable stress, quality factor, product
+            form, corrosion allowance, mill tolerance, stiffened length
           </code>
           . Values are in the row's units (imperial: psi, °F, in; metric: MPa, °C, mm).
         </p>
-        {!canEdit ? <p role="alert" className="mb-3 text-sm text-red-700">Your role cannot create spools.</p> : null}
+        {!canEdit ? (
+          <p role="alert" className="mb-3 text-sm text-red-700">
+            Your role cannot create spools.
+          </p>
+        ) : null}
         <div className="grid grid-cols-[1fr_auto] items-start gap-3">
           <TextField
             label="Line-list CSV"
@@ -55,7 +69,10 @@ export function LineListPage() {
                   setFileError(null);
                   setFile({ name: f.name, text });
                 },
-                (err: unknown) => setFileError(`Line-list CSV: ${err instanceof Error ? err.message : String(err)}`),
+                (err: unknown) =>
+                  setFileError(
+                    `Line-list CSV: ${err instanceof Error ? err.message : String(err)}`,
+                  ),
               );
             }}
           />
@@ -82,14 +99,23 @@ export function LineListPage() {
           <div className="flex flex-col gap-3">
             {!checked.ok ? <CsvIssuesTable issues={checked.issues} /> : null}
             <p className="text-sm text-steel-700">
-              {file?.name}: {checked.items.length} spool{checked.items.length === 1 ? '' : 's'} read without problems
-              {checked.ok ? '. Nothing is written until you create them.' : `; the file has ${checked.issues.length} problem${checked.issues.length === 1 ? '' : 's'}, so none will be created.`}
+              {file?.name}: {checked.items.length} spool{checked.items.length === 1 ? '' : 's'} read
+              without problems
+              {checked.ok
+                ? '. Nothing is written until you create them.'
+                : `; the file has ${checked.issues.length} problem${checked.issues.length === 1 ? '' : 's'}, so none will be created.`}
             </p>
             {checked.items.length > 0 ? <PreviewTable items={checked.items} /> : null}
             {checked.ok && !create.isSuccess ? (
               <div>
-                <Button variant="primary" disabled={create.isPending} onClick={() => file && create.mutate(file.text)}>
-                  {create.isPending ? 'Creating…' : `Create ${checked.items.length} spool${checked.items.length === 1 ? '' : 's'}`}
+                <Button
+                  variant="primary"
+                  disabled={create.isPending}
+                  onClick={() => file && create.mutate(file.text)}
+                >
+                  {create.isPending
+                    ? 'Creating…'
+                    : `Create ${checked.items.length} spool${checked.items.length === 1 ? '' : 's'}`}
                 </Button>
               </div>
             ) : null}
@@ -104,7 +130,10 @@ export function LineListPage() {
                 {create.data.items.map((s, i) => (
                   <span key={s.id}>
                     {i > 0 ? ', ' : ''}
-                    <Link to={`/spools/${s.id}`} className="font-medium text-copper-600 hover:underline">
+                    <Link
+                      to={`/spools/${s.id}`}
+                      className="font-medium text-copper-600 hover:underline"
+                    >
                       {s.name}
                     </Link>
                   </span>
@@ -146,7 +175,14 @@ function PreviewTable({ items }: { readonly items: LineListPreview['items'] }) {
               <td className={tdClass}>{s.units}</td>
               <td className={`${tdClass} tabular-nums`}>{cell(c.pressure, u.pressure)}</td>
               <td className={`${tdClass} tabular-nums`}>{cell(c.temperature, u.temperature)}</td>
-              <td className={tdClass}>{cell(c.material ?? (c.allowableStress !== undefined ? `S = ${String(c.allowableStress)} ${u.pressure}` : undefined))}</td>
+              <td className={tdClass}>
+                {cell(
+                  c.material ??
+                    (c.allowableStress !== undefined
+                      ? `S = ${String(c.allowableStress)} ${u.pressure}`
+                      : undefined),
+                )}
+              </td>
               <td className={`${tdClass} tabular-nums`}>{cell(c.corrosionAllowance, u.length)}</td>
             </tr>
           );

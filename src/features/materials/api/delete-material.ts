@@ -8,7 +8,10 @@ const deletedSchema = recheckFieldsSchema.extend({ deleted: z.string() });
 
 /** `DELETE /api/materials/:id` (admin): a team material; a built-in row it replaced applies again. */
 export function deleteMaterial(id: string) {
-  return apiRequest(`/materials/${encodeURIComponent(id)}`, { method: 'DELETE', schema: deletedSchema });
+  return apiRequest(`/materials/${encodeURIComponent(id)}`, {
+    method: 'DELETE',
+    schema: deletedSchema,
+  });
 }
 
 export function useDeleteMaterial() {

@@ -8,7 +8,11 @@ const importedSchema = recheckFieldsSchema.extend({ imported: z.number() });
 
 /** `POST /api/materials/import?source=` (admin): writes every material of the CSV, or none (422). */
 export function importMaterialsCsv(v: { csv: string; source: string }) {
-  return apiRequest('/materials/import', { query: { source: v.source }, rawBody: { contentType: 'text/csv', text: v.csv }, schema: importedSchema });
+  return apiRequest('/materials/import', {
+    query: { source: v.source },
+    rawBody: { contentType: 'text/csv', text: v.csv },
+    schema: importedSchema,
+  });
 }
 
 export function useImportMaterialsCsv() {

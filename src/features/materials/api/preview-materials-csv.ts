@@ -24,7 +24,11 @@ export type MaterialsPreview = z.infer<typeof previewSchema>;
 
 /** `POST /api/materials/import/preview?source=` (admin): a dry run of the CSV; never writes. */
 export function previewMaterialsCsv(v: { csv: string; source: string }) {
-  return apiRequest('/materials/import/preview', { query: { source: v.source }, rawBody: { contentType: 'text/csv', text: v.csv }, schema: previewSchema });
+  return apiRequest('/materials/import/preview', {
+    query: { source: v.source },
+    rawBody: { contentType: 'text/csv', text: v.csv },
+    schema: previewSchema,
+  });
 }
 
 export function usePreviewMaterialsCsv() {

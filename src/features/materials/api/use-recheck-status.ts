@@ -3,7 +3,11 @@ import { z } from 'zod';
 import { apiRequest } from '@/lib/api';
 import type { RecheckFields } from './material-schemas';
 
-export type RecheckStatus = { state: 'done'; count: number } | { state: 'running'; jobId: string; done: number; total: number } | { state: 'failed'; error: string } | { state: 'unknown' };
+export type RecheckStatus =
+  | { state: 'done'; count: number }
+  | { state: 'running'; jobId: string; done: number; total: number }
+  | { state: 'failed'; error: string }
+  | { state: 'unknown' };
 
 const jobSchema = z.object({
   id: z.number(),
@@ -23,9 +27,13 @@ export function useRecheckStatus(result: RecheckFields | undefined): RecheckStat
   const jobId = result && typeof result.rechecked !== 'number' ? result.recheckJob?.id : undefined;
   const job = useQuery({
     queryKey: ['admin', 'jobs', jobId],
-    queryFn: ({ signal }) => apiRequest(`/admin/jobs/${encodeURIComponent(jobId!)}`, { schema: jobSchema, signal }),
+    queryFn: ({ signal }) =>
+      apiRequest(`/admin/jobs/${encodeURIComponent(jobId!)}`, { schema: jobSchema, signal }),
     enabled: jobId !== undefined,
-    refetchInterval: (q) => (q.state.data && (q.state.data.status === 'done' || q.state.data.status === 'failed') ? false : 500),
+    refetchInterval: (q) =>
+      q.state.data && (q.state.data.status === 'done' || q.state.data.status === 'failed')
+        ? false
+        : 500,
   });
   if (!result) return { state: 'unknown' };
   if (typeof result.rechecked === 'number') return { state: 'done', count: result.rechecked };

@@ -19,10 +19,27 @@ import { RecheckNote } from './recheck-note';
 
 const asOptions = (xs: readonly string[]) => xs.map((x) => ({ value: x, label: x }));
 /** Empty number inputs are "not given" (undefined), so the schema says which one is missing. */
-const numberOrUndefined = (v: unknown) => (v === '' || v === null || v === undefined ? undefined : Number(v));
-const say = (label: string, e: FieldError | undefined) => (e?.message ? `${label} ${e.message}` : undefined);
+const numberOrUndefined = (v: unknown) =>
+  v === '' || v === null || v === undefined ? undefined : Number(v);
+const say = (label: string, e: FieldError | undefined) =>
+  e?.message ? `${label} ${e.message}` : undefined;
 
-const FIELDS = ['id', 'spec', 'grade', 'name', 'category', 'yFamily', 'wFamily', 'modulusGroup', 'productForms', 'tensileKsi', 'yieldKsi', 'points', 'sourceNote', 'fromMemory'];
+const FIELDS = [
+  'id',
+  'spec',
+  'grade',
+  'name',
+  'category',
+  'yFamily',
+  'wFamily',
+  'modulusGroup',
+  'productForms',
+  'tensileKsi',
+  'yieldKsi',
+  'points',
+  'sourceNote',
+  'fromMemory',
+];
 
 const EMPTY: TeamMaterialInput = {
   id: '',
@@ -45,7 +62,10 @@ const EMPTY: TeamMaterialInput = {
 export function MaterialForm() {
   const add = useAddMaterial();
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm<TeamMaterialInput, unknown, TeamMaterialValues>({ resolver: zodResolver(teamMaterialInputSchema), defaultValues: EMPTY });
+  const form = useForm<TeamMaterialInput, unknown, TeamMaterialValues>({
+    resolver: zodResolver(teamMaterialInputSchema),
+    defaultValues: EMPTY,
+  });
   const points = useFieldArray({ control: form.control, name: 'points' });
   const { errors } = form.formState;
   const num = { setValueAs: numberOrUndefined };
@@ -62,18 +82,71 @@ export function MaterialForm() {
   });
 
   return (
-    <form aria-label="Add a team material" onSubmit={(e) => void onSubmit(e)} noValidate className="flex flex-col gap-4">
+    <form
+      aria-label="Add a team material"
+      onSubmit={(e) => void onSubmit(e)}
+      noValidate
+      className="flex flex-col gap-4"
+    >
       <div className="grid grid-cols-4 gap-3">
-        <TextField label="Material id" hint="What spools refer to, e.g. KX-CS-70" {...form.register('id')} error={say('Material id', errors.id)} />
-        <TextField label="Specification" {...form.register('spec')} error={say('Specification', errors.spec)} />
+        <TextField
+          label="Material id"
+          hint="What spools refer to, e.g. KX-CS-70"
+          {...form.register('id')}
+          error={say('Material id', errors.id)}
+        />
+        <TextField
+          label="Specification"
+          {...form.register('spec')}
+          error={say('Specification', errors.spec)}
+        />
         <TextField label="Grade" {...form.register('grade')} error={say('Grade', errors.grade)} />
-        <TextField label="Name" hint="Optional; spec and grade when empty" {...form.register('name')} error={say('Name', errors.name)} />
-        <SelectField label="Category" options={asOptions(MATERIAL_CATEGORIES)} {...form.register('category')} error={say('Category', errors.category)} />
-        <SelectField label="Y coefficient family" options={asOptions(Y_FAMILIES)} {...form.register('yFamily')} error={say('Y coefficient family', errors.yFamily)} />
-        <SelectField label="Weld strength family" options={asOptions(W_FAMILIES)} {...form.register('wFamily')} error={say('Weld strength family', errors.wFamily)} />
-        <SelectField label="Modulus group" options={asOptions(MODULUS_GROUPS)} {...form.register('modulusGroup')} error={say('Modulus group', errors.modulusGroup)} />
-        <TextField label="Tensile strength" unit="ksi" type="number" step="any" {...form.register('tensileKsi', num)} error={say('Tensile strength', errors.tensileKsi)} />
-        <TextField label="Yield strength" unit="ksi" type="number" step="any" {...form.register('yieldKsi', num)} error={say('Yield strength', errors.yieldKsi)} />
+        <TextField
+          label="Name"
+          hint="Optional; spec and grade when empty"
+          {...form.register('name')}
+          error={say('Name', errors.name)}
+        />
+        <SelectField
+          label="Category"
+          options={asOptions(MATERIAL_CATEGORIES)}
+          {...form.register('category')}
+          error={say('Category', errors.category)}
+        />
+        <SelectField
+          label="Y coefficient family"
+          options={asOptions(Y_FAMILIES)}
+          {...form.register('yFamily')}
+          error={say('Y coefficient family', errors.yFamily)}
+        />
+        <SelectField
+          label="Weld strength family"
+          options={asOptions(W_FAMILIES)}
+          {...form.register('wFamily')}
+          error={say('Weld strength family', errors.wFamily)}
+        />
+        <SelectField
+          label="Modulus group"
+          options={asOptions(MODULUS_GROUPS)}
+          {...form.register('modulusGroup')}
+          error={say('Modulus group', errors.modulusGroup)}
+        />
+        <TextField
+          label="Tensile strength"
+          unit="ksi"
+          type="number"
+          step="any"
+          {...form.register('tensileKsi', num)}
+          error={say('Tensile strength', errors.tensileKsi)}
+        />
+        <TextField
+          label="Yield strength"
+          unit="ksi"
+          type="number"
+          step="any"
+          {...form.register('yieldKsi', num)}
+          error={say('Yield strength', errors.yieldKsi)}
+        />
       </div>
       <fieldset className="flex flex-wrap items-center gap-x-4 gap-y-1">
         <legend className="mb-1 text-xs font-medium text-steel-600">Product forms</legend>
@@ -90,14 +163,48 @@ export function MaterialForm() {
         ) : null}
       </fieldset>
       <fieldset>
-        <legend className="mb-1 text-xs font-medium text-steel-600">Allowable stress by temperature</legend>
+        <legend className="mb-1 text-xs font-medium text-steel-600">
+          Allowable stress by temperature
+        </legend>
         <div className="flex flex-col gap-2">
           {points.fields.map((field, i) => (
-            <div key={field.id} className="grid grid-cols-[12rem_12rem_12rem_auto] items-start gap-3" data-point-row={i + 1}>
-              <TextField label={`Row ${i + 1}: temperature`} unit="°F" type="number" step="any" {...form.register(`points.${i}.tempF`, num)} error={say(`Row ${i + 1} temperature`, errors.points?.[i]?.tempF)} />
-              <TextField label={`Row ${i + 1}: allowable stress S`} unit="ksi" type="number" step="any" {...form.register(`points.${i}.stressKsi`, num)} error={say(`Row ${i + 1} allowable stress`, errors.points?.[i]?.stressKsi)} />
-              <TextField label={`Row ${i + 1}: yield at temperature`} unit="ksi, optional" type="number" step="any" {...form.register(`points.${i}.yieldAtKsi`, num)} error={say(`Row ${i + 1} yield`, errors.points?.[i]?.yieldAtKsi)} />
-              <Button size="sm" variant="ghost" className="mt-5" disabled={points.fields.length <= 1} onClick={() => points.remove(i)} aria-label={`Remove row ${i + 1}`}>
+            <div
+              key={field.id}
+              className="grid grid-cols-[12rem_12rem_12rem_auto] items-start gap-3"
+              data-point-row={i + 1}
+            >
+              <TextField
+                label={`Row ${i + 1}: temperature`}
+                unit="°F"
+                type="number"
+                step="any"
+                {...form.register(`points.${i}.tempF`, num)}
+                error={say(`Row ${i + 1} temperature`, errors.points?.[i]?.tempF)}
+              />
+              <TextField
+                label={`Row ${i + 1}: allowable stress S`}
+                unit="ksi"
+                type="number"
+                step="any"
+                {...form.register(`points.${i}.stressKsi`, num)}
+                error={say(`Row ${i + 1} allowable stress`, errors.points?.[i]?.stressKsi)}
+              />
+              <TextField
+                label={`Row ${i + 1}: yield at temperature`}
+                unit="ksi, optional"
+                type="number"
+                step="any"
+                {...form.register(`points.${i}.yieldAtKsi`, num)}
+                error={say(`Row ${i + 1} yield`, errors.points?.[i]?.yieldAtKsi)}
+              />
+              <Button
+                size="sm"
+                variant="ghost"
+                className="mt-5"
+                disabled={points.fields.length <= 1}
+                onClick={() => points.remove(i)}
+                aria-label={`Remove row ${i + 1}`}
+              >
                 Remove
               </Button>
             </div>
@@ -108,7 +215,15 @@ export function MaterialForm() {
             </p>
           ) : null}
           <div>
-            <Button size="sm" onClick={() => points.append({ tempF: undefined as unknown as number, stressKsi: undefined as unknown as number })}>
+            <Button
+              size="sm"
+              onClick={() =>
+                points.append({
+                  tempF: undefined as unknown as number,
+                  stressKsi: undefined as unknown as number,
+                })
+              }
+            >
               Add a temperature row
             </Button>
           </div>
@@ -138,7 +253,9 @@ export function MaterialForm() {
         {add.isSuccess ? (
           <p role="status" className="text-sm text-emerald-800">
             Added {add.data.item.id}
-            {add.data.replaces === 'library' ? ' (replaces the built-in row for this team)' : ''}. <RecheckNote result={add.data} />
+            {add.data.replaces === 'library'
+              ? ' (replaces the built-in row for this team)'
+              : ''}. <RecheckNote result={add.data} />
           </p>
         ) : null}
       </div>

@@ -16,13 +16,26 @@ export function MaterialsCsvUpload() {
   const commit = useImportMaterialsCsv();
   const [file, setFile] = useState<{ name: string; text: string } | null>(null);
   const [source, setSource] = useState('');
-  const [localError, setLocalError] = useState<{ field: 'file' | 'source'; message: string } | null>(null);
-  const checked = preview.data && preview.variables?.csv === file?.text && preview.variables.source === source.trim() ? preview.data : undefined;
+  const [localError, setLocalError] = useState<{
+    field: 'file' | 'source';
+    message: string;
+  } | null>(null);
+  const checked =
+    preview.data &&
+    preview.variables?.csv === file?.text &&
+    preview.variables.source === source.trim()
+      ? preview.data
+      : undefined;
 
   const check = () => {
     commit.reset();
     if (!file) return setLocalError({ field: 'file', message: 'CSV file: choose a file first' });
-    if (source.trim().length < 3) return setLocalError({ field: 'source', message: 'Source note: give the source of the values (table, edition, document), at least 3 characters' });
+    if (source.trim().length < 3)
+      return setLocalError({
+        field: 'source',
+        message:
+          'Source note: give the source of the values (table, edition, document), at least 3 characters',
+      });
     setLocalError(null);
     preview.mutate({ csv: file.text, source: source.trim() });
   };
@@ -30,9 +43,16 @@ export function MaterialsCsvUpload() {
   return (
     <div className="flex flex-col gap-3">
       <p className="text-sm text-steel-600">
-        One row per material and temperature. Columns <code className="font-mono text-xs">id, spec, grade, tensile_ksi, yield_ksi, temp_f, stress_ksi</code>; optional{' '}
-        <code className="font-mono text-xs">name, category, y_family, w_family, modulus_group, product_forms, yield_at_ksi, from_memory</code>. A team row with a built-in id replaces it for
-        the team.
+        One row per material and temperature. Columns{' '}
+        <code className="font-mono text-xs">
+          id, spec, grade, tensile_ksi, yield_ksi, temp_f, stress_ksi
+        </code>
+        ; optional{' '}
+        <code className="font-mono text-xs">
+          name, category, y_family, w_family, modulus_group, product_forms, yield_at_ksi,
+          from_memory
+        </code>
+        . A team row with a built-in id replaces it for the team.
       </p>
       <div className="grid grid-cols-[1fr_1fr_auto] items-start gap-3">
         <TextField
@@ -50,7 +70,11 @@ export function MaterialsCsvUpload() {
                 setLocalError(null);
                 setFile({ name: f.name, text });
               },
-              (err: unknown) => setLocalError({ field: 'file', message: `CSV file: ${err instanceof Error ? err.message : String(err)}` }),
+              (err: unknown) =>
+                setLocalError({
+                  field: 'file',
+                  message: `CSV file: ${err instanceof Error ? err.message : String(err)}`,
+                }),
             );
           }}
         />
@@ -74,7 +98,8 @@ export function MaterialsCsvUpload() {
       {checked && checked.ok && !commit.isSuccess ? (
         <div className="flex flex-col gap-2" aria-label="Materials in the file">
           <p className="text-sm text-steel-700">
-            {file?.name}: {checked.items.length} material{checked.items.length === 1 ? '' : 's'}, no problems. Nothing is written until you import.
+            {file?.name}: {checked.items.length} material{checked.items.length === 1 ? '' : 's'}, no
+            problems. Nothing is written until you import.
           </p>
           <table className={tableClass} data-testid="materials-preview">
             <thead>
@@ -95,14 +120,26 @@ export function MaterialsCsvUpload() {
                     {m.rows} row{m.rows === 1 ? '' : 's'}, {m.minTempF}–{m.maxTempF} °F
                   </td>
                   <td className={tdClass}>{m.fromMemory ? 'yes' : 'no'}</td>
-                  <td className={tdClass}>{m.replaces === 'team' ? 'replaces the team row' : m.replaces === 'library' ? 'replaces the built-in row for the team' : 'new'}</td>
+                  <td className={tdClass}>
+                    {m.replaces === 'team'
+                      ? 'replaces the team row'
+                      : m.replaces === 'library'
+                        ? 'replaces the built-in row for the team'
+                        : 'new'}
+                  </td>
                 </tr>
               ))}
             </tbody>
           </table>
           <div>
-            <Button variant="primary" disabled={commit.isPending || !file} onClick={() => file && commit.mutate({ csv: file.text, source: source.trim() })}>
-              {commit.isPending ? 'Importing…' : `Import ${checked.items.length} material${checked.items.length === 1 ? '' : 's'}`}
+            <Button
+              variant="primary"
+              disabled={commit.isPending || !file}
+              onClick={() => file && commit.mutate({ csv: file.text, source: source.trim() })}
+            >
+              {commit.isPending
+                ? 'Importing…'
+                : `Import ${checked.items.length} material${checked.items.length === 1 ? '' : 's'}`}
             </Button>
           </div>
         </div>
@@ -114,7 +151,8 @@ export function MaterialsCsvUpload() {
       ) : null}
       {commit.isSuccess ? (
         <p role="status" className="text-sm text-emerald-800">
-          Imported {commit.data.imported} material{commit.data.imported === 1 ? '' : 's'}. <RecheckNote result={commit.data} />
+          Imported {commit.data.imported} material{commit.data.imported === 1 ? '' : 's'}.{' '}
+          <RecheckNote result={commit.data} />
         </p>
       ) : null}
     </div>

@@ -21,7 +21,10 @@ export function MaterialsPage() {
   const remove = useDeleteMaterial();
   const [show, setShow] = useState<Show>('all');
   const [confirm, setConfirm] = useState<string | null>(null);
-  const rows = useMemo(() => (materials.data ?? []).filter((m) => show === 'all' || m.origin === show), [materials.data, show]);
+  const rows = useMemo(
+    () => (materials.data ?? []).filter((m) => show === 'all' || m.origin === show),
+    [materials.data, show],
+  );
   const teamCount = (materials.data ?? []).filter((m) => m.origin === 'team').length;
 
   return (
@@ -33,7 +36,12 @@ export function MaterialsPage() {
         <div className="mb-3 flex items-center gap-3">
           <label className="flex items-center gap-2 text-sm text-steel-700">
             Show
-            <select aria-label="Show materials" className={cn(inputClass, 'w-40')} value={show} onChange={(e) => setShow(e.target.value as Show)}>
+            <select
+              aria-label="Show materials"
+              className={cn(inputClass, 'w-40')}
+              value={show}
+              onChange={(e) => setShow(e.target.value as Show)}
+            >
               <option value="all">All materials</option>
               <option value="team">Team materials</option>
               <option value="library">Built-in materials</option>
@@ -46,7 +54,11 @@ export function MaterialsPage() {
           ) : null}
           {remove.isError ? <ErrorLine error={remove.error} /> : null}
         </div>
-        {materials.isPending ? <LoadingLine /> : materials.isError ? <ErrorLine error={materials.error} /> : null}
+        {materials.isPending ? (
+          <LoadingLine />
+        ) : materials.isError ? (
+          <ErrorLine error={materials.error} />
+        ) : null}
         {materials.data ? (
           <table className={tableClass} data-testid="materials">
             <thead>
@@ -57,7 +69,11 @@ export function MaterialsPage() {
                 <th className={thClass}>S(T) rows</th>
                 <th className={thClass}>Source note</th>
                 <th className={thClass}>From memory</th>
-                {manage ? <th className={thClass}><span className="sr-only">Actions</span></th> : null}
+                {manage ? (
+                  <th className={thClass}>
+                    <span className="sr-only">Actions</span>
+                  </th>
+                ) : null}
               </tr>
             </thead>
             <tbody>
@@ -119,15 +135,27 @@ function MaterialLine(props: {
         </span>
       </td>
       <td className={tdClass}>
-        <span className={cn('whitespace-nowrap rounded px-1.5 py-px text-xs font-medium', m.origin === 'team' ? 'bg-copper-400/20 text-copper-600' : 'bg-steel-100 text-steel-600')}>
+        <span
+          className={cn(
+            'whitespace-nowrap rounded px-1.5 py-px text-xs font-medium',
+            m.origin === 'team'
+              ? 'bg-copper-400/20 text-copper-600'
+              : 'bg-steel-100 text-steel-600',
+          )}
+        >
           {m.origin === 'team' ? 'Team' : 'Built-in'}
         </span>
       </td>
       <td className={cn(tdClass, 'whitespace-nowrap tabular-nums')}>
         {temps.length} · {Math.min(...temps)}–{Math.max(...temps)} °F
       </td>
-      <td className={cn(tdClass, 'max-w-md text-xs text-steel-700')}>{m.origin === 'team' ? m.sourceNote || m.source : m.source}</td>
-      <td className={cn(tdClass, memory !== 'no' && 'font-medium text-amber-800')} data-from-memory={memory}>
+      <td className={cn(tdClass, 'max-w-md text-xs text-steel-700')}>
+        {m.origin === 'team' ? m.sourceNote || m.source : m.source}
+      </td>
+      <td
+        className={cn(tdClass, memory !== 'no' && 'font-medium text-amber-800')}
+        data-from-memory={memory}
+      >
         {memory}
       </td>
       {props.manage ? (

@@ -18,6 +18,11 @@ export function RecheckNote({ result }: { readonly result: RecheckFields | undef
       </span>
     );
   }
-  if (status.state === 'failed') return <span data-testid="rechecked" className="text-red-700">The re-check of the team's spools failed: {status.error}</span>;
+  if (status.state === 'failed')
+    return (
+      <span data-testid="rechecked" className="text-red-700">
+        The re-check of the team's spools failed: {status.error}
+      </span>
+    );
   return null;
 }

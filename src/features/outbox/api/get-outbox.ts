@@ -19,10 +19,15 @@ const outboxSchema = z.object({ items: z.array(outboxMailSchema) });
  * team, one-use links redacted. 404 when the server sends through a real SMTP server.
  */
 export async function getOutbox(limit: number, signal?: AbortSignal) {
-  return (await apiRequest('/admin/outbox', { query: { limit }, schema: outboxSchema, signal })).items;
+  return (await apiRequest('/admin/outbox', { query: { limit }, schema: outboxSchema, signal }))
+    .items;
 }
 
-export const outboxQueryOptions = (limit: number) => queryOptions({ queryKey: ['outbox', limit] as const, queryFn: ({ signal }) => getOutbox(limit, signal) });
+export const outboxQueryOptions = (limit: number) =>
+  queryOptions({
+    queryKey: ['outbox', limit] as const,
+    queryFn: ({ signal }) => getOutbox(limit, signal),
+  });
 
 export function useOutbox(limit: number) {
   return useQuery(outboxQueryOptions(limit));

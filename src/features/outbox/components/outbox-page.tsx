@@ -29,8 +29,16 @@ export function OutboxPage() {
     >
       <Panel title="Messages">
         {outbox.isPending ? <LoadingLine /> : null}
-        {noOutbox ? <p className="text-sm text-steel-600">This server sends mail through an SMTP server, so there is no outbox to show.</p> : outbox.isError ? <ErrorLine error={outbox.error} /> : null}
-        {outbox.data && outbox.data.length === 0 ? <p className="text-sm text-steel-500">No mail yet.</p> : null}
+        {noOutbox ? (
+          <p className="text-sm text-steel-600">
+            This server sends mail through an SMTP server, so there is no outbox to show.
+          </p>
+        ) : outbox.isError ? (
+          <ErrorLine error={outbox.error} />
+        ) : null}
+        {outbox.data && outbox.data.length === 0 ? (
+          <p className="text-sm text-steel-500">No mail yet.</p>
+        ) : null}
         {outbox.data && outbox.data.length > 0 ? (
           <ul className="flex flex-col divide-y divide-steel-100" data-testid="outbox">
             {outbox.data.map((m) => {
@@ -47,15 +55,21 @@ export function OutboxPage() {
                     <span className="truncate text-steel-700" title={m.to}>
                       {m.to}
                     </span>
-                    <span className={cn('truncate text-steel-900', expanded && 'font-medium')}>{m.subject}</span>
-                    <span className="text-right tabular-nums text-steel-500">{formatDateTime(m.createdAt)}</span>
+                    <span className={cn('truncate text-steel-900', expanded && 'font-medium')}>
+                      {m.subject}
+                    </span>
+                    <span className="text-right tabular-nums text-steel-500">
+                      {formatDateTime(m.createdAt)}
+                    </span>
                   </button>
                   {expanded ? (
                     <div className="mb-2 rounded border border-steel-200 bg-steel-50 p-3 text-sm">
                       <p className="mb-2 text-xs text-steel-500">
                         From {m.from} · to {m.to} · {formatDateTime(m.createdAt)}
                       </p>
-                      <pre className="whitespace-pre-wrap break-words font-sans text-steel-800">{hideTokens(m.text)}</pre>
+                      <pre className="whitespace-pre-wrap break-words font-sans text-steel-800">
+                        {hideTokens(m.text)}
+                      </pre>
                     </div>
                   ) : null}
                 </li>
@@ -64,7 +78,12 @@ export function OutboxPage() {
           </ul>
         ) : null}
         {outbox.data && outbox.data.length >= limit && limit < 500 ? (
-          <Button size="sm" variant="ghost" className="mt-2" onClick={() => setLimit((l) => Math.min(500, l * 2))}>
+          <Button
+            size="sm"
+            variant="ghost"
+            className="mt-2"
+            onClick={() => setLimit((l) => Math.min(500, l * 2))}
+          >
             Show more
           </Button>
         ) : null}

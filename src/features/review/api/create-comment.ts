@@ -9,8 +9,16 @@ export interface CreateCommentInput {
   readonly elementId?: string | undefined;
 }
 
-export function createComment({ spoolId, body, elementId }: CreateCommentInput): Promise<ReviewComment> {
-  return apiRequest(`/spools/${encodeURIComponent(spoolId)}/comments`, { method: 'POST', body: { body, elementId }, schema: commentSchema });
+export function createComment({
+  spoolId,
+  body,
+  elementId,
+}: CreateCommentInput): Promise<ReviewComment> {
+  return apiRequest(`/spools/${encodeURIComponent(spoolId)}/comments`, {
+    method: 'POST',
+    body: { body, elementId },
+    schema: commentSchema,
+  });
 }
 
 export function useCreateComment() {

@@ -7,7 +7,11 @@ export function getWaiting(signal?: AbortSignal): Promise<Waiting> {
 }
 
 export const waitingQueryOptions = () =>
-  queryOptions({ queryKey: reviewKeys.waiting(), queryFn: ({ signal }) => getWaiting(signal), staleTime: 30_000 });
+  queryOptions({
+    queryKey: reviewKeys.waiting(),
+    queryFn: ({ signal }) => getWaiting(signal),
+    staleTime: 30_000,
+  });
 
 /** The spools waiting on the signed-in member's role. */
 export function useWaiting(enabled = true) {

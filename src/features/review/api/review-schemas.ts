@@ -1,5 +1,9 @@
 import { z } from 'zod';
-import { checkSummarySchema, spoolStatusSchema, spoolSummarySchema } from '@/features/spools/api/spool-schemas';
+import {
+  checkSummarySchema,
+  spoolStatusSchema,
+  spoolSummarySchema,
+} from '@/features/spools/api/spool-schemas';
 import type { SpoolDocument } from '@shared/model/spool';
 
 const userRefSchema = z.object({ id: z.string(), name: z.string() }).nullable();
@@ -50,7 +54,8 @@ export type RevisionInfo = z.infer<typeof revisionInfoSchema>;
 export const revisionListSchema = z.object({ items: z.array(revisionInfoSchema) });
 
 const documentSchema = z.custom<SpoolDocument>(
-  (v) => typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements),
+  (v) =>
+    typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements),
   'document must be a spool document',
 );
 
@@ -70,7 +75,13 @@ export const revisionSchema = z.object({
 });
 export type Revision = z.infer<typeof revisionSchema>;
 
-const waitingCommentSchema = z.object({ id: z.number().int(), revision: z.number().int(), elementId: z.string().nullable(), body: z.string(), createdAt: z.string() });
+const waitingCommentSchema = z.object({
+  id: z.number().int(),
+  revision: z.number().int(),
+  elementId: z.string().nullable(),
+  body: z.string(),
+  createdAt: z.string(),
+});
 
 /** GET /api/waiting: the spools waiting on the signed-in member's role. */
 export const waitingSchema = z.object({

@@ -9,8 +9,16 @@ export interface UpdateCommentInput {
 }
 
 /** Resolve or reopen a comment. */
-export function updateComment({ spoolId, commentId, resolved }: UpdateCommentInput): Promise<ReviewComment> {
-  return apiRequest(`/spools/${encodeURIComponent(spoolId)}/comments/${commentId}`, { method: 'PATCH', body: { resolved }, schema: commentSchema });
+export function updateComment({
+  spoolId,
+  commentId,
+  resolved,
+}: UpdateCommentInput): Promise<ReviewComment> {
+  return apiRequest(`/spools/${encodeURIComponent(spoolId)}/comments/${commentId}`, {
+    method: 'PATCH',
+    body: { resolved },
+    schema: commentSchema,
+  });
 }
 
 export function useUpdateComment() {

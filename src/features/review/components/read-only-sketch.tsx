@@ -10,7 +10,12 @@ import { DisplayUnitsProvider } from '@/features/sketch/components/display-units
 import { ElementInspector } from '@/features/sketch/components/element-inspector';
 import { ElementTable } from '@/features/sketch/components/element-table';
 import { createSpoolStore, type SpoolStore } from '@/features/sketch/store/spool-store';
-import { SpoolStoreProvider, useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '@/features/sketch/store/spool-store-context';
+import {
+  SpoolStoreProvider,
+  useSpoolCheck,
+  useSpoolStore,
+  useSpoolStoreApi,
+} from '@/features/sketch/store/spool-store-context';
 
 export interface ReadOnlySketchProps {
   readonly document: SpoolDocument;
@@ -45,10 +50,18 @@ function ReadOnlyScreen({ banner }: { readonly banner: ReactNode }) {
             </div>
             <CautionNote className="shrink-0 rounded-none border-t border-steel-200" />
             <div className="h-56 shrink-0 border-t border-steel-200 bg-white">
-              <ElementTable elements={doc.elements} checks={check.elements} selectedId={selectedId} onSelect={select} />
+              <ElementTable
+                elements={doc.elements}
+                checks={check.elements}
+                selectedId={selectedId}
+                onSelect={select}
+              />
             </div>
           </div>
-          <aside className="flex w-[26rem] shrink-0 flex-col border-l border-steel-200 bg-white" aria-label="Inspector">
+          <aside
+            className="flex w-[26rem] shrink-0 flex-col border-l border-steel-200 bg-white"
+            aria-label="Inspector"
+          >
             <div role="tablist" className="flex border-b border-steel-200 text-sm">
               {(
                 [
@@ -62,13 +75,22 @@ function ReadOnlyScreen({ banner }: { readonly banner: ReactNode }) {
                   role="tab"
                   aria-selected={tab === id}
                   onClick={() => setTab(id)}
-                  className={cn('flex-1 px-3 py-2', tab === id ? 'border-b-2 border-copper-500 font-semibold text-steel-900' : 'text-steel-500 hover:text-steel-800')}
+                  className={cn(
+                    'flex-1 px-3 py-2',
+                    tab === id
+                      ? 'border-b-2 border-copper-500 font-semibold text-steel-900'
+                      : 'text-steel-500 hover:text-steel-800',
+                  )}
                 >
                   {label}
                 </button>
               ))}
             </div>
-            <div role="tabpanel" aria-label={tab === 'element' ? 'Selected element' : 'Design conditions'} className="min-h-0 flex-1 overflow-auto">
+            <div
+              role="tabpanel"
+              aria-label={tab === 'element' ? 'Selected element' : 'Design conditions'}
+              className="min-h-0 flex-1 overflow-auto"
+            >
               {tab === 'element' ? <ElementInspector readOnly /> : <ConditionsPanel readOnly />}
             </div>
           </aside>
@@ -82,7 +104,13 @@ function ReadOnlyScreen({ banner }: { readonly banner: ReactNode }) {
  * A spool document shown with the sketcher's own canvas, element list and inspector, with every
  * editing control off: an older revision, or a shared link. No drawing bar, so no drawing keys.
  */
-export function ReadOnlySketch({ document, check, checkOptions, banner, selectId }: ReadOnlySketchProps) {
+export function ReadOnlySketch({
+  document,
+  check,
+  checkOptions,
+  banner,
+  selectId,
+}: ReadOnlySketchProps) {
   const [store] = useState<SpoolStore>(() => {
     const s = createSpoolStore(document);
     s.getState().load(document, null);

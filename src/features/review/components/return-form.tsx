@@ -24,7 +24,9 @@ export function ReturnForm({ onReturn, onCancel, busy }: ReturnFormProps) {
       onSubmit={(e) => {
         e.preventDefault();
         if (note.trim() === '') {
-          setError('Note: say what the designer should change (it is sent to them and kept as a comment)');
+          setError(
+            'Note: say what the designer should change (it is sent to them and kept as a comment)',
+          );
           return;
         }
         setError(null);

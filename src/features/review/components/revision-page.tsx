@@ -19,13 +19,22 @@ export function RevisionPage() {
     const team = materials.data?.filter((m) => m.origin === 'team') ?? [];
     return team.length > 0 ? { findMaterial: createMaterialLookup(team) } : undefined;
   }, [materials.data]);
-  if (revision === null) return <div className="p-6"><ErrorLine error={new Error(`"${rev}" is not a revision number`)} /></div>;
-  if (query.isPending || materials.isPending) return <LoadingLine label={`Opening revision ${revision}…`} />;
+  if (revision === null)
+    return (
+      <div className="p-6">
+        <ErrorLine error={new Error(`"${rev}" is not a revision number`)} />
+      </div>
+    );
+  if (query.isPending || materials.isPending)
+    return <LoadingLine label={`Opening revision ${revision}…`} />;
   if (query.isError)
     return (
       <div className="flex flex-col gap-2 p-6">
         <ErrorLine error={query.error} />
-        <Link className="text-sm text-copper-600 underline" to={`/spools/${encodeURIComponent(spoolId)}`}>
+        <Link
+          className="text-sm text-copper-600 underline"
+          to={`/spools/${encodeURIComponent(spoolId)}`}
+        >
           Back to the spool
         </Link>
       </div>
@@ -43,14 +52,29 @@ export function RevisionPage() {
       </strong>
       <LifecycleBadge status={r.status} />
       {r.line ? <span className="text-violet-900">line {r.line}</span> : null}
-      <span className="rounded bg-violet-700 px-1.5 py-px text-xs font-semibold uppercase tracking-wide text-white">Read-only</span>
-      <span className="text-xs text-violet-900">
-        {r.current ? 'This is the current revision, shown without editing.' : `An earlier revision, as frozen ${formatDateTime(r.updatedAt)}. Nothing here can be changed.`}
+      <span className="rounded bg-violet-700 px-1.5 py-px text-xs font-semibold uppercase tracking-wide text-white">
+        Read-only
       </span>
-      <Link to={`/spools/${encodeURIComponent(spoolId)}`} className="ml-auto rounded border border-violet-400 bg-white px-2 py-0.5 text-xs font-medium text-violet-800 hover:bg-violet-100">
+      <span className="text-xs text-violet-900">
+        {r.current
+          ? 'This is the current revision, shown without editing.'
+          : `An earlier revision, as frozen ${formatDateTime(r.updatedAt)}. Nothing here can be changed.`}
+      </span>
+      <Link
+        to={`/spools/${encodeURIComponent(spoolId)}`}
+        className="ml-auto rounded border border-violet-400 bg-white px-2 py-0.5 text-xs font-medium text-violet-800 hover:bg-violet-100"
+      >
         ← Back to the current revision
       </Link>
     </div>
   );
-  return <ReadOnlySketch key={`${spoolId}-${r.revision}`} document={r.document} checkOptions={checkOptions} banner={banner} selectId={params.get('element')} />;
+  return (
+    <ReadOnlySketch
+      key={`${spoolId}-${r.revision}`}
+      document={r.document}
+      checkOptions={checkOptions}
+      banner={banner}
+      selectId={params.get('element')}
+    />
+  );
 }

@@ -8,8 +8,16 @@ export interface CreateShareInput {
   readonly expiresInDays: number;
 }
 
-export function createShare({ spoolId, revision, expiresInDays }: CreateShareInput): Promise<CreatedShare> {
-  return apiRequest(`/spools/${encodeURIComponent(spoolId)}/shares`, { method: 'POST', body: { revision, expiresInDays }, schema: createdShareSchema });
+export function createShare({
+  spoolId,
+  revision,
+  expiresInDays,
+}: CreateShareInput): Promise<CreatedShare> {
+  return apiRequest(`/spools/${encodeURIComponent(spoolId)}/shares`, {
+    method: 'POST',
+    body: { revision, expiresInDays },
+    schema: createdShareSchema,
+  });
 }
 
 export function useCreateShare() {

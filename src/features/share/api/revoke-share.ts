@@ -8,7 +8,9 @@ export interface RevokeShareInput {
 }
 
 export async function revokeShare({ spoolId, shareId }: RevokeShareInput): Promise<void> {
-  await apiRequest(`/spools/${encodeURIComponent(spoolId)}/shares/${encodeURIComponent(shareId)}`, { method: 'DELETE' });
+  await apiRequest(`/spools/${encodeURIComponent(spoolId)}/shares/${encodeURIComponent(shareId)}`, {
+    method: 'DELETE',
+  });
 }
 
 export function useRevokeShare() {

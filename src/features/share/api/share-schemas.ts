@@ -25,7 +25,10 @@ export const shareListSchema = z.object({ items: z.array(shareSchema) });
 export type ShareState = 'active' | 'expired' | 'revoked';
 
 /** Active, expired or revoked, at `now`. */
-export function shareState(s: Pick<Share, 'revokedAt' | 'expiresAt'>, now = Date.now()): ShareState {
+export function shareState(
+  s: Pick<Share, 'revokedAt' | 'expiresAt'>,
+  now = Date.now(),
+): ShareState {
   if (s.revokedAt) return 'revoked';
   return new Date(s.expiresAt).getTime() <= now ? 'expired' : 'active';
 }
@@ -37,9 +40,17 @@ export const publicShareSchema = z.object({
     line: z.string(),
     revision: z.number().int(),
     status: spoolStatusSchema,
-    document: z.custom<SpoolDocument>((v) => typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements)),
+    document: z.custom<SpoolDocument>(
+      (v) =>
+        typeof v === 'object' &&
+        v !== null &&
+        Array.isArray((v as { elements?: unknown }).elements),
+    ),
   }),
-  check: z.custom<SpoolCheck>((v) => typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements)),
+  check: z.custom<SpoolCheck>(
+    (v) =>
+      typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements),
+  ),
   sharedAt: z.string(),
   expiresAt: z.string(),
   sharedBy: z.string().nullish(),

@@ -25,7 +25,11 @@ function LinkEndPage({ title, text, testId }: { title: string; text: string; tes
         <Brand />
       </header>
       <main className="flex flex-1 items-start justify-center p-10">
-        <div role="alert" data-testid={testId} className="max-w-lg rounded-lg border border-steel-300 bg-white p-6 shadow-sm">
+        <div
+          role="alert"
+          data-testid={testId}
+          className="max-w-lg rounded-lg border border-steel-300 bg-white p-6 shadow-sm"
+        >
           <h1 className="mb-2 text-xl font-semibold text-steel-800">{title}</h1>
           <p className="text-sm text-steel-600">{text}</p>
           <p className="mt-3 text-sm text-steel-600">Ask the person who sent it for a new link.</p>
@@ -47,28 +51,58 @@ export function PublicSharePage() {
     if (isApiError(e) && e.status === 410) {
       const expired = /expired/i.test(e.message);
       return expired ? (
-        <LinkEndPage testId="share-expired" title="This link has expired" text="The spool shared through this link is no longer available: the link's time ran out." />
+        <LinkEndPage
+          testId="share-expired"
+          title="This link has expired"
+          text="The spool shared through this link is no longer available: the link's time ran out."
+        />
       ) : (
-        <LinkEndPage testId="share-revoked" title="This link was revoked" text="The person who shared this spool has withdrawn the link, so it shows nothing any more." />
+        <LinkEndPage
+          testId="share-revoked"
+          title="This link was revoked"
+          text="The person who shared this spool has withdrawn the link, so it shows nothing any more."
+        />
       );
     }
-    if (isApiError(e) && e.status === 404) return <LinkEndPage testId="share-unknown" title="No such link" text="This address does not lead to a shared spool. Check that it was copied whole." />;
-    return <LinkEndPage testId="share-error" title="The shared spool could not be loaded" text={e.message} />;
+    if (isApiError(e) && e.status === 404)
+      return (
+        <LinkEndPage
+          testId="share-unknown"
+          title="No such link"
+          text="This address does not lead to a shared spool. Check that it was copied whole."
+        />
+      );
+    return (
+      <LinkEndPage
+        testId="share-error"
+        title="The shared spool could not be loaded"
+        text={e.message}
+      />
+    );
   }
   const { spool, check, sharedAt, expiresAt, sharedBy } = query.data;
   const banner = (
-    <div className="flex flex-wrap items-center gap-3 border-b border-steel-200 bg-steel-50 px-3 py-2 text-sm" data-testid="share-banner">
+    <div
+      className="flex flex-wrap items-center gap-3 border-b border-steel-200 bg-steel-50 px-3 py-2 text-sm"
+      data-testid="share-banner"
+    >
       <h1 className="text-base font-semibold text-steel-900">{spool.name}</h1>
       {spool.line ? <span className="text-steel-600">line {spool.line}</span> : null}
       <span className="text-steel-600" data-testid="share-revision">
         revision {spool.revision}
       </span>
       <LifecycleBadge status={spool.status} />
-      <span className="rounded bg-steel-700 px-1.5 py-px text-xs font-semibold uppercase tracking-wide text-white">Read-only</span>
-      <span className="text-xs text-steel-600" data-testid="shared-by">
-        Shared by {sharedBy ?? 'a team member'} on {formatDateTime(sharedAt)}, until {formatDateTime(expiresAt)}
+      <span className="rounded bg-steel-700 px-1.5 py-px text-xs font-semibold uppercase tracking-wide text-white">
+        Read-only
       </span>
-      <a className="ml-auto rounded border border-steel-300 bg-white px-2 py-0.5 text-xs font-medium text-copper-600 hover:bg-steel-100" href={`/api/share/${encodeURIComponent(token)}/calc-sheet.pdf`}>
+      <span className="text-xs text-steel-600" data-testid="shared-by">
+        Shared by {sharedBy ?? 'a team member'} on {formatDateTime(sharedAt)}, until{' '}
+        {formatDateTime(expiresAt)}
+      </span>
+      <a
+        className="ml-auto rounded border border-steel-300 bg-white px-2 py-0.5 text-xs font-medium text-copper-600 hover:bg-steel-100"
+        href={`/api/share/${encodeURIComponent(token)}/calc-sheet.pdf`}
+      >
         Download calc sheet (PDF)
       </a>
     </div>

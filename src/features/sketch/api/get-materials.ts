@@ -29,7 +29,11 @@ export async function getMaterials(signal?: AbortSignal): Promise<MaterialRow[]>
 }
 
 export const materialsQueryOptions = () =>
-  queryOptions({ queryKey: ['materials'] as const, queryFn: ({ signal }) => getMaterials(signal), staleTime: 5 * 60_000 });
+  queryOptions({
+    queryKey: ['materials'] as const,
+    queryFn: ({ signal }) => getMaterials(signal),
+    staleTime: 5 * 60_000,
+  });
 
 export function useMaterials() {
   return useQuery(materialsQueryOptions());

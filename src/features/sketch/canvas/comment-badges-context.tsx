@@ -1,4 +1,11 @@
-import { createContext, useContext, useMemo, useRef, type MutableRefObject, type ReactNode } from 'react';
+import {
+  createContext,
+  useContext,
+  useMemo,
+  useRef,
+  type MutableRefObject,
+  type ReactNode,
+} from 'react';
 
 /*
  * Review badges over the sketch: a count of open comments on each commented element. Like the
@@ -29,14 +36,20 @@ const OFF = 'translate(-10000px, 0)';
 export const BadgeContext = createContext<Shared | null>(null);
 
 /** Supplies the counts to the canvas; without it the canvas draws no badges. */
-export function CommentBadgesProvider({ counts, onOpen, children }: CommentBadgeValue & { readonly children: ReactNode }) {
+export function CommentBadgesProvider({
+  counts,
+  onOpen,
+  children,
+}: CommentBadgeValue & { readonly children: ReactNode }) {
   const registry = useRef(new Map<string, HTMLButtonElement>());
   const value = useMemo(() => {
     const place = (project: Projector) => {
       for (const [id, el] of registry.current) {
         const p = project(id);
         // Just above and right of the element's centre, so a click on the pipe itself still reaches it.
-        el.style.transform = p ? `translate(${(p.x + 6).toFixed(1)}px, ${(p.y - 26).toFixed(1)}px)` : OFF;
+        el.style.transform = p
+          ? `translate(${(p.x + 6).toFixed(1)}px, ${(p.y - 26).toFixed(1)}px)`
+          : OFF;
       }
     };
     return { counts, onOpen, registry, place };
@@ -50,7 +63,10 @@ export function CommentBadgeOverlay() {
   if (!ctx || ctx.counts.size === 0) return null;
   const { counts, onOpen, registry } = ctx;
   return (
-    <div className="pointer-events-none absolute inset-0 overflow-hidden font-sans" data-testid="comment-badges">
+    <div
+      className="pointer-events-none absolute inset-0 overflow-hidden font-sans"
+      data-testid="comment-badges"
+    >
       {[...counts].map(([id, n]) => (
         <button
           key={id}
@@ -73,4 +89,3 @@ export function CommentBadgeOverlay() {
     </div>
   );
 }
-

@@ -184,7 +184,13 @@ export function SketchCanvas({
           <CommentBadgeProjector path={path} scale={scale} />
           <AdaptiveDpr pixelated />
           <OrbitControls makeDefault enableDamping={false} regress />
-          <ViewController path={path} scale={scale} fitRequest={view.fitRequest} focus={view.focus} store={store} />
+          <ViewController
+            path={path}
+            scale={scale}
+            fitRequest={view.fitRequest}
+            focus={view.focus}
+            store={store}
+          />
         </Canvas>
         <LabelOverlay labels={labels} registry={registry} />
         <CommentBadgeOverlay />

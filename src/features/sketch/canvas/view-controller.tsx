@@ -37,7 +37,11 @@ export interface SpoolwrightCanvasHooks {
   /** Zoom to one element, keeping the view direction (as "Focus on selected"). */
   focus(elementId: string): boolean;
   /** Size of the canvas and the screen box (page px) of the whole spool's bounding box corners. */
-  spoolScreenBox(): { canvas: { left: number; top: number; width: number; height: number }; min: { x: number; y: number }; max: { x: number; y: number } };
+  spoolScreenBox(): {
+    canvas: { left: number; top: number; width: number; height: number };
+    min: { x: number; y: number };
+    max: { x: number; y: number };
+  };
   /** Request a render. */
   invalidate(): void;
   /** RGBA of the drawing buffer at a page point (the canvas keeps its buffer). */

@@ -3,11 +3,7 @@ import { DIRECTIONS, type Direction, type Heading } from '@shared/model/spool';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { cn } from '@/lib/cn';
-import {
-  angledDirection,
-  type AngledField,
-  type AngledIssue,
-} from '../geometry/angled-direction';
+import { angledDirection, type AngledField, type AngledIssue } from '../geometry/angled-direction';
 import { buildSpoolPath } from '../geometry/spool-path';
 import { angleBetweenDeg } from '../geometry/vec';
 import { useSpoolStore } from '../store/spool-store-context';
@@ -20,7 +16,14 @@ export const ANGLED_FIELD_LABELS: Record<AngledField, string> = {
   roll: 'Roll',
 };
 
-const NAMES: Record<Direction, string> = { north: 'North', south: 'South', east: 'East', west: 'West', up: 'Up', down: 'Down' };
+const NAMES: Record<Direction, string> = {
+  north: 'North',
+  south: 'South',
+  east: 'East',
+  west: 'West',
+  up: 'Up',
+  down: 'Down',
+};
 
 const parseNumber = (text: string): number => {
   const t = text.trim().replace(',', '.');
@@ -46,7 +49,10 @@ export function AngledLegFields({ onDraw, onInvalid }: AngledLegFieldsProps) {
   const [rollText, setRollText] = useState('0');
   const [touched, setTouched] = useState(false);
   const doc = useSpoolStore((s) => s.doc);
-  const endDir = useMemo(() => (doc.elements.length > 0 ? buildSpoolPath(doc).endDir : undefined), [doc]);
+  const endDir = useMemo(
+    () => (doc.elements.length > 0 ? buildSpoolPath(doc).endDir : undefined),
+    [doc],
+  );
 
   const result = angledDirection({
     from,
@@ -65,13 +71,21 @@ export function AngledLegFields({ onDraw, onInvalid }: AngledLegFieldsProps) {
   const draw = () => {
     setTouched(true);
     if (!result.ok) {
-      onInvalid(result.issues.map((i) => `${ANGLED_FIELD_LABELS[i.field]} ${i.message}`).join('; '));
+      onInvalid(
+        result.issues.map((i) => `${ANGLED_FIELD_LABELS[i.field]} ${i.message}`).join('; '),
+      );
       return;
     }
     onDraw(result.heading, result.description);
   };
 
-  const select = (label: string, value: string, onChange: (v: string) => void, field: AngledField, withNone = false) => {
+  const select = (
+    label: string,
+    value: string,
+    onChange: (v: string) => void,
+    field: AngledField,
+    withNone = false,
+  ) => {
     const err = errorOf(field);
     return (
       <label className="flex flex-col text-[11px] text-steel-500">
@@ -96,7 +110,12 @@ export function AngledLegFields({ onDraw, onInvalid }: AngledLegFieldsProps) {
       </label>
     );
   };
-  const number = (label: string, value: string, onChange: (v: string) => void, field: AngledField) => (
+  const number = (
+    label: string,
+    value: string,
+    onChange: (v: string) => void,
+    field: AngledField,
+  ) => (
     <label className="flex flex-col text-[11px] text-steel-500">
       {label} (°)
       <input
@@ -115,18 +134,34 @@ export function AngledLegFields({ onDraw, onInvalid }: AngledLegFieldsProps) {
       />
     </label>
   );
-  const errors = (['from', 'toward', 'angle', 'rollToward', 'roll'] as const).map(errorOf).filter(Boolean);
+  const errors = (['from', 'toward', 'angle', 'rollToward', 'roll'] as const)
+    .map(errorOf)
+    .filter(Boolean);
 
   return (
-    <div className="flex flex-col gap-1 border-t border-steel-100 px-3 py-2" role="group" aria-label="Angled leg" data-testid="angled-leg">
+    <div
+      className="flex flex-col gap-1 border-t border-steel-100 px-3 py-2"
+      role="group"
+      aria-label="Angled leg"
+      data-testid="angled-leg"
+    >
       <div className="flex flex-wrap items-end gap-2">
         <span className="self-center text-xs font-semibold text-steel-600">Angled leg</span>
         {select('From', from, (v) => setFrom(v as Direction), 'from')}
         {select('Toward', toward, (v) => setToward(v as Direction), 'toward')}
         {number('Angle', angleText, setAngleText, 'angle')}
-        {select('Roll toward', rollToward, (v) => setRollToward(v as Direction | ''), 'rollToward', true)}
+        {select(
+          'Roll toward',
+          rollToward,
+          (v) => setRollToward(v as Direction | ''),
+          'rollToward',
+          true,
+        )}
         {number('Roll', rollText, setRollText, 'roll')}
-        <Button onClick={draw} title="Draw a leg of the leg length in this direction (after the selected element when “after selected” is ticked)">
+        <Button
+          onClick={draw}
+          title="Draw a leg of the leg length in this direction (after the selected element when “after selected” is ticked)"
+        >
           Draw angled leg
         </Button>
         <span className="self-center text-xs text-steel-600" data-testid="angled-preview">

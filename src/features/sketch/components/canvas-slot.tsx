@@ -10,8 +10,12 @@ class CanvasBoundary extends Component<{ children: ReactNode }, { failed: string
   override render() {
     if (this.state.failed) {
       return (
-        <div role="alert" className="flex h-full items-center justify-center p-6 text-center text-sm text-steel-600">
-          The 3D sketch could not start here ({this.state.failed}). The element list and the inspector still work.
+        <div
+          role="alert"
+          className="flex h-full items-center justify-center p-6 text-center text-sm text-steel-600"
+        >
+          The 3D sketch could not start here ({this.state.failed}). The element list and the
+          inspector still work.
         </div>
       );
     }
@@ -25,7 +29,10 @@ export function CanvasSlot() {
     <CanvasBoundary>
       <Suspense
         fallback={
-          <div className="flex h-full items-center justify-center bg-steel-50 text-sm text-steel-500" role="status">
+          <div
+            className="flex h-full items-center justify-center bg-steel-50 text-sm text-steel-500"
+            role="status"
+          >
             Loading the 3D sketch…
           </div>
         }

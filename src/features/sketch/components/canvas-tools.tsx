@@ -8,7 +8,11 @@ import { ViewMenu } from './view-menu';
 function KeyHelp({ open, onClose }: { open: boolean; onClose: () => void }) {
   if (!open) return null;
   return (
-    <div role="dialog" aria-label="Sketcher keys" className="absolute top-full right-0 z-20 mt-1 w-96 rounded-lg border border-steel-200 bg-white p-3 shadow-lg">
+    <div
+      role="dialog"
+      aria-label="Sketcher keys"
+      className="absolute top-full right-0 z-20 mt-1 w-96 rounded-lg border border-steel-200 bg-white p-3 shadow-lg"
+    >
       <div className="mb-2 flex items-center justify-between">
         <h3 className="text-sm font-semibold text-steel-800">Keys</h3>
         <Button size="sm" variant="ghost" onClick={onClose} aria-label="Close key list">
@@ -25,7 +29,9 @@ function KeyHelp({ open, onClose }: { open: boolean; onClose: () => void }) {
           ))}
         </tbody>
       </table>
-      <p className="mt-2 text-[11px] text-steel-500">Keys work while the focus is not in a text field. The leg length comes from the length box.</p>
+      <p className="mt-2 text-[11px] text-steel-500">
+        Keys work while the focus is not in a text field. The leg length comes from the length box.
+      </p>
     </div>
   );
 }
@@ -50,11 +56,25 @@ export function CanvasTools() {
       <Button size="sm" onClick={fit} title="Fit the spool in view (F)">
         Fit
       </Button>
-      <Button size="sm" onClick={focusSelected} disabled={!selectedId} title={selectedId ? `Zoom to ${selectedId} (Shift+F)` : 'Select an element to zoom to it (Shift+F)'}>
+      <Button
+        size="sm"
+        onClick={focusSelected}
+        disabled={!selectedId}
+        title={
+          selectedId
+            ? `Zoom to ${selectedId} (Shift+F)`
+            : 'Select an element to zoom to it (Shift+F)'
+        }
+      >
         Focus
       </Button>
       <ViewMenu />
-      <Button size="sm" onClick={() => setHelpOpen((o) => !o)} aria-expanded={helpOpen} title="Keys (?)">
+      <Button
+        size="sm"
+        onClick={() => setHelpOpen((o) => !o)}
+        aria-expanded={helpOpen}
+        title="Keys (?)"
+      >
         Keys ?
       </Button>
       <KeyHelp open={helpOpen} onClose={() => setHelpOpen(false)} />

@@ -17,11 +17,24 @@ const CASE_LABELS: Record<string, string> = {
 
 export const caseLabel = (c: string | null | undefined) => (c ? (CASE_LABELS[c] ?? c) : '—');
 
-function Row({ label, children, testId, strong }: { label: string; children: React.ReactNode; testId?: string; strong?: boolean }) {
+function Row({
+  label,
+  children,
+  testId,
+  strong,
+}: {
+  label: string;
+  children: React.ReactNode;
+  testId?: string;
+  strong?: boolean;
+}) {
   return (
     <div className="flex items-baseline justify-between gap-2 border-b border-steel-100 py-0.5">
       <dt className="text-xs text-steel-500">{label}</dt>
-      <dd data-testid={testId} className={cn('text-right text-sm tabular-nums text-steel-900', strong && 'font-semibold')}>
+      <dd
+        data-testid={testId}
+        className={cn('text-right text-sm tabular-nums text-steel-900', strong && 'font-semibold')}
+      >
         {children}
       </dd>
     </div>
@@ -30,7 +43,10 @@ function Row({ label, children, testId, strong }: { label: string; children: Rea
 
 function useLen() {
   const units = useDisplayUnits();
-  return (v: number | null | undefined) => (v === null || v === undefined ? '—' : `${formatNumber(units.toDisplay(v, 'length'))} ${units.label('length')}`);
+  return (v: number | null | undefined) =>
+    v === null || v === undefined
+      ? '—'
+      : `${formatNumber(units.toDisplay(v, 'length'))} ${units.label('length')}`;
 }
 
 /** Trail steps; `restated`: the steps already come in display units (no further conversion). */
@@ -41,7 +57,11 @@ function TrailList({ steps, restated }: { steps: readonly TrailStep[]; restated?
       {steps.map((s, i) => {
         const shown = restated ? { value: s.value, unit: s.unit } : units.showUnit(s.value, s.unit);
         return (
-          <li key={i} className="rounded border border-steel-200 bg-steel-50 p-1.5 text-xs" data-testid="trail-step">
+          <li
+            key={i}
+            className="rounded border border-steel-200 bg-steel-50 p-1.5 text-xs"
+            data-testid="trail-step"
+          >
             <div className="flex justify-between gap-2">
               <span className="font-medium text-steel-700">{s.label}</span>
               <span className="shrink-0 text-steel-500">{s.equation}</span>
@@ -58,7 +78,13 @@ function TrailList({ steps, restated }: { steps: readonly TrailStep[]; restated?
   );
 }
 
-function CasesTable({ cases, governing }: { cases: readonly CaseResult[]; governing: string | null }) {
+function CasesTable({
+  cases,
+  governing,
+}: {
+  cases: readonly CaseResult[];
+  governing: string | null;
+}) {
   const len = useLen();
   return (
     <table className="w-full text-xs" data-testid="case-table">
@@ -73,7 +99,13 @@ function CasesTable({ cases, governing }: { cases: readonly CaseResult[]; govern
       </thead>
       <tbody className="tabular-nums">
         {cases.map((c) => (
-          <tr key={c.case} className={cn('border-t border-steel-100', c.case === governing && 'font-semibold text-copper-600')}>
+          <tr
+            key={c.case}
+            className={cn(
+              'border-t border-steel-100',
+              c.case === governing && 'font-semibold text-copper-600',
+            )}
+          >
             <td className="py-0.5">{caseLabel(c.case)}</td>
             <td>{c.I === undefined ? '—' : formatNumber(c.I)}</td>
             <td>{len(c.t)}</td>
@@ -134,12 +166,19 @@ export interface CheckReportProps {
 }
 
 /** The wall check of one element: the figures, per-location cases, wall before bending, trail and inputs. */
-export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailCheck }: CheckReportProps) {
+export function CheckReport({
+  check,
+  schedule,
+  onUseSchedule,
+  readOnly,
+  trailCheck,
+}: CheckReportProps) {
   const units = useDisplayUnits();
   const len = useLen();
   const governingCase = check.cases.find((c) => c.case === check.governing);
   const externalCase = check.cases.find((c) => c.case === 'external');
-  const pressure = (v: number) => `${formatNumber(units.toDisplay(v, 'pressure'))} ${units.label('pressure')}`;
+  const pressure = (v: number) =>
+    `${formatNumber(units.toDisplay(v, 'pressure'))} ${units.label('pressure')}`;
   const canUse = check.lightestSchedule !== null && check.lightestSchedule !== schedule;
   return (
     <section aria-label="Wall check" className="flex flex-col gap-3" data-testid="check-report">
@@ -150,7 +189,10 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
         </span>
       </div>
       {check.inputIssues.length > 0 ? (
-        <ul role="alert" className="rounded border border-red-200 bg-red-50 p-2 text-xs text-red-800">
+        <ul
+          role="alert"
+          className="rounded border border-red-200 bg-red-50 p-2 text-xs text-red-800"
+        >
           {check.inputIssues.map((iss, i) => (
             <li key={i}>
               <code>{iss.path}</code>: {iss.message}
@@ -172,7 +214,11 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
         <Row label="MAWP of chosen wall">{pressure(check.mawp)}</Row>
         {externalCase?.allowablePressure !== undefined ? (
           <>
-            <Row label="allowable external pressure (lower of the two)" testId="external-allowable" strong>
+            <Row
+              label="allowable external pressure (lower of the two)"
+              testId="external-allowable"
+              strong
+            >
               {pressure(externalCase.allowablePressure)}
             </Row>
             <Row label="UG-28 value (from memory)" testId="external-ug28">
@@ -195,33 +241,56 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
           </strong>
           {check.lightest ? (
             <span data-testid="lightest-standard" className="ml-1">
-              {check.lightest.names.length > 1 ? `(= ${check.lightest.names.slice(1).join(' / ')}) ` : ''}ASME {check.lightest.standard}
+              {check.lightest.names.length > 1
+                ? `(= ${check.lightest.names.slice(1).join(' / ')}) `
+                : ''}
+              ASME {check.lightest.standard}
             </span>
           ) : null}
         </div>
         {onUseSchedule && !readOnly && check.lightestSchedule !== null ? (
-          <Button size="sm" variant="primary" disabled={!canUse} onClick={() => onUseSchedule(check.lightestSchedule!)}>
+          <Button
+            size="sm"
+            variant="primary"
+            disabled={!canUse}
+            onClick={() => onUseSchedule(check.lightestSchedule!)}
+          >
             {canUse ? `Use schedule ${check.lightestSchedule}` : 'in use'}
           </Button>
         ) : null}
       </div>
-      {check.cases.length > 1 ? <CasesTable cases={check.cases} governing={check.governing} /> : null}
+      {check.cases.length > 1 ? (
+        <CasesTable cases={check.cases} governing={check.governing} />
+      ) : null}
       {check.preBend ? (
         <div className="rounded border border-steel-200 p-2" data-testid="pre-bend">
-          <h4 className="mb-1 text-xs font-semibold uppercase tracking-wide text-steel-600">Wall before bending</h4>
+          <h4 className="mb-1 text-xs font-semibold uppercase tracking-wide text-steel-600">
+            Wall before bending
+          </h4>
           <dl>
             <Row label="R1 / D">{formatNumber(check.preBend.radiusRatio)}</Row>
-            <Row label="table factor">{check.preBend.tableFactor === null ? 'outside table' : formatNumber(check.preBend.tableFactor)}</Row>
+            <Row label="table factor">
+              {check.preBend.tableFactor === null
+                ? 'outside table'
+                : formatNumber(check.preBend.tableFactor)}
+            </Row>
             <Row label="wall by table factor">{len(check.preBend.tableWall)}</Row>
             <Row label="extrados thinning (geometric)">{len(check.preBend.extradosThinning)}</Row>
-            <Row label="intrados thickening (geometric)">{len(check.preBend.intradosThickening)}</Row>
+            <Row label="intrados thickening (geometric)">
+              {len(check.preBend.intradosThickening)}
+            </Row>
             <Row label="wall by geometric estimate">{len(check.preBend.geometricWall)}</Row>
             <Row label="ordered wall needed before bending" strong>
               {len(check.preBend.requiredOrderedWall)}
             </Row>
             <Row label="order">
               {check.preBend.orderHeavier ? (
-                <span className="font-semibold text-red-700">heavier: {check.preBend.order?.label ?? check.preBend.orderSchedule ?? 'no listed schedule'}</span>
+                <span className="font-semibold text-red-700">
+                  heavier:{' '}
+                  {check.preBend.order?.label ??
+                    check.preBend.orderSchedule ??
+                    'no listed schedule'}
+                </span>
               ) : (
                 'chosen schedule is enough'
               )}
@@ -237,7 +306,11 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
               data-code={m.code}
               className={cn(
                 'rounded px-2 py-1',
-                m.level === 'error' ? 'bg-red-50 text-red-800' : m.level === 'warning' ? 'bg-amber-50 text-amber-900' : 'bg-steel-100 text-steel-700',
+                m.level === 'error'
+                  ? 'bg-red-50 text-red-800'
+                  : m.level === 'warning'
+                    ? 'bg-amber-50 text-amber-900'
+                    : 'bg-steel-100 text-steel-700',
               )}
             >
               {m.text}
@@ -246,11 +319,15 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
         </ul>
       ) : null}
       <details className="rounded border border-steel-200 p-2" open>
-        <summary className="cursor-pointer text-xs font-semibold uppercase tracking-wide text-steel-600">Equation trail</summary>
+        <summary className="cursor-pointer text-xs font-semibold uppercase tracking-wide text-steel-600">
+          Equation trail
+        </summary>
         <EquationTrail check={check} trail={trailCheck ?? check} />
       </details>
       <details className="rounded border border-steel-200 p-2">
-        <summary className="cursor-pointer text-xs font-semibold uppercase tracking-wide text-steel-600">Inputs and their sources</summary>
+        <summary className="cursor-pointer text-xs font-semibold uppercase tracking-wide text-steel-600">
+          Inputs and their sources
+        </summary>
         <table className="mt-1 w-full text-xs" data-testid="inputs-table">
           <tbody>
             {check.inputs.map((inp, i) => {
@@ -265,7 +342,10 @@ export function CheckReport({ check, schedule, onUseSchedule, readOnly, trailChe
                   <td className="text-steel-500">
                     {inp.source}
                     {inp.fromMemory ? (
-                      <span className="ml-1 rounded bg-amber-100 px-1 font-semibold text-amber-900" title="recalled from memory: verify against the licensed edition">
+                      <span
+                        className="ml-1 rounded bg-amber-100 px-1 font-semibold text-amber-900"
+                        title="recalled from memory: verify against the licensed edition"
+                      >
                         from memory — verify
                       </span>
                     ) : null}

@@ -8,10 +8,30 @@ export const NUMERIC_CONDITION_FIELDS = [
   { name: 'temperature', label: 'Design temperature', quantity: 'temperature' },
   { name: 'externalPressure', label: 'External design pressure', quantity: 'pressure' },
   { name: 'corrosionAllowance', label: 'Corrosion allowance', quantity: 'length' },
-  { name: 'millTolerance', label: 'Mill under-tolerance', quantity: null, hint: 'fraction of nominal wall, e.g. 0.125' },
-  { name: 'stiffenedLength', label: 'Stiffened length', quantity: 'length', hint: 'between stiffeners, for external pressure' },
-  { name: 'allowableStress', label: 'Allowable stress S', quantity: 'pressure', hint: 'overrides the material table' },
-] as const satisfies readonly { name: keyof Conditions; label: string; quantity: Quantity | null; hint?: string }[];
+  {
+    name: 'millTolerance',
+    label: 'Mill under-tolerance',
+    quantity: null,
+    hint: 'fraction of nominal wall, e.g. 0.125',
+  },
+  {
+    name: 'stiffenedLength',
+    label: 'Stiffened length',
+    quantity: 'length',
+    hint: 'between stiffeners, for external pressure',
+  },
+  {
+    name: 'allowableStress',
+    label: 'Allowable stress S',
+    quantity: 'pressure',
+    hint: 'overrides the material table',
+  },
+] as const satisfies readonly {
+  name: keyof Conditions;
+  label: string;
+  quantity: Quantity | null;
+  hint?: string;
+}[];
 
 export type NumericConditionField = (typeof NUMERIC_CONDITION_FIELDS)[number]['name'];
 
@@ -40,11 +60,15 @@ export const parseTextInput = (v: unknown): string | undefined => {
 };
 
 /** Stored conditions → form values in display units. */
-export function conditionsToForm(c: ConditionOverrides | undefined, units: DisplayUnits): ConditionFormValues {
+export function conditionsToForm(
+  c: ConditionOverrides | undefined,
+  units: DisplayUnits,
+): ConditionFormValues {
   const out: Record<string, unknown> = { material: c?.material, productForm: c?.productForm };
   for (const f of NUMERIC_CONDITION_FIELDS) {
     const v = c?.[f.name];
-    out[f.name] = v === undefined ? undefined : f.quantity ? roundForEntry(units.toDisplay(v, f.quantity)) : v;
+    out[f.name] =
+      v === undefined ? undefined : f.quantity ? roundForEntry(units.toDisplay(v, f.quantity)) : v;
   }
   return out as ConditionFormValues;
 }

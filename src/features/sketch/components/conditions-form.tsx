@@ -2,7 +2,12 @@ import { useEffect } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, type FieldErrors, type UseFormRegister } from 'react-hook-form';
 import type { z } from 'zod';
-import { conditionsSchema, PRODUCT_FORMS, type Conditions, type ConditionOverrides } from '@shared/model/spool';
+import {
+  conditionsSchema,
+  PRODUCT_FORMS,
+  type Conditions,
+  type ConditionOverrides,
+} from '@shared/model/spool';
 import { Button } from '@/components/ui/button';
 import { SelectField, TextField } from '@/components/ui/field';
 import {
@@ -28,9 +33,15 @@ const PRODUCT_FORM_LABELS: Record<string, string> = {
 };
 
 /** Picker rows, plus the current value when it is not among them (so it is never dropped silently). */
-export const materialOptions = (choices: readonly MaterialChoice[], emptyLabel: string, current?: string) => [
+export const materialOptions = (
+  choices: readonly MaterialChoice[],
+  emptyLabel: string,
+  current?: string,
+) => [
   { value: '', label: emptyLabel },
-  ...(current && !choices.some((m) => m.id === current) ? [{ value: current, label: `${current} (not in the library)` }] : []),
+  ...(current && !choices.some((m) => m.id === current)
+    ? [{ value: current, label: `${current} (not in the library)` }]
+    : []),
   ...choices.map((m) => ({ value: m.id, label: m.label })),
 ];
 
@@ -42,7 +53,11 @@ export const productFormOptions = (emptyLabel: string) => [
 /** Spool conditions as typed: the shared schema plus the document-level rule on material. */
 export const spoolConditionsFormSchema = conditionsSchema.superRefine((c, ctx) => {
   if (c.material === undefined && c.allowableStress === undefined) {
-    ctx.addIssue({ code: 'custom', path: ['material'], message: 'must be chosen (or give an allowable stress S)' });
+    ctx.addIssue({
+      code: 'custom',
+      path: ['material'],
+      message: 'must be chosen (or give an allowable stress S)',
+    });
   }
 });
 
@@ -58,14 +73,25 @@ interface FieldsProps {
 }
 
 /** The design-condition inputs, shared by the spool form and the element overrides. */
-export function ConditionInputs({ register, errors, disabled, inherited, only, currentMaterial }: FieldsProps) {
+export function ConditionInputs({
+  register,
+  errors,
+  disabled,
+  inherited,
+  only,
+  currentMaterial,
+}: FieldsProps) {
   const units = useDisplayUnits();
   const choices = useMaterialChoices();
   const shown = (name: string) => !only || only.includes(name);
-  const placeholderOf = (name: keyof Conditions, quantity: 'length' | 'pressure' | 'temperature' | null) => {
+  const placeholderOf = (
+    name: keyof Conditions,
+    quantity: 'length' | 'pressure' | 'temperature' | null,
+  ) => {
     if (!inherited) return undefined;
     const v = inherited[name];
-    if (typeof v === 'number') return `inherit ${quantity ? Number(units.toDisplay(v, quantity).toPrecision(5)) : v}`;
+    if (typeof v === 'number')
+      return `inherit ${quantity ? Number(units.toDisplay(v, quantity).toPrecision(5)) : v}`;
     if (typeof v === 'string') return `inherit ${v}`;
     return 'inherit';
   };
@@ -91,7 +117,13 @@ export function ConditionInputs({ register, errors, disabled, inherited, only, c
           className="col-span-2"
           label="Material"
           disabled={disabled}
-          options={materialOptions(choices, inherited ? `${inheritLabel}${inherited.material ? ` (${inherited.material})` : ''}` : 'choose a material…', currentMaterial)}
+          options={materialOptions(
+            choices,
+            inherited
+              ? `${inheritLabel}${inherited.material ? ` (${inherited.material})` : ''}`
+              : 'choose a material…',
+            currentMaterial,
+          )}
           error={fieldMessage('Material', errors.material?.message)}
           {...register('material', { setValueAs: parseTextInput })}
         />
@@ -120,7 +152,9 @@ export interface ConditionsFormProps {
 export function ConditionsForm({ conditions, onApply, readOnly }: ConditionsFormProps) {
   const units = useDisplayUnits();
   const form = useForm<ConditionFormValues>({
-    resolver: zodResolver(spoolConditionsFormSchema as unknown as z.ZodType<ConditionFormValues, ConditionFormValues>),
+    resolver: zodResolver(
+      spoolConditionsFormSchema as unknown as z.ZodType<ConditionFormValues, ConditionFormValues>,
+    ),
     mode: 'onChange',
     defaultValues: conditionsToForm(conditions, units),
   });
@@ -132,19 +166,39 @@ export function ConditionsForm({ conditions, onApply, readOnly }: ConditionsForm
 
   const submit = form.handleSubmit((values) => {
     const dirty = form.formState.dirtyFields as Record<string, unknown>;
-    const next = formToConditions(values, conditions, (n) => Boolean(dirty[n]), units) as Conditions;
+    const next = formToConditions(
+      values,
+      conditions,
+      (n) => Boolean(dirty[n]),
+      units,
+    ) as Conditions;
     onApply(next);
   });
 
   return (
-    <form aria-label="Design conditions" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-3">
-      <ConditionInputs register={form.register} errors={form.formState.errors} disabled={readOnly} currentMaterial={conditions.material} />
+    <form
+      aria-label="Design conditions"
+      noValidate
+      onSubmit={(e) => void submit(e)}
+      className="flex flex-col gap-3"
+    >
+      <ConditionInputs
+        register={form.register}
+        errors={form.formState.errors}
+        disabled={readOnly}
+        currentMaterial={conditions.material}
+      />
       {readOnly ? null : (
         <div className="flex gap-2">
           <Button type="submit" variant="primary" size="sm" disabled={!form.formState.isDirty}>
             Apply conditions
           </Button>
-          <Button size="sm" variant="ghost" disabled={!form.formState.isDirty} onClick={() => reset(conditionsToForm(conditions, units))}>
+          <Button
+            size="sm"
+            variant="ghost"
+            disabled={!form.formState.isDirty}
+            onClick={() => reset(conditionsToForm(conditions, units))}
+          >
             Discard
           </Button>
         </div>

@@ -14,16 +14,22 @@ export function ConditionsPanel({ readOnly }: { readOnly: boolean }) {
   const [refusal, setRefusal] = useState<string | null>(null);
   const apply = (next: Conditions) => {
     const patch: Record<string, unknown> = {};
-    for (const k of new Set([...Object.keys(conditions), ...Object.keys(next)])) patch[k] = (next as Record<string, unknown>)[k];
+    for (const k of new Set([...Object.keys(conditions), ...Object.keys(next)]))
+      patch[k] = (next as Record<string, unknown>)[k];
     const r = api.getState().setConditions(patch as Partial<Conditions>);
     setRefusal(r.ok ? null : r.message);
   };
   return (
     <div className="flex flex-col gap-3 p-3">
       <h2 className="text-base font-semibold text-steel-800">Design conditions</h2>
-      <p className="text-xs text-steel-500">Every element uses these unless it overrides a value.</p>
+      <p className="text-xs text-steel-500">
+        Every element uses these unless it overrides a value.
+      </p>
       {refusal ? (
-        <p role="alert" className="rounded border border-red-200 bg-red-50 px-2 py-1 text-sm text-red-800">
+        <p
+          role="alert"
+          className="rounded border border-red-200 bg-red-50 px-2 py-1 text-sm text-red-800"
+        >
           Not applied: {refusal}
         </p>
       ) : null}

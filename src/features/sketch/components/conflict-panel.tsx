@@ -17,16 +17,36 @@ export interface ConflictPanelProps {
 export function ConflictPanel({ mine, current, onReload, onKeepEditing }: ConflictPanelProps) {
   const changes = diffDocuments(mine, current.document);
   return (
-    <div role="alertdialog" aria-label="Save conflict" className="border-b border-amber-300 bg-amber-50 px-4 py-3 text-sm text-amber-950" data-testid="conflict">
+    <div
+      role="alertdialog"
+      aria-label="Save conflict"
+      className="border-b border-amber-300 bg-amber-50 px-4 py-3 text-sm text-amber-950"
+      data-testid="conflict"
+    >
       <p className="font-semibold">
-        Not saved: this spool was saved by someone else in the meantime (version {current.version}, {formatDateTime(current.updatedAt)}).
+        Not saved: this spool was saved by someone else in the meantime (version {current.version},{' '}
+        {formatDateTime(current.updatedAt)}).
       </p>
-      <p className="mt-1 text-amber-900">Your sketch differs from the saved one in {changes.length === 0 ? 'nothing (same content)' : `${changes.length} place${changes.length === 1 ? '' : 's'}`}:</p>
+      <p className="mt-1 text-amber-900">
+        Your sketch differs from the saved one in{' '}
+        {changes.length === 0
+          ? 'nothing (same content)'
+          : `${changes.length} place${changes.length === 1 ? '' : 's'}`}
+        :
+      </p>
       {changes.length > 0 ? (
-        <ul className="mt-1 max-h-32 list-disc overflow-auto pl-5 font-mono text-xs" data-testid="conflict-changes">
+        <ul
+          className="mt-1 max-h-32 list-disc overflow-auto pl-5 font-mono text-xs"
+          data-testid="conflict-changes"
+        >
           {changes.map((c) => (
             <li key={`${c.target}-${c.change}`}>
-              {c.target}: {c.change === 'added' ? 'only in yours' : c.change === 'removed' ? 'only in the saved version' : `differs in ${c.fields.join(', ')}`}
+              {c.target}:{' '}
+              {c.change === 'added'
+                ? 'only in yours'
+                : c.change === 'removed'
+                  ? 'only in the saved version'
+                  : `differs in ${c.fields.join(', ')}`}
             </li>
           ))}
         </ul>

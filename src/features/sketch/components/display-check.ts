@@ -1,7 +1,13 @@
 import { useContext, useMemo } from 'react';
 import { checkSpool, type CheckOptions } from '@shared/engine';
 import type { ElementCheck } from '@shared/engine/types';
-import type { ConditionOverrides, Conditions, SpoolDocument, SpoolElement, UnitSystem } from '@shared/model/spool';
+import type {
+  ConditionOverrides,
+  Conditions,
+  SpoolDocument,
+  SpoolElement,
+  UnitSystem,
+} from '@shared/model/spool';
 import { getPipeWall, normalizeNps } from '@shared/data/pipe-dimensions';
 import { convert, type Quantity } from '@shared/units/units';
 import { resolveOutsideDiameter } from '../geometry/pipe-size';
@@ -30,7 +36,11 @@ const CONDITION_QUANTITIES: Partial<Record<keyof Conditions, Quantity>> = {
   grooveDepth: 'length',
 };
 
-function convertConditions<T extends ConditionOverrides>(c: T, from: UnitSystem, to: UnitSystem): T {
+function convertConditions<T extends ConditionOverrides>(
+  c: T,
+  from: UnitSystem,
+  to: UnitSystem,
+): T {
   const out: Record<string, unknown> = { ...c };
   for (const [key, q] of Object.entries(CONDITION_QUANTITIES) as [keyof Conditions, Quantity][]) {
     const v = c[key];
@@ -40,7 +50,11 @@ function convertConditions<T extends ConditionOverrides>(c: T, from: UnitSystem,
 }
 
 /** An element restated in another unit system (lengths and its condition overrides). */
-export function convertElementUnits(el: SpoolElement, from: UnitSystem, to: UnitSystem): SpoolElement {
+export function convertElementUnits(
+  el: SpoolElement,
+  from: UnitSystem,
+  to: UnitSystem,
+): SpoolElement {
   if (from === to) return el;
   const len = (v: number) => convert(v, 'length', from, to);
   const out: Record<string, unknown> = { ...el };
@@ -63,8 +77,12 @@ export function convertDocumentUnits(doc: SpoolDocument, to: UnitSystem): SpoolD
     ...doc,
     units: to,
     conditions: convertConditions(doc.conditions, from, to),
-    ...(doc.origin ? { origin: { x: len(doc.origin.x), y: len(doc.origin.y), z: len(doc.origin.z) } } : {}),
-    ...(typeof doc.defaultBendRadius === 'number' ? { defaultBendRadius: len(doc.defaultBendRadius) } : {}),
+    ...(doc.origin
+      ? { origin: { x: len(doc.origin.x), y: len(doc.origin.y), z: len(doc.origin.z) } }
+      : {}),
+    ...(typeof doc.defaultBendRadius === 'number'
+      ? { defaultBendRadius: len(doc.defaultBendRadius) }
+      : {}),
     elements: doc.elements.map((e) => convertElementUnits(e, from, to)),
   };
 }
@@ -83,7 +101,8 @@ export function pinDimensions(el: SpoolElement, units: UnitSystem): SpoolElement
     const od = resolveOutsideDiameter(el, units);
     if (od !== undefined && n) out.outsideDiameter = od;
   }
-  if (el.nominalWall === undefined && wall) out.nominalWall = units === 'imperial' ? wall.wallIn : wall.wallMm;
+  if (el.nominalWall === undefined && wall)
+    out.nominalWall = units === 'imperial' ? wall.wallIn : wall.wallMm;
   return out as unknown as SpoolElement;
 }
 
@@ -102,7 +121,11 @@ export function checkElementInUnits(
  * The element's check with its trail in the display units: `base` itself when the display
  * shows the document's units, else the element checked again in the display units.
  */
-export function useDisplayUnitCheck(doc: SpoolDocument, el: SpoolElement | undefined, base: ElementCheck | undefined): ElementCheck | undefined {
+export function useDisplayUnitCheck(
+  doc: SpoolDocument,
+  el: SpoolElement | undefined,
+  base: ElementCheck | undefined,
+): ElementCheck | undefined {
   const units = useDisplayUnits();
   const options = useContext(CheckOptionsContext);
   const conditions = doc.conditions;

@@ -24,7 +24,13 @@ export interface DisplayUnits {
 export function makeDisplayUnits(doc: UnitSystem, display: UnitSystem): DisplayUnits {
   const docLabels = UNIT_LABELS[doc];
   const quantityOf = (unit: string): Quantity | null =>
-    unit === docLabels.length ? 'length' : unit === docLabels.pressure ? 'pressure' : unit === docLabels.temperature ? 'temperature' : null;
+    unit === docLabels.length
+      ? 'length'
+      : unit === docLabels.pressure
+        ? 'pressure'
+        : unit === docLabels.temperature
+          ? 'temperature'
+          : null;
   return {
     doc,
     display,
@@ -33,14 +39,24 @@ export function makeDisplayUnits(doc: UnitSystem, display: UnitSystem): DisplayU
     label: (q) => UNIT_LABELS[display][q],
     showUnit: (value, unit) => {
       const q = quantityOf(unit);
-      return q ? { value: convert(value, q, doc, display), unit: UNIT_LABELS[display][q] } : { value, unit };
+      return q
+        ? { value: convert(value, q, doc, display), unit: UNIT_LABELS[display][q] }
+        : { value, unit };
     },
   };
 }
 
 const DisplayUnitsContext = createContext<DisplayUnits>(makeDisplayUnits('imperial', 'imperial'));
 
-export function DisplayUnitsProvider({ doc, display, children }: { doc: UnitSystem; display: UnitSystem; children: ReactNode }) {
+export function DisplayUnitsProvider({
+  doc,
+  display,
+  children,
+}: {
+  doc: UnitSystem;
+  display: UnitSystem;
+  children: ReactNode;
+}) {
   const value = useMemo(() => makeDisplayUnits(doc, display), [doc, display]);
   return <DisplayUnitsContext.Provider value={value}>{children}</DisplayUnitsContext.Provider>;
 }

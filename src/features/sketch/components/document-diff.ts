@@ -12,7 +12,15 @@ const same = (a: unknown, b: unknown) => JSON.stringify(a) === JSON.stringify(b)
 
 function differingKeys(a: object | undefined, b: object | undefined): string[] {
   const keys = new Set([...Object.keys(a ?? {}), ...Object.keys(b ?? {})]);
-  return [...keys].filter((k) => !same((a as Record<string, unknown> | undefined)?.[k], (b as Record<string, unknown> | undefined)?.[k])).sort();
+  return [...keys]
+    .filter(
+      (k) =>
+        !same(
+          (a as Record<string, unknown> | undefined)?.[k],
+          (b as Record<string, unknown> | undefined)?.[k],
+        ),
+    )
+    .sort();
 }
 
 /**
@@ -23,8 +31,20 @@ function differingKeys(a: object | undefined, b: object | undefined): string[] {
 export function diffDocuments(mine: SpoolDocument, theirs: SpoolDocument): DocumentChange[] {
   const out: DocumentChange[] = [];
   const top = differingKeys(
-    { units: mine.units, name: mine.name, line: mine.line, origin: mine.origin, defaultBendRadius: mine.defaultBendRadius },
-    { units: theirs.units, name: theirs.name, line: theirs.line, origin: theirs.origin, defaultBendRadius: theirs.defaultBendRadius },
+    {
+      units: mine.units,
+      name: mine.name,
+      line: mine.line,
+      origin: mine.origin,
+      defaultBendRadius: mine.defaultBendRadius,
+    },
+    {
+      units: theirs.units,
+      name: theirs.name,
+      line: theirs.line,
+      origin: theirs.origin,
+      defaultBendRadius: theirs.defaultBendRadius,
+    },
   );
   if (top.length > 0) out.push({ target: 'spool', change: 'changed', fields: top });
   const cond = differingKeys(mine.conditions, theirs.conditions);
@@ -39,10 +59,12 @@ export function diffDocuments(mine: SpoolDocument, theirs: SpoolDocument): Docum
       if (fields.length > 0) out.push({ target: el.id, change: 'changed', fields });
     }
   }
-  for (const el of theirs.elements) if (!mineIds.has(el.id)) out.push({ target: el.id, change: 'removed', fields: [] });
+  for (const el of theirs.elements)
+    if (!mineIds.has(el.id)) out.push({ target: el.id, change: 'removed', fields: [] });
   const commonMine = mine.elements.map((e) => e.id).filter((id) => theirById.has(id));
   const commonTheirs = theirs.elements.map((e) => e.id).filter((id) => mineIds.has(id));
-  if (!same(commonMine, commonTheirs)) out.push({ target: 'spool', change: 'changed', fields: ['elements order'] });
+  if (!same(commonMine, commonTheirs))
+    out.push({ target: 'spool', change: 'changed', fields: ['elements order'] });
   return out;
 }
 
@@ -53,7 +75,8 @@ export interface FieldChange {
   readonly after: unknown;
 }
 
-const isPlainObject = (v: unknown): v is Record<string, unknown> => typeof v === 'object' && v !== null && !Array.isArray(v);
+const isPlainObject = (v: unknown): v is Record<string, unknown> =>
+  typeof v === 'object' && v !== null && !Array.isArray(v);
 
 /**
  * Field-level differences from `before` to `after`: nested objects are walked (`conditions.pressure`,
@@ -76,7 +99,13 @@ export function diffFields(before: unknown, after: unknown, prefix = ''): FieldC
     if (other === undefined) {
       return Object.keys(obj)
         .sort()
-        .flatMap((k) => diffFields(isPlainObject(before) ? obj[k] : undefined, isPlainObject(after) ? obj[k] : undefined, prefix ? `${prefix}.${k}` : k));
+        .flatMap((k) =>
+          diffFields(
+            isPlainObject(before) ? obj[k] : undefined,
+            isPlainObject(after) ? obj[k] : undefined,
+            prefix ? `${prefix}.${k}` : k,
+          ),
+        );
     }
   }
   return [{ field: prefix || '(value)', before, after }];

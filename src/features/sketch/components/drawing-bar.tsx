@@ -44,7 +44,12 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
   const canUndo = useSpoolStore((s) => s.canUndo);
   const canRedo = useSpoolStore((s) => s.canRedo);
   const defaultRadius = useSpoolStore((s) => s.doc.defaultBendRadius);
-  const radiusChoice = defaultRadius && typeof defaultRadius === 'object' ? String(defaultRadius.multipleOfD) : defaultRadius === undefined ? '' : 'length';
+  const radiusChoice =
+    defaultRadius && typeof defaultRadius === 'object'
+      ? String(defaultRadius.multipleOfD)
+      : defaultRadius === undefined
+        ? ''
+        : 'length';
 
   const [lengthText, setLengthText] = useState(() => (units.display === 'metric' ? '1000' : '36'));
   const [insertAfter, setInsertAfter] = useState(false);
@@ -88,7 +93,10 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
     const s = api.getState();
     const target = after ? s.selectedId : null;
     if (after && !target) {
-      setNotice({ tone: 'refused', text: 'select an element first: the new leg goes right after it' });
+      setNotice({
+        tone: 'refused',
+        text: 'select an element first: the new leg goes right after it',
+      });
       return;
     }
     const r = target ? s.insertLegAfter(target, direction, length) : s.addLeg(direction, length);
@@ -103,8 +111,15 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
 
   const startRun = () => {
     const s = api.getState();
-    if (s.doc.elements.length > 0 && !window.confirm('Start a new run? This removes every element (you can undo it).')) return;
-    report(s.startRun({ nps: drawingPipe.nps, schedule: drawingPipe.schedule }), `new run: NPS ${nps}, schedule ${drawingPipe.schedule}`);
+    if (
+      s.doc.elements.length > 0 &&
+      !window.confirm('Start a new run? This removes every element (you can undo it).')
+    )
+      return;
+    report(
+      s.startRun({ nps: drawingPipe.nps, schedule: drawingPipe.schedule }),
+      `new run: NPS ${nps}, schedule ${drawingPipe.schedule}`,
+    );
   };
 
   useSketchKeys({
@@ -131,7 +146,11 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                   onChange={(e) => {
                     const next = e.target.value;
                     const walls = listPipeWalls(next).map((w) => w.schedule);
-                    const schedule = walls.includes(drawingPipe.schedule) ? drawingPipe.schedule : (walls.find((w) => w === '40' || w === 'STD') ?? walls[0] ?? drawingPipe.schedule);
+                    const schedule = walls.includes(drawingPipe.schedule)
+                      ? drawingPipe.schedule
+                      : (walls.find((w) => w === '40' || w === 'STD') ??
+                        walls[0] ??
+                        drawingPipe.schedule);
                     api.getState().setDrawingPipe({ nps: next, schedule });
                   }}
                 >
@@ -148,7 +167,11 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                   aria-label="Run schedule"
                   className={cn(inputClass, 'w-20')}
                   value={drawingPipe.schedule}
-                  onChange={(e) => api.getState().setDrawingPipe({ nps: drawingPipe.nps, schedule: e.target.value })}
+                  onChange={(e) =>
+                    api
+                      .getState()
+                      .setDrawingPipe({ nps: drawingPipe.nps, schedule: e.target.value })
+                  }
                 >
                   {schedules.map((s) => (
                     <option key={s} value={s}>
@@ -161,7 +184,10 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                 Start run
               </Button>
             </div>
-            <label className="flex flex-col text-[11px] text-steel-500" title="Bend radius given to bends drawn from now on (existing bends keep theirs)">
+            <label
+              className="flex flex-col text-[11px] text-steel-500"
+              title="Bend radius given to bends drawn from now on (existing bends keep theirs)"
+            >
               New bends
               <select
                 aria-label="Radius of new bends"
@@ -169,12 +195,16 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                 value={radiusChoice}
                 onChange={(e) => {
                   const v = Number(e.target.value);
-                  if (Number.isFinite(v) && v > 0) report(api.getState().setDefaultBendRadius({ multipleOfD: v }));
+                  if (Number.isFinite(v) && v > 0)
+                    report(api.getState().setDefaultBendRadius({ multipleOfD: v }));
                 }}
               >
                 {radiusChoice === '' ? (
                   <option value="">
-                    {typeof FALLBACK_BEND_RADIUS === 'object' ? `${FALLBACK_BEND_RADIUS.multipleOfD} × D` : 'standard'} (default)
+                    {typeof FALLBACK_BEND_RADIUS === 'object'
+                      ? `${FALLBACK_BEND_RADIUS.multipleOfD} × D`
+                      : 'standard'}{' '}
+                    (default)
                   </option>
                 ) : null}
                 {radiusChoice === 'length' ? <option value="length">as set</option> : null}
@@ -183,7 +213,9 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                     {m} × D
                   </option>
                 ))}
-                {radiusChoice !== '' && radiusChoice !== 'length' && !['1', '1.5', '2', '3', '5'].includes(radiusChoice) ? (
+                {radiusChoice !== '' &&
+                radiusChoice !== 'length' &&
+                !['1', '1.5', '2', '3', '5'].includes(radiusChoice) ? (
                   <option value={radiusChoice}>{radiusChoice} × D</option>
                 ) : null}
               </select>
@@ -218,22 +250,47 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
                 </Button>
               ))}
             </div>
-            <Button aria-expanded={angledOpen} onClick={() => setAngledOpen((o) => !o)} title="Draw a leg at any angle: from an axis toward another, optionally rolled">
+            <Button
+              aria-expanded={angledOpen}
+              onClick={() => setAngledOpen((o) => !o)}
+              title="Draw a leg at any angle: from an axis toward another, optionally rolled"
+            >
               Angled…
             </Button>
-            <label className="flex items-center gap-1 text-xs text-steel-600" title="Direction buttons insert the leg after the selected element instead of at the run's end">
-              <input type="checkbox" checked={insertAfter} onChange={(e) => setInsertAfter(e.target.checked)} disabled={!selectedId && !insertAfter} />
+            <label
+              className="flex items-center gap-1 text-xs text-steel-600"
+              title="Direction buttons insert the leg after the selected element instead of at the run's end"
+            >
+              <input
+                type="checkbox"
+                checked={insertAfter}
+                onChange={(e) => setInsertAfter(e.target.checked)}
+                disabled={!selectedId && !insertAfter}
+              />
               after selected
             </label>
             <div className="h-8 w-px bg-steel-200" />
             <div className="flex gap-1">
-              <Button onClick={() => api.getState().undo()} disabled={!canUndo} title="Undo (Ctrl+Z)">
+              <Button
+                onClick={() => api.getState().undo()}
+                disabled={!canUndo}
+                title="Undo (Ctrl+Z)"
+              >
                 ↶ Undo
               </Button>
-              <Button onClick={() => api.getState().redo()} disabled={!canRedo} title="Redo (Ctrl+Shift+Z)">
+              <Button
+                onClick={() => api.getState().redo()}
+                disabled={!canRedo}
+                title="Redo (Ctrl+Shift+Z)"
+              >
                 ↷ Redo
               </Button>
-              <Button variant="danger" onClick={deleteSelected} disabled={!selectedId} title="Delete the selected element (Delete)">
+              <Button
+                variant="danger"
+                onClick={deleteSelected}
+                disabled={!selectedId}
+                title="Delete the selected element (Delete)"
+              >
                 Delete
               </Button>
             </div>
@@ -256,11 +313,17 @@ export function DrawingBar({ canEdit, onSave }: DrawingBarProps) {
           data-testid="edit-notice"
           className={cn(
             'flex items-center gap-2 border-t px-3 py-1 text-sm',
-            notice.tone === 'refused' ? 'border-red-200 bg-red-50 text-red-800' : 'border-steel-100 bg-steel-50 text-steel-700',
+            notice.tone === 'refused'
+              ? 'border-red-200 bg-red-50 text-red-800'
+              : 'border-steel-100 bg-steel-50 text-steel-700',
           )}
         >
           <strong>{notice.tone === 'refused' ? 'Not drawn:' : 'Done:'}</strong> {notice.text}
-          <button type="button" className="ml-auto text-xs underline" onClick={() => setNotice(null)}>
+          <button
+            type="button"
+            className="ml-auto text-xs underline"
+            onClick={() => setNotice(null)}
+          >
             dismiss
           </button>
         </div>

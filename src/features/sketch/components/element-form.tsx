@@ -2,7 +2,14 @@ import { useEffect, useMemo } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm, useWatch } from 'react-hook-form';
 import { z } from 'zod';
-import { getPipeSize, getPipeWall, listPipeWalls, normalizeNps, NPS_SIZES, SCHEDULES } from '@shared/data/pipe-dimensions';
+import {
+  getPipeSize,
+  getPipeWall,
+  listPipeWalls,
+  normalizeNps,
+  NPS_SIZES,
+  SCHEDULES,
+} from '@shared/data/pipe-dimensions';
 import {
   bendRadiusSchema,
   bendSchema,
@@ -57,7 +64,12 @@ export const elementFormSchema = z
   .superRefine((v, ctx) => {
     const check = (schema: z.ZodType, value: unknown, path: string) => {
       const r = schema.safeParse(value);
-      if (!r.success) ctx.addIssue({ code: 'custom', path: [path], message: r.error.issues[0]?.message ?? 'is not valid' });
+      if (!r.success)
+        ctx.addIssue({
+          code: 'custom',
+          path: [path],
+          message: r.error.issues[0]?.message ?? 'is not valid',
+        });
     };
     if (v.kind === 'straight') check(straightSchema.shape.length, v.length, 'length');
     for (const key of ['outsideDiameter', 'insideDiameter', 'nominalWall'] as const)
@@ -65,26 +77,38 @@ export const elementFormSchema = z
     const D = v.outsideDiameter;
     const T = v.nominalWall;
     const d = v.insideDiameter;
-    const issue = (path: string, message: string) => ctx.addIssue({ code: 'custom', path: [path], message });
+    const issue = (path: string, message: string) =>
+      ctx.addIssue({ code: 'custom', path: [path], message });
     if (v.nps === undefined && D === undefined && d === undefined)
-      issue('outsideDiameter', 'give an outside diameter (or an inside diameter with a wall), or choose an NPS');
-    if (v.schedule === undefined && T === undefined) issue('nominalWall', 'give a nominal wall, or choose a schedule');
+      issue(
+        'outsideDiameter',
+        'give an outside diameter (or an inside diameter with a wall), or choose an NPS',
+      );
+    if (v.schedule === undefined && T === undefined)
+      issue('nominalWall', 'give a nominal wall, or choose a schedule');
     if (d !== undefined && T === undefined && v.schedule === undefined)
       issue('insideDiameter', 'needs a nominal wall (or a schedule) as well');
-    const pos = (x: number | undefined): x is number => x !== undefined && Number.isFinite(x) && x > 0;
-    if (pos(D) && pos(T) && T >= D / 2) issue('nominalWall', `must be less than half the outside diameter (${roundForEntry(D / 2)})`);
+    const pos = (x: number | undefined): x is number =>
+      x !== undefined && Number.isFinite(x) && x > 0;
+    if (pos(D) && pos(T) && T >= D / 2)
+      issue('nominalWall', `must be less than half the outside diameter (${roundForEntry(D / 2)})`);
     if (pos(D) && pos(T) && pos(d) && T < D / 2 && Math.abs(D - 2 * T - d) > 1e-6 * D)
       issue('insideDiameter', `must equal D − 2T = ${roundForEntry(D - 2 * T)}, or be left empty`);
     if (v.kind === 'bend') {
       check(bendSchema.shape.angle, v.angle, 'angle');
-      check(bendRadiusSchema, v.radiusMode === 'multipleOfD' ? { multipleOfD: v.radiusValue } : v.radiusValue, 'radiusValue');
+      check(
+        bendRadiusSchema,
+        v.radiusMode === 'multipleOfD' ? { multipleOfD: v.radiusValue } : v.radiusValue,
+        'radiusValue',
+      );
     }
   });
 export type ElementFormValues = z.infer<typeof elementFormSchema>;
 
 export function elementToForm(el: SpoolElement, units: DisplayUnits): ElementFormValues {
   const nps = el.nps === undefined ? undefined : (normalizeNps(el.nps) ?? String(el.nps));
-  const len = (v: number | undefined) => (v === undefined ? undefined : roundForEntry(units.toDisplay(v, 'length')));
+  const len = (v: number | undefined) =>
+    v === undefined ? undefined : roundForEntry(units.toDisplay(v, 'length'));
   const base = {
     tag: el.tag,
     nps,
@@ -95,7 +119,12 @@ export function elementToForm(el: SpoolElement, units: DisplayUnits): ElementFor
     direction: el.direction,
   };
   if (el.kind === 'straight') {
-    return { kind: 'straight', ...base, length: roundForEntry(units.toDisplay(el.length, 'length')), endType: el.endType };
+    return {
+      kind: 'straight',
+      ...base,
+      length: roundForEntry(units.toDisplay(el.length, 'length')),
+      endType: el.endType,
+    };
   }
   const r = el.bendRadius;
   return {
@@ -103,7 +132,8 @@ export function elementToForm(el: SpoolElement, units: DisplayUnits): ElementFor
     ...base,
     angle: el.angle,
     radiusMode: typeof r === 'number' ? 'length' : 'multipleOfD',
-    radiusValue: typeof r === 'number' ? roundForEntry(units.toDisplay(r, 'length')) : r.multipleOfD,
+    radiusValue:
+      typeof r === 'number' ? roundForEntry(units.toDisplay(r, 'length')) : r.multipleOfD,
   };
 }
 
@@ -126,12 +156,16 @@ export function formToElementPatch(
     }
   }
   if (el.kind === 'straight') {
-    if (isDirty('length') && values.length !== undefined) patch.length = units.fromDisplay(values.length, 'length');
+    if (isDirty('length') && values.length !== undefined)
+      patch.length = units.fromDisplay(values.length, 'length');
     if (isDirty('endType')) patch.endType = values.endType;
   } else {
     if (isDirty('angle')) patch.angle = values.angle;
     if ((isDirty('radiusValue') || isDirty('radiusMode')) && values.radiusValue !== undefined) {
-      patch.bendRadius = values.radiusMode === 'multipleOfD' ? { multipleOfD: values.radiusValue } : units.fromDisplay(values.radiusValue, 'length');
+      patch.bendRadius =
+        values.radiusMode === 'multipleOfD'
+          ? { multipleOfD: values.radiusValue }
+          : units.fromDisplay(values.radiusValue, 'length');
     }
   }
   return patch as Partial<Straight> | Partial<Bend>;
@@ -152,7 +186,11 @@ export interface ElementFormProps {
 export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
   const units = useDisplayUnits();
   const defaults = useMemo(() => elementToForm(element, units), [element, units]);
-  const form = useForm<ElementFormValues>({ resolver: zodResolver(elementFormSchema), mode: 'onChange', defaultValues: defaults });
+  const form = useForm<ElementFormValues>({
+    resolver: zodResolver(elementFormSchema),
+    mode: 'onChange',
+    defaultValues: defaults,
+  });
   const { reset, register, formState } = form;
   useEffect(() => {
     reset(defaults);
@@ -160,7 +198,8 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
   const nps = useWatch({ control: form.control, name: 'nps' });
   const radiusMode = useWatch({ control: form.control, name: 'radiusMode' });
   const scheduleChoices = useMemo(() => {
-    const listed = typeof nps === 'string' && nps !== '' ? listPipeWalls(nps).map((w) => w.schedule) : [];
+    const listed =
+      typeof nps === 'string' && nps !== '' ? listPipeWalls(nps).map((w) => w.schedule) : [];
     const list = listed.length > 0 ? listed : [...SCHEDULES];
     // The stored schedule stays on offer for the stored NPS even when the tables do not list it.
     const current = nps === defaults.nps ? defaults.schedule : undefined;
@@ -189,12 +228,18 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
     const size = getPipeSize(n);
     const show = (inches: number | undefined, mm: number | undefined) => {
       const v = units.doc === 'imperial' ? inches : mm;
-      return v === undefined ? undefined : `${roundForEntry(units.toDisplay(v, 'length'))} ${units.label('length')}`;
+      return v === undefined
+        ? undefined
+        : `${roundForEntry(units.toDisplay(v, 'length'))} ${units.label('length')}`;
     };
-    return { od: show(w?.odIn ?? size?.odIn, w?.odMm ?? size?.odMm), wall: show(w?.wallIn, w?.wallMm) };
+    return {
+      od: show(w?.odIn ?? size?.odIn, w?.odMm ?? size?.odMm),
+      wall: show(w?.wallIn, w?.wallMm),
+    };
   }, [nps, schedule, units]);
   const errors = formState.errors;
-  const msg = (name: keyof typeof ELEMENT_FIELD_LABELS) => fieldMessage(ELEMENT_FIELD_LABELS[name], errors[name]?.message);
+  const msg = (name: keyof typeof ELEMENT_FIELD_LABELS) =>
+    fieldMessage(ELEMENT_FIELD_LABELS[name], errors[name]?.message);
   const submit = form.handleSubmit((values) => {
     const dirty = formState.dirtyFields as Record<string, unknown>;
     const patch = formToElementPatch(values, element, (n) => Boolean(dirty[n]), units);
@@ -202,9 +247,20 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
   });
 
   return (
-    <form aria-label="Element properties" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-3">
+    <form
+      aria-label="Element properties"
+      noValidate
+      onSubmit={(e) => void submit(e)}
+      className="flex flex-col gap-3"
+    >
       <div className="grid grid-cols-2 gap-x-3 gap-y-2">
-        <SelectField label="NPS" disabled={readOnly} options={opt(npsChoices, '(none: explicit diameter)')} error={msg('nps')} {...register('nps', { setValueAs: parseTextInput })} />
+        <SelectField
+          label="NPS"
+          disabled={readOnly}
+          options={opt(npsChoices, '(none: explicit diameter)')}
+          error={msg('nps')}
+          {...register('nps', { setValueAs: parseTextInput })}
+        />
         <SelectField
           label="Schedule"
           disabled={readOnly}
@@ -215,7 +271,11 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
         <TextField
           label="Outside diameter D"
           unit={units.label('length')}
-          hint={tableDims?.od !== undefined ? `empty: ${tableDims.od} from the NPS` : 'empty: from the NPS'}
+          hint={
+            tableDims?.od !== undefined
+              ? `empty: ${tableDims.od} from the NPS`
+              : 'empty: from the NPS'
+          }
           inputMode="decimal"
           autoComplete="off"
           disabled={readOnly}
@@ -225,7 +285,11 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
         <TextField
           label="Nominal wall T"
           unit={units.label('length')}
-          hint={tableDims?.wall !== undefined ? `empty: ${tableDims.wall} from the schedule` : 'empty: from the schedule'}
+          hint={
+            tableDims?.wall !== undefined
+              ? `empty: ${tableDims.wall} from the schedule`
+              : 'empty: from the schedule'
+          }
           inputMode="decimal"
           autoComplete="off"
           disabled={readOnly}
@@ -255,7 +319,13 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
               error={msg('length')}
               {...register('length', { setValueAs: parseNumberInput })}
             />
-            <SelectField label="End type" disabled={readOnly} options={opt(END_TYPES, 'plain (default)')} error={msg('endType')} {...register('endType', { setValueAs: parseTextInput })} />
+            <SelectField
+              label="End type"
+              disabled={readOnly}
+              options={opt(END_TYPES, 'plain (default)')}
+              error={msg('endType')}
+              {...register('endType', { setValueAs: parseTextInput })}
+            />
           </>
         ) : (
           <>
@@ -295,18 +365,33 @@ export function ElementForm({ element, onApply, readOnly }: ElementFormProps) {
           label="Direction"
           disabled={readOnly}
           options={opt(DIRECTIONS, element.heading ? '(angled, as drawn)' : '(not set)')}
-          hint={element.heading ? `angled: ${describeDirection(headingToVec(element.heading))}` : undefined}
+          hint={
+            element.heading
+              ? `angled: ${describeDirection(headingToVec(element.heading))}`
+              : undefined
+          }
           error={msg('direction')}
           {...register('direction', { setValueAs: parseTextInput })}
         />
-        <TextField label="Tag" autoComplete="off" disabled={readOnly} error={msg('tag')} {...register('tag', { setValueAs: parseTextInput })} />
+        <TextField
+          label="Tag"
+          autoComplete="off"
+          disabled={readOnly}
+          error={msg('tag')}
+          {...register('tag', { setValueAs: parseTextInput })}
+        />
       </div>
       {readOnly ? null : (
         <div className="flex gap-2">
           <Button type="submit" variant="primary" size="sm" disabled={!formState.isDirty}>
             Apply
           </Button>
-          <Button size="sm" variant="ghost" disabled={!formState.isDirty} onClick={() => reset(defaults)}>
+          <Button
+            size="sm"
+            variant="ghost"
+            disabled={!formState.isDirty}
+            onClick={() => reset(defaults)}
+          >
             Discard
           </Button>
         </div>

@@ -2,7 +2,11 @@ import { useEffect, useMemo, useState } from 'react';
 import { zodResolver } from '@hookform/resolvers/zod';
 import { useForm } from 'react-hook-form';
 import type { z } from 'zod';
-import { conditionOverridesSchema, type ConditionOverrides, type SpoolElement } from '@shared/model/spool';
+import {
+  conditionOverridesSchema,
+  type ConditionOverrides,
+  type SpoolElement,
+} from '@shared/model/spool';
 import { Button } from '@/components/ui/button';
 import { CautionNote } from '@/components/ui/caution-note';
 import { useSpoolCheck, useSpoolStore, useSpoolStoreApi } from '../store/spool-store-context';
@@ -27,9 +31,14 @@ export function OverridesForm({
   readOnly?: boolean;
 }) {
   const units = useDisplayUnits();
-  const defaults = useMemo(() => conditionsToForm(element.conditions, units), [element.conditions, units]);
+  const defaults = useMemo(
+    () => conditionsToForm(element.conditions, units),
+    [element.conditions, units],
+  );
   const form = useForm<ConditionFormValues>({
-    resolver: zodResolver(conditionOverridesSchema as unknown as z.ZodType<ConditionFormValues, ConditionFormValues>),
+    resolver: zodResolver(
+      conditionOverridesSchema as unknown as z.ZodType<ConditionFormValues, ConditionFormValues>,
+    ),
     mode: 'onChange',
     defaultValues: defaults,
   });
@@ -47,7 +56,12 @@ export function OverridesForm({
   });
   const count = Object.keys(element.conditions ?? {}).length;
   return (
-    <form aria-label="Element overrides" noValidate onSubmit={(e) => void submit(e)} className="flex flex-col gap-2">
+    <form
+      aria-label="Element overrides"
+      noValidate
+      onSubmit={(e) => void submit(e)}
+      className="flex flex-col gap-2"
+    >
       <ConditionInputs
         register={form.register}
         errors={form.formState.errors}
@@ -90,7 +104,10 @@ export function ElementInspector({ readOnly }: { readonly readOnly?: boolean }) 
   if (!element) {
     return (
       <div className="flex flex-col gap-3 p-3">
-        <p className="text-sm text-steel-500">Select an element on the sketch or in the element list to see its properties and its wall check.</p>
+        <p className="text-sm text-steel-500">
+          Select an element on the sketch or in the element list to see its properties and its wall
+          check.
+        </p>
         <CautionNote />
       </div>
     );
@@ -100,16 +117,24 @@ export function ElementInspector({ readOnly }: { readonly readOnly?: boolean }) 
     <div className="flex flex-col gap-4 p-3" data-testid="inspector" data-element-id={element.id}>
       <header className="flex items-baseline gap-2">
         <h2 className="text-base font-semibold text-steel-800">
-          {element.kind === 'bend' ? 'Bend' : 'Straight'} <code className="text-copper-600">{element.id}</code>
+          {element.kind === 'bend' ? 'Bend' : 'Straight'}{' '}
+          <code className="text-copper-600">{element.id}</code>
         </h2>
         {element.tag ? <span className="text-sm text-steel-500">{element.tag}</span> : null}
       </header>
       {refusal ? (
-        <p role="alert" className="rounded border border-red-200 bg-red-50 px-2 py-1 text-sm text-red-800">
+        <p
+          role="alert"
+          className="rounded border border-red-200 bg-red-50 px-2 py-1 text-sm text-red-800"
+        >
           Not applied: {refusal}
         </p>
       ) : null}
-      <ElementForm element={element} onApply={(p) => apply(p as ElementPatch)} readOnly={readOnly} />
+      <ElementForm
+        element={element}
+        onApply={(p) => apply(p as ElementPatch)}
+        readOnly={readOnly}
+      />
       {elementCheck ? (
         <CheckReport
           check={elementCheck}
@@ -124,7 +149,12 @@ export function ElementInspector({ readOnly }: { readonly readOnly?: boolean }) 
           Overrides of the spool conditions ({Object.keys(element.conditions ?? {}).length})
         </summary>
         <div className="mt-2">
-          <OverridesForm element={element} inherited={doc.conditions} onApply={(c) => apply({ conditions: c })} readOnly={readOnly} />
+          <OverridesForm
+            element={element}
+            inherited={doc.conditions}
+            onApply={(c) => apply({ conditions: c })}
+            readOnly={readOnly}
+          />
         </div>
       </details>
       <CautionNote />

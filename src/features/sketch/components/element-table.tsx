@@ -29,7 +29,13 @@ const WINDOW_FROM = 300;
 const ROW_HEIGHT = 24;
 const OVERSCAN = 10;
 
-const STATUS_ORDER: Record<string, number> = { pass: 0, marginal: 1, review: 2, fail: 3, invalid: 4 };
+const STATUS_ORDER: Record<string, number> = {
+  pass: 0,
+  marginal: 1,
+  review: 2,
+  fail: 3,
+  invalid: 4,
+};
 
 export interface ElementTableProps {
   readonly elements: readonly SpoolElement[];
@@ -43,13 +49,26 @@ export interface ElementTableProps {
 }
 
 /** Every element of the spool with its check; follows and drives the canvas selection. */
-export function ElementTable({ elements, checks, selectedId, onSelect, markers, onMarker }: ElementTableProps) {
+export function ElementTable({
+  elements,
+  checks,
+  selectedId,
+  onSelect,
+  markers,
+  onMarker,
+}: ElementTableProps) {
   const units = useDisplayUnits();
   const [sorting, setSorting] = useState<SortingState>([]);
   const [statusFilter, setStatusFilter] = useState('');
   const byId = useMemo(() => new Map(checks.map((c) => [c.id, c])), [checks]);
   const data = useMemo<Row[]>(
-    () => elements.map((el, index) => ({ index, el, check: byId.get(el.id), status: byId.get(el.id)?.status ?? 'invalid' })),
+    () =>
+      elements.map((el, index) => ({
+        index,
+        el,
+        check: byId.get(el.id),
+        status: byId.get(el.id)?.status ?? 'invalid',
+      })),
     [elements, byId],
   );
   const columns = useMemo<ColumnDef<Row>[]>(
@@ -93,14 +112,17 @@ export function ElementTable({ elements, checks, selectedId, onSelect, markers, 
         accessorFn: (r) => (r.el.kind === 'straight' ? r.el.length : r.el.angle),
         cell: ({ row }) => {
           const el = row.original.el;
-          return el.kind === 'straight' ? `${formatNumber(units.toDisplay(el.length, 'length'))} ${units.label('length')}` : `${formatNumber(el.angle)}°`;
+          return el.kind === 'straight'
+            ? `${formatNumber(units.toDisplay(el.length, 'length'))} ${units.label('length')}`
+            : `${formatNumber(el.angle)}°`;
         },
       },
       {
         id: 'status',
         header: 'Check',
         accessorFn: (r) => r.status,
-        sortingFn: (a, b) => (STATUS_ORDER[a.original.status] ?? 9) - (STATUS_ORDER[b.original.status] ?? 9),
+        sortingFn: (a, b) =>
+          (STATUS_ORDER[a.original.status] ?? 9) - (STATUS_ORDER[b.original.status] ?? 9),
         filterFn: (row, _id, value) => value === '' || row.original.status === value,
         cell: ({ row }) => <CheckBadge status={row.original.status} />,
       },
@@ -114,7 +136,10 @@ export function ElementTable({ elements, checks, selectedId, onSelect, markers, 
     ],
     [units, markers, onMarker, onSelect],
   );
-  const columnFilters = useMemo(() => (statusFilter ? [{ id: 'status', value: statusFilter }] : []), [statusFilter]);
+  const columnFilters = useMemo(
+    () => (statusFilter ? [{ id: 'status', value: statusFilter }] : []),
+    [statusFilter],
+  );
   // The table instance is used only in this component's own render.
   const table = useReactTable({
     data,
@@ -153,23 +178,33 @@ export function ElementTable({ elements, checks, selectedId, onSelect, markers, 
     if (!el || index < 0) return;
     const top = index * ROW_HEIGHT;
     if (top < el.scrollTop) el.scrollTop = top;
-    else if (top + 2 * ROW_HEIGHT > el.scrollTop + el.clientHeight) el.scrollTop = top - el.clientHeight + 2 * ROW_HEIGHT;
+    else if (top + 2 * ROW_HEIGHT > el.scrollTop + el.clientHeight)
+      el.scrollTop = top - el.clientHeight + 2 * ROW_HEIGHT;
     onScroll();
     // eslint-disable-next-line react-hooks/exhaustive-deps -- follow the selection only, not every re-sort
   }, [selectedId]);
   const first = windowed ? Math.max(0, Math.floor(viewport.top / ROW_HEIGHT) - OVERSCAN) : 0;
-  const last = windowed ? Math.min(rows.length, first + Math.ceil(viewport.height / ROW_HEIGHT) + 2 * OVERSCAN) : rows.length;
+  const last = windowed
+    ? Math.min(rows.length, first + Math.ceil(viewport.height / ROW_HEIGHT) + 2 * OVERSCAN)
+    : rows.length;
   const visibleRows = windowed ? rows.slice(first, last) : rows;
 
   const shown = rows.length;
   return (
     <section aria-label="Element list" className="flex h-full min-h-0 flex-col">
       <div className="flex items-center gap-2 border-b border-steel-200 px-2 py-1">
-        <h3 className="text-xs font-semibold uppercase tracking-wide text-steel-600">Element list</h3>
+        <h3 className="text-xs font-semibold uppercase tracking-wide text-steel-600">
+          Element list
+        </h3>
         <span className="text-xs text-steel-400" data-testid="element-count">
           {shown} of {elements.length}
         </span>
-        <select aria-label="Filter elements by check" className={cn(inputClass, 'ml-auto h-7 w-36 text-xs')} value={statusFilter} onChange={(e) => setStatusFilter(e.target.value)}>
+        <select
+          aria-label="Filter elements by check"
+          className={cn(inputClass, 'ml-auto h-7 w-36 text-xs')}
+          value={statusFilter}
+          onChange={(e) => setStatusFilter(e.target.value)}
+        >
           <option value="">every check</option>
           {['pass', 'marginal', 'fail', 'review', 'invalid'].map((s) => (
             <option key={s} value={s}>
@@ -178,7 +213,11 @@ export function ElementTable({ elements, checks, selectedId, onSelect, markers, 
           ))}
         </select>
       </div>
-      <div ref={scrollRef} onScroll={windowed ? onScroll : undefined} className="min-h-0 flex-1 overflow-auto">
+      <div
+        ref={scrollRef}
+        onScroll={windowed ? onScroll : undefined}
+        className="min-h-0 flex-1 overflow-auto"
+      >
         <table className="w-full text-xs" data-testid="element-table">
           <thead className="sticky top-0 bg-steel-100 text-left text-steel-600">
             {table.getHeaderGroups().map((hg) => (
@@ -186,10 +225,22 @@ export function ElementTable({ elements, checks, selectedId, onSelect, markers, 
                 {hg.headers.map((h) => {
                   const sorted = h.column.getIsSorted();
                   return (
-                    <th key={h.id} className="px-2 py-1 font-medium" aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
-                      <button type="button" className="flex items-center gap-0.5 hover:text-steel-900" onClick={h.column.getToggleSortingHandler()}>
+                    <th
+                      key={h.id}
+                      className="px-2 py-1 font-medium"
+                      aria-sort={
+                        sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined
+                      }
+                    >
+                      <button
+                        type="button"
+                        className="flex items-center gap-0.5 hover:text-steel-900"
+                        onClick={h.column.getToggleSortingHandler()}
+                      >
                         {flexRender(h.column.columnDef.header, h.getContext())}
-                        <span aria-hidden className="text-copper-500">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}</span>
+                        <span aria-hidden className="text-copper-500">
+                          {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}
+                        </span>
                       </button>
                     </th>
                   );
@@ -207,7 +258,10 @@ export function ElementTable({ elements, checks, selectedId, onSelect, markers, 
                   data-element-id={row.original.el.id}
                   aria-selected={selected}
                   onClick={() => onSelect(row.original.el.id)}
-                  className={cn('h-6 cursor-pointer border-t border-steel-100 hover:bg-steel-50', selected && 'bg-copper-400/20 hover:bg-copper-400/25')}
+                  className={cn(
+                    'h-6 cursor-pointer border-t border-steel-100 hover:bg-steel-50',
+                    selected && 'bg-copper-400/20 hover:bg-copper-400/25',
+                  )}
                 >
                   {row.getVisibleCells().map((cell) => (
                     <td key={cell.id} className="px-2 py-0 whitespace-nowrap tabular-nums">
@@ -217,10 +271,16 @@ export function ElementTable({ elements, checks, selectedId, onSelect, markers, 
                 </tr>
               );
             })}
-            {last < rows.length ? <tr aria-hidden style={{ height: (rows.length - last) * ROW_HEIGHT }} /> : null}
+            {last < rows.length ? (
+              <tr aria-hidden style={{ height: (rows.length - last) * ROW_HEIGHT }} />
+            ) : null}
           </tbody>
         </table>
-        {elements.length === 0 ? <p className="p-3 text-center text-xs text-steel-500">No elements yet: start a run and draw legs.</p> : null}
+        {elements.length === 0 ? (
+          <p className="p-3 text-center text-xs text-steel-500">
+            No elements yet: start a run and draw legs.
+          </p>
+        ) : null}
       </div>
     </section>
   );

@@ -15,7 +15,10 @@ export function useDocumentTitle(title: string) {
 
 /** Asks before leaving the screen (in-app navigation or closing the tab) while there are unsaved changes. */
 export function LeaveGuard({ isDirty }: { isDirty: boolean }) {
-  const blocker = useBlocker(({ currentLocation, nextLocation }) => isDirty && currentLocation.pathname !== nextLocation.pathname);
+  const blocker = useBlocker(
+    ({ currentLocation, nextLocation }) =>
+      isDirty && currentLocation.pathname !== nextLocation.pathname,
+  );
   useEffect(() => {
     if (!isDirty) return;
     const onBeforeUnload = (e: BeforeUnloadEvent) => {
@@ -27,10 +30,16 @@ export function LeaveGuard({ isDirty }: { isDirty: boolean }) {
   }, [isDirty]);
   if (blocker.state !== 'blocked') return null;
   return (
-    <div role="alertdialog" aria-label="Unsaved changes" className="fixed inset-0 z-50 flex items-center justify-center bg-steel-900/40">
+    <div
+      role="alertdialog"
+      aria-label="Unsaved changes"
+      className="fixed inset-0 z-50 flex items-center justify-center bg-steel-900/40"
+    >
       <div className="w-96 rounded-lg bg-white p-4 shadow-xl">
         <h2 className="mb-2 font-semibold text-steel-800">Leave without saving?</h2>
-        <p className="mb-4 text-sm text-steel-600">This spool has changes that are not saved. They are lost if you leave.</p>
+        <p className="mb-4 text-sm text-steel-600">
+          This spool has changes that are not saved. They are lost if you leave.
+        </p>
         <div className="flex justify-end gap-2">
           <Button onClick={() => blocker.reset()}>Stay</Button>
           <Button variant="danger" onClick={() => blocker.proceed()}>

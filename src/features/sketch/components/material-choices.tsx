@@ -8,13 +8,27 @@ export interface MaterialChoice {
   readonly team: boolean;
 }
 
-const libraryChoices: readonly MaterialChoice[] = MATERIALS.map((m) => ({ id: m.id, label: `${m.spec} ${m.grade} — ${m.name}`, team: false }));
+const libraryChoices: readonly MaterialChoice[] = MATERIALS.map((m) => ({
+  id: m.id,
+  label: `${m.spec} ${m.grade} — ${m.name}`,
+  team: false,
+}));
 
 const MaterialChoicesContext = createContext<readonly MaterialChoice[]>(libraryChoices);
 
 /** The material picker's rows (default: the built-in library). */
-export function MaterialChoicesProvider({ choices, children }: { choices: readonly MaterialChoice[] | undefined; children: ReactNode }) {
-  return <MaterialChoicesContext.Provider value={choices ?? libraryChoices}>{children}</MaterialChoicesContext.Provider>;
+export function MaterialChoicesProvider({
+  choices,
+  children,
+}: {
+  choices: readonly MaterialChoice[] | undefined;
+  children: ReactNode;
+}) {
+  return (
+    <MaterialChoicesContext.Provider value={choices ?? libraryChoices}>
+      {children}
+    </MaterialChoicesContext.Provider>
+  );
 }
 
 export function useMaterialChoices(): readonly MaterialChoice[] {
@@ -22,7 +36,19 @@ export function useMaterialChoices(): readonly MaterialChoice[] {
 }
 
 /** Picker rows from `GET /api/materials` items, team materials first. */
-export function toMaterialChoices(items: readonly { id: string; spec: string; grade: string; name: string; origin: 'library' | 'team' }[]): MaterialChoice[] {
-  const rows = items.map((m) => ({ id: m.id, label: `${m.spec} ${m.grade} — ${m.name}${m.origin === 'team' ? ' (team)' : ''}`, team: m.origin === 'team' }));
+export function toMaterialChoices(
+  items: readonly {
+    id: string;
+    spec: string;
+    grade: string;
+    name: string;
+    origin: 'library' | 'team';
+  }[],
+): MaterialChoice[] {
+  const rows = items.map((m) => ({
+    id: m.id,
+    label: `${m.spec} ${m.grade} — ${m.name}${m.origin === 'team' ? ' (team)' : ''}`,
+    team: m.origin === 'team',
+  }));
   return [...rows.filter((r) => r.team), ...rows.filter((r) => !r.team)];
 }

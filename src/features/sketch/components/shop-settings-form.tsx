@@ -9,12 +9,18 @@ import { roundForEntry, useDisplayUnits } from './display-units';
 type Texts = { testTemperature: string; bendTangent: string };
 type Errors = Partial<Record<keyof Texts, string>>;
 
-const LABELS: Record<keyof Texts, string> = { testTemperature: 'Hydrotest temperature', bendTangent: 'Bending tangent' };
+const LABELS: Record<keyof Texts, string> = {
+  testTemperature: 'Hydrotest temperature',
+  bendTangent: 'Bending tangent',
+};
 
 export interface ShopSettingsFormProps {
   readonly settings: ShopSettings | undefined;
   readonly docUnits: UnitSystem;
-  readonly onApply: (next: { testTemperature: number | undefined; bendTangent: number | undefined }) => string | null;
+  readonly onApply: (next: {
+    testTemperature: number | undefined;
+    bendTangent: number | undefined;
+  }) => string | null;
   readonly readOnly?: boolean;
 }
 
@@ -22,8 +28,14 @@ export interface ShopSettingsFormProps {
 export function ShopSettingsForm({ settings, docUnits, onApply, readOnly }: ShopSettingsFormProps) {
   const units = useDisplayUnits();
   const toTexts = (): Texts => ({
-    testTemperature: settings?.testTemperature === undefined ? '' : String(roundForEntry(units.toDisplay(settings.testTemperature, 'temperature'))),
-    bendTangent: settings?.bendTangent === undefined ? '' : String(roundForEntry(units.toDisplay(settings.bendTangent, 'length'))),
+    testTemperature:
+      settings?.testTemperature === undefined
+        ? ''
+        : String(roundForEntry(units.toDisplay(settings.testTemperature, 'temperature'))),
+    bendTangent:
+      settings?.bendTangent === undefined
+        ? ''
+        : String(roundForEntry(units.toDisplay(settings.bendTangent, 'length'))),
   });
   const [texts, setTexts] = useState<Texts>(toTexts);
   const [errors, setErrors] = useState<Errors>({});
@@ -32,16 +44,22 @@ export function ShopSettingsForm({ settings, docUnits, onApply, readOnly }: Shop
   // eslint-disable-next-line react-hooks/exhaustive-deps -- follow the stored values and units only
   useEffect(() => setTexts(toTexts()), [settings?.testTemperature, settings?.bendTangent, units]);
   const stored = toTexts();
-  const dirty = texts.testTemperature !== stored.testTemperature || texts.bendTangent !== stored.bendTangent;
-  const defaultTemp = roundForEntry(convert(DEFAULT_TEST_TEMPERATURE[docUnits], 'temperature', docUnits, units.display));
+  const dirty =
+    texts.testTemperature !== stored.testTemperature || texts.bendTangent !== stored.bendTangent;
+  const defaultTemp = roundForEntry(
+    convert(DEFAULT_TEST_TEMPERATURE[docUnits], 'temperature', docUnits, units.display),
+  );
 
   const apply = () => {
     const next: Errors = {};
     const t = parseNumberInput(texts.testTemperature);
     const g = parseNumberInput(texts.bendTangent);
-    if (t !== undefined && !Number.isFinite(t)) next.testTemperature = `${LABELS.testTemperature} must be a number`;
-    if (g !== undefined && !Number.isFinite(g)) next.bendTangent = `${LABELS.bendTangent} must be a number`;
-    else if (g !== undefined && g < 0) next.bendTangent = `${LABELS.bendTangent} must be zero or more`;
+    if (t !== undefined && !Number.isFinite(t))
+      next.testTemperature = `${LABELS.testTemperature} must be a number`;
+    if (g !== undefined && !Number.isFinite(g))
+      next.bendTangent = `${LABELS.bendTangent} must be a number`;
+    else if (g !== undefined && g < 0)
+      next.bendTangent = `${LABELS.bendTangent} must be zero or more`;
     setErrors(next);
     if (Object.keys(next).length > 0) return;
     const message = onApply({
@@ -62,9 +80,14 @@ export function ShopSettingsForm({ settings, docUnits, onApply, readOnly }: Shop
       }}
     >
       <h3 className="text-sm font-semibold text-steel-800">Shop settings</h3>
-      <p className="text-xs text-steel-500">Used by the fabrication sheet; empty fields take the default.</p>
+      <p className="text-xs text-steel-500">
+        Used by the fabrication sheet; empty fields take the default.
+      </p>
       {refusal ? (
-        <p role="alert" className="rounded border border-red-200 bg-red-50 px-2 py-1 text-sm text-red-800">
+        <p
+          role="alert"
+          className="rounded border border-red-200 bg-red-50 px-2 py-1 text-sm text-red-800"
+        >
           Not applied: {refusal}
         </p>
       ) : null}

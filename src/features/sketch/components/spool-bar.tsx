@@ -1,7 +1,12 @@
 import { useEffect, useRef, useState, type ReactNode } from 'react';
 import { Link } from 'react-router-dom';
 import { can, findTransition, TRANSITIONS, type SpoolStatus } from '@shared/model/permissions';
-import { parseSpoolDocument, type FieldIssue, type SpoolDocument, type UnitSystem } from '@shared/model/spool';
+import {
+  parseSpoolDocument,
+  type FieldIssue,
+  type SpoolDocument,
+  type UnitSystem,
+} from '@shared/model/spool';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { CheckBadge, LifecycleBadge } from '@/components/ui/status-badge';
@@ -33,7 +38,8 @@ function downloadJson(filename: string, data: unknown) {
   setTimeout(() => URL.revokeObjectURL(url), 1000);
 }
 
-const fileNameOf = (doc: SpoolDocument) => `${(doc.name || 'spool').replace(/[^\w.-]+/g, '-').replace(/^-+|-+$/g, '') || 'spool'}.spool.json`;
+const fileNameOf = (doc: SpoolDocument) =>
+  `${(doc.name || 'spool').replace(/[^\w.-]+/g, '-').replace(/^-+|-+$/g, '') || 'spool'}.spool.json`;
 
 /** A text box that edits a document field on blur / Enter and follows the document otherwise. */
 function MetaInput({
@@ -150,8 +156,23 @@ export function SpoolBar({
 
   return (
     <div className="flex flex-wrap items-center gap-3 border-b border-steel-200 bg-steel-50 px-3 py-2">
-      <MetaInput label="Spool name" maxLength={200} value={doc.name ?? ''} disabled={!canEdit} className="w-48 font-semibold" onCommit={(name) => api.getState().setMeta({ name })} />
-      <MetaInput label="Line number" maxLength={120} placeholder="line number" value={doc.line ?? ''} disabled={!canEdit} className="w-32" onCommit={(line) => api.getState().setMeta({ line })} />
+      <MetaInput
+        label="Spool name"
+        maxLength={200}
+        value={doc.name ?? ''}
+        disabled={!canEdit}
+        className="w-48 font-semibold"
+        onCommit={(name) => api.getState().setMeta({ name })}
+      />
+      <MetaInput
+        label="Line number"
+        maxLength={120}
+        placeholder="line number"
+        value={doc.line ?? ''}
+        disabled={!canEdit}
+        className="w-32"
+        onCommit={(line) => api.getState().setMeta({ line })}
+      />
       <LifecycleBadge status={spool.status} />
       <span className="text-xs text-steel-500" data-testid="revision">
         rev. {spool.revision} · v{spool.version}
@@ -176,16 +197,28 @@ export function SpoolBar({
         <Link
           to={`/spools/${encodeURIComponent(spool.id)}/fabrication`}
           className="inline-flex h-7 items-center rounded border border-steel-300 bg-white px-2 text-xs font-medium text-steel-800 hover:bg-steel-100"
-          title={isDirty ? 'The fabrication sheet shows the saved spool: save first to include your changes' : 'Bend list, cut list, bill of materials, masses and hydrotest'}
+          title={
+            isDirty
+              ? 'The fabrication sheet shows the saved spool: save first to include your changes'
+              : 'Bend list, cut list, bill of materials, masses and hydrotest'
+          }
         >
           Fabrication sheet
         </Link>
-        <Button size="sm" onClick={() => downloadJson(fileNameOf(doc), doc)} title="Download the spool document (JSON)">
+        <Button
+          size="sm"
+          onClick={() => downloadJson(fileNameOf(doc), doc)}
+          title="Download the spool document (JSON)"
+        >
           Export
         </Button>
         {canEdit ? (
           <>
-            <Button size="sm" onClick={() => fileRef.current?.click()} title="Replace the sketch with a spool document (JSON)">
+            <Button
+              size="sm"
+              onClick={() => fileRef.current?.click()}
+              title="Replace the sketch with a spool document (JSON)"
+            >
               Import
             </Button>
             <input
@@ -205,13 +238,20 @@ export function SpoolBar({
         ) : null}
         {moves.map((t) => {
           // The server refuses to release a spool with failing or uncheckable elements; say so up front.
-          const blockedByCheck = t.to === 'released' && check.summary.fail + check.summary.invalid > 0;
+          const blockedByCheck =
+            t.to === 'released' && check.summary.fail + check.summary.invalid > 0;
           return (
             <Button
               key={t.to}
               size="sm"
               disabled={isDirty || transition.isPending || blockedByCheck}
-              title={isDirty ? 'Save first' : blockedByCheck ? 'Every element must pass (or be marginal/reviewed) before release' : undefined}
+              title={
+                isDirty
+                  ? 'Save first'
+                  : blockedByCheck
+                    ? 'Every element must pass (or be marginal/reviewed) before release'
+                    : undefined
+              }
               data-blocked={blockedByCheck ? 'check' : undefined}
               onClick={() => runTransition(t.to)}
             >
@@ -221,7 +261,13 @@ export function SpoolBar({
         })}
         {actions}
         {canEdit ? (
-          <Button size="sm" variant="primary" onClick={onSave} disabled={!isDirty || saving} title="Save (Ctrl+S)">
+          <Button
+            size="sm"
+            variant="primary"
+            onClick={onSave}
+            disabled={!isDirty || saving}
+            title="Save (Ctrl+S)"
+          >
             {saving ? 'Saving…' : isDirty ? 'Save' : 'Saved'}
           </Button>
         ) : null}
@@ -232,7 +278,11 @@ export function SpoolBar({
         ) : null}
       </div>
       {returning && spool.status === 'submitted' ? (
-        <ReturnForm busy={transition.isPending} onCancel={() => setReturning(false)} onReturn={(note) => runTransition('draft', note)} />
+        <ReturnForm
+          busy={transition.isPending}
+          onCancel={() => setReturning(false)}
+          onReturn={(note) => runTransition('draft', note)}
+        />
       ) : null}
       {transition.isError ? (
         <div className="w-full">

@@ -46,8 +46,10 @@ export function angledDirection(input: AngledDirectionInput): AngledDirectionRes
   const issues: AngledIssue[] = [];
   const { from, toward, angle } = input;
   const roll = input.roll ?? 0;
-  if (!isDirection(from)) issues.push({ field: 'from', message: 'choose one of the six axis directions' });
-  if (!isDirection(toward)) issues.push({ field: 'toward', message: 'choose one of the six axis directions' });
+  if (!isDirection(from))
+    issues.push({ field: 'from', message: 'choose one of the six axis directions' });
+  if (!isDirection(toward))
+    issues.push({ field: 'toward', message: 'choose one of the six axis directions' });
   else if (isDirection(from) && !perpendicular(from, toward))
     issues.push({
       field: 'toward',
@@ -63,8 +65,13 @@ export function angledDirection(input: AngledDirectionInput): AngledDirectionRes
     issues.push({ field: 'roll', message: 'must be from 0° to 90°' });
   else if (roll > 0) {
     const rt = input.rollToward;
-    if (!isDirection(rt)) issues.push({ field: 'rollToward', message: 'must be chosen for a roll above 0°' });
-    else if (isDirection(from) && isDirection(toward) && (!perpendicular(rt, from) || !perpendicular(rt, toward)))
+    if (!isDirection(rt))
+      issues.push({ field: 'rollToward', message: 'must be chosen for a roll above 0°' });
+    else if (
+      isDirection(from) &&
+      isDirection(toward) &&
+      (!perpendicular(rt, from) || !perpendicular(rt, toward))
+    )
       issues.push({
         field: 'rollToward',
         message: `must be perpendicular to ${from} and ${toward}: choose ${list(perpendicularChoices(from, toward))}`,
@@ -76,7 +83,10 @@ export function angledDirection(input: AngledDirectionInput): AngledDirectionRes
   const f = DIRECTION_VECTORS[from];
   let t = DIRECTION_VECTORS[toward];
   if (roll > 0 && input.rollToward)
-    t = add(scale(t, Math.cos(roll * rad)), scale(DIRECTION_VECTORS[input.rollToward], Math.sin(roll * rad)));
+    t = add(
+      scale(t, Math.cos(roll * rad)),
+      scale(DIRECTION_VECTORS[input.rollToward], Math.sin(roll * rad)),
+    );
   const dir = normalize(add(scale(f, Math.cos(angle * rad)), scale(t, Math.sin(angle * rad))));
   const description =
     `${fmtDeg(angle)} from ${from} toward ${toward}` +

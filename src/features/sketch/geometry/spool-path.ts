@@ -292,15 +292,31 @@ export function segmentBox(seg: PathSegment): BoundingBox {
   if (seg.kind === 'bend') {
     for (let k = 1; k < 8; k++) {
       const phi = (seg.angleRad * k) / 8;
-      pts.push(add(seg.centre, add(scale(seg.xAxis, seg.radius * Math.cos(phi)), scale(seg.yAxis, seg.radius * Math.sin(phi)))));
+      pts.push(
+        add(
+          seg.centre,
+          add(
+            scale(seg.xAxis, seg.radius * Math.cos(phi)),
+            scale(seg.yAxis, seg.radius * Math.sin(phi)),
+          ),
+        ),
+      );
     }
   }
   const g = seg.outsideDiameter;
   const lo = (f: (v: Vec3) => number) => Math.min(...pts.map(f)) - g;
   const hi = (f: (v: Vec3) => number) => Math.max(...pts.map(f)) + g;
   return {
-    min: vec(lo((v) => v.x), lo((v) => v.y), lo((v) => v.z)),
-    max: vec(hi((v) => v.x), hi((v) => v.y), hi((v) => v.z)),
+    min: vec(
+      lo((v) => v.x),
+      lo((v) => v.y),
+      lo((v) => v.z),
+    ),
+    max: vec(
+      hi((v) => v.x),
+      hi((v) => v.y),
+      hi((v) => v.z),
+    ),
   };
 }
 

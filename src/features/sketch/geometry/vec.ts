@@ -70,7 +70,10 @@ export function vecToHeading(v: Vec3): Heading {
 }
 
 /** The unit direction an element states: its `heading`, else its axis `direction`, else undefined. */
-export function elementDirection(el: { heading?: Heading; direction?: Direction }): Vec3 | undefined {
+export function elementDirection(el: {
+  heading?: Heading;
+  direction?: Direction;
+}): Vec3 | undefined {
   if (el.heading) return headingToVec(el.heading);
   return el.direction ? DIRECTION_VECTORS[el.direction] : undefined;
 }

@@ -285,7 +285,9 @@ export function serializeRun(
       const followsBend = j === 0 && before !== null;
       const unstated = piece.direction === undefined && piece.heading === undefined;
       const oriented =
-        followsBend && unstated && directionOf(leg.dir) === undefined ? piece : orient(piece, leg.dir);
+        followsBend && unstated && directionOf(leg.dir) === undefined
+          ? piece
+          : orient(piece, leg.dir);
       const next = oriented.length === cut ? oriented : { ...oriented, length: cut };
       elements.push(next);
     }

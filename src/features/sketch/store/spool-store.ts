@@ -319,7 +319,10 @@ function createSelectionSlice(
 function createViewSlice(
   set: SetState,
   get: GetState,
-): Pick<SpoolStoreState, 'view' | 'setShowDimensions' | 'setAntialias' | 'requestFit' | 'requestFocus'> {
+): Pick<
+  SpoolStoreState,
+  'view' | 'setShowDimensions' | 'setAntialias' | 'requestFit' | 'requestFocus'
+> {
   return {
     view: { showDimensions: 'auto', antialias: false, fitRequest: 0, focus: null },
     setShowDimensions(mode) {
@@ -581,7 +584,11 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
         const next: { -readonly [K in keyof SpoolDocument]: SpoolDocument[K] } = { ...doc };
         if (Object.keys(merged).length === 0) delete next.shop;
         else next.shop = merged;
-        if (next.shop?.testTemperature !== doc.shop?.testTemperature || next.shop?.bendTangent !== doc.shop?.bendTangent) commit(next, opts?.history);
+        if (
+          next.shop?.testTemperature !== doc.shop?.testTemperature ||
+          next.shop?.bendTangent !== doc.shop?.bendTangent
+        )
+          commit(next, opts?.history);
         return ok;
       },
 
@@ -689,7 +696,8 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
         }
         if (has('angle') && patch.angle !== undefined) {
           if (el.kind !== 'bend') return refuse('angle: a straight has no bend angle');
-          if (!(patch.angle < 180)) return refuse('angle: must be less than 180 degrees (180° would double back)');
+          if (!(patch.angle < 180))
+            return refuse('angle: must be less than 180 degrees (180° would double back)');
         }
         if (el.kind === 'bend') {
           for (const key of ['length', 'legLength', 'endType'] as const)
@@ -753,7 +761,10 @@ export function createSpoolStore(initial?: SpoolDocument): SpoolStore {
                 const u = run.legs[at.corner]!.dir;
                 const cur = next.dir;
                 const perp = sub(cur, scale(u, dot(cur, u)));
-                if (norm(perp) < 1e-9) return refuse(`angle: ${id} joins legs that run the same way; turn a leg instead`);
+                if (norm(perp) < 1e-9)
+                  return refuse(
+                    `angle: ${id} joins legs that run the same way; turn a leg instead`,
+                  );
                 const t = normalize(perp);
                 const theta = (patch.angle * Math.PI) / 180;
                 next.dir = normalize(add(scale(u, Math.cos(theta)), scale(t, Math.sin(theta))));

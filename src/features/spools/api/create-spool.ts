@@ -24,7 +24,14 @@ export function createBlankDocument(name: string): SpoolDocument {
     units: 'imperial',
     name,
     line: '',
-    conditions: { pressure: 150, temperature: 100, material: 'A106-B', productForm: 'seamless', corrosionAllowance: 0.0625, millTolerance: 0.125 },
+    conditions: {
+      pressure: 150,
+      temperature: 100,
+      material: 'A106-B',
+      productForm: 'seamless',
+      corrosionAllowance: 0.0625,
+      millTolerance: 0.125,
+    },
     defaultBendRadius: { multipleOfD: 1.5 },
     elements: [],
   };

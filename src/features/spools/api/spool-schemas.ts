@@ -34,7 +34,8 @@ export type SpoolSummary = z.infer<typeof spoolSummarySchema>;
  * object so a document written by a newer client still opens (the store validates on edit).
  */
 const storedDocumentSchema = z.custom<SpoolDocument>(
-  (v) => typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements),
+  (v) =>
+    typeof v === 'object' && v !== null && Array.isArray((v as { elements?: unknown }).elements),
   'document must be a spool document',
 );
 

@@ -10,7 +10,11 @@ export interface TransitionInput {
 }
 
 export function transitionSpool({ id, to, note }: TransitionInput): Promise<Spool> {
-  return apiRequest(`/spools/${encodeURIComponent(id)}/transitions`, { method: 'POST', body: { to, note }, schema: spoolSchema });
+  return apiRequest(`/spools/${encodeURIComponent(id)}/transitions`, {
+    method: 'POST',
+    body: { to, note },
+    schema: spoolSchema,
+  });
 }
 
 export function useTransitionSpool() {

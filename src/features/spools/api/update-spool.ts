@@ -11,7 +11,11 @@ export interface UpdateSpoolInput {
 }
 
 export function updateSpool({ id, document, baseVersion }: UpdateSpoolInput): Promise<Spool> {
-  return apiRequest(`/spools/${encodeURIComponent(id)}`, { method: 'PUT', body: { document, baseVersion }, schema: spoolSchema });
+  return apiRequest(`/spools/${encodeURIComponent(id)}`, {
+    method: 'PUT',
+    body: { document, baseVersion },
+    schema: spoolSchema,
+  });
 }
 
 /** The server's current spool from a 409 answer, or null when the error is something else. */

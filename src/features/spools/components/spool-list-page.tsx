@@ -1,6 +1,12 @@
 import { useEffect, useMemo, useState } from 'react';
 import { Link, useNavigate, useSearchParams } from 'react-router-dom';
-import { flexRender, getCoreRowModel, useReactTable, type ColumnDef, type SortingState } from '@tanstack/react-table';
+import {
+  flexRender,
+  getCoreRowModel,
+  useReactTable,
+  type ColumnDef,
+  type SortingState,
+} from '@tanstack/react-table';
 import { Button } from '@/components/ui/button';
 import { inputClass } from '@/components/ui/field';
 import { CheckBadge, LifecycleBadge } from '@/components/ui/status-badge';
@@ -39,9 +45,24 @@ const columns: ColumnDef<SpoolSummary>[] = [
     accessorFn: (r) => r.name ?? '',
     cell: ({ row }) => <SpoolNameLink spool={row.original} />,
   },
-  { id: 'line', header: 'Line', accessorFn: (r) => r.line ?? '', cell: ({ row }) => row.original.line || <span className="text-steel-400">—</span> },
-  { id: 'status', header: 'State', accessorFn: (r) => r.status, cell: ({ row }) => <LifecycleBadge status={row.original.status} /> },
-  { id: 'revision', header: 'Rev.', accessorFn: (r) => r.revision, cell: ({ row }) => <span className="tabular-nums">{row.original.revision}</span> },
+  {
+    id: 'line',
+    header: 'Line',
+    accessorFn: (r) => r.line ?? '',
+    cell: ({ row }) => row.original.line || <span className="text-steel-400">—</span>,
+  },
+  {
+    id: 'status',
+    header: 'State',
+    accessorFn: (r) => r.status,
+    cell: ({ row }) => <LifecycleBadge status={row.original.status} />,
+  },
+  {
+    id: 'revision',
+    header: 'Rev.',
+    accessorFn: (r) => r.revision,
+    cell: ({ row }) => <span className="tabular-nums">{row.original.revision}</span>,
+  },
   {
     id: 'worst',
     header: 'Weakest element',
@@ -62,7 +83,14 @@ const columns: ColumnDef<SpoolSummary>[] = [
         <span className="text-xs text-steel-400">no elements</span>
       ),
   },
-  { id: 'updatedAt', header: 'Last saved', accessorFn: (r) => r.updatedAt, cell: ({ row }) => <span className="tabular-nums">{formatDateTime(row.original.updatedAt)}</span> },
+  {
+    id: 'updatedAt',
+    header: 'Last saved',
+    accessorFn: (r) => r.updatedAt,
+    cell: ({ row }) => (
+      <span className="tabular-nums">{formatDateTime(row.original.updatedAt)}</span>
+    ),
+  },
 ];
 
 function parseSort(sort: string | null): SortingState {
@@ -77,7 +105,9 @@ export function SpoolListPage() {
   const [params, setParams] = useSearchParams();
   const search = params.get('q') ?? '';
   const statusParam = params.get('status');
-  const status = (SPOOL_STATUSES as readonly string[]).includes(statusParam ?? '') ? (statusParam as SpoolStatus) : undefined;
+  const status = (SPOOL_STATUSES as readonly string[]).includes(statusParam ?? '')
+    ? (statusParam as SpoolStatus)
+    : undefined;
   const page = Math.max(1, Number(params.get('page') ?? '1') || 1);
   const sorting = parseSort(params.get('sort'));
   const sortParam = sorting[0] ? `${sorting[0].desc ? '-' : ''}${sorting[0].id}` : '-updatedAt';
@@ -89,18 +119,27 @@ export function SpoolListPage() {
   useEffect(() => {
     const t = setTimeout(() => {
       if (searchDraft === search) return;
-      setParams((p) => {
-        const n = new URLSearchParams(p);
-        if (searchDraft) n.set('q', searchDraft);
-        else n.delete('q');
-        n.delete('page');
-        return n;
-      }, { replace: true });
+      setParams(
+        (p) => {
+          const n = new URLSearchParams(p);
+          if (searchDraft) n.set('q', searchDraft);
+          else n.delete('q');
+          n.delete('page');
+          return n;
+        },
+        { replace: true },
+      );
     }, 250);
     return () => clearTimeout(t);
   }, [searchDraft, search, setParams]);
 
-  const query = useSpools({ search: search || undefined, status, sort: sortParam, page, pageSize: PAGE_SIZE });
+  const query = useSpools({
+    search: search || undefined,
+    status,
+    sort: sortParam,
+    page,
+    pageSize: PAGE_SIZE,
+  });
   const items = useMemo(() => query.data?.items ?? [], [query.data]);
   const total = query.data?.total ?? 0;
   const pageCount = Math.max(1, Math.ceil(total / PAGE_SIZE));
@@ -138,7 +177,9 @@ export function SpoolListPage() {
   const navigate = useNavigate();
   const createNew = () => {
     const name = `Spool ${new Date().toISOString().slice(0, 16).replace('T', ' ')}`;
-    create.mutate(createBlankDocument(name), { onSuccess: (spool) => void navigate(`/spools/${spool.id}`) });
+    create.mutate(createBlankDocument(name), {
+      onSuccess: (spool) => void navigate(`/spools/${spool.id}`),
+    });
   };
 
   return (
@@ -147,7 +188,9 @@ export function SpoolListPage() {
       <div className="flex items-end gap-4">
         <div>
           <h1 className="text-2xl font-semibold text-steel-800">Spool register</h1>
-          <p className="text-sm text-steel-500">{query.data ? `${total} spool${total === 1 ? '' : 's'}` : ' '}</p>
+          <p className="text-sm text-steel-500">
+            {query.data ? `${total} spool${total === 1 ? '' : 's'}` : ' '}
+          </p>
         </div>
         <div className="ml-auto flex items-end gap-2">
           <label className="flex flex-col text-xs text-steel-600">
@@ -195,11 +238,23 @@ export function SpoolListPage() {
                   const sorted = h.column.getIsSorted();
                   const sortable = h.column.getCanSort() && SORTABLE.has(h.column.id);
                   return (
-                    <th key={h.id} className="px-3 py-2 font-medium" aria-sort={sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined}>
+                    <th
+                      key={h.id}
+                      className="px-3 py-2 font-medium"
+                      aria-sort={
+                        sorted ? (sorted === 'asc' ? 'ascending' : 'descending') : undefined
+                      }
+                    >
                       {sortable ? (
-                        <button type="button" className="flex items-center gap-1 uppercase hover:text-steel-900" onClick={h.column.getToggleSortingHandler()}>
+                        <button
+                          type="button"
+                          className="flex items-center gap-1 uppercase hover:text-steel-900"
+                          onClick={h.column.getToggleSortingHandler()}
+                        >
                           {flexRender(h.column.columnDef.header, h.getContext())}
-                          <span aria-hidden className="text-copper-500">{sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}</span>
+                          <span aria-hidden className="text-copper-500">
+                            {sorted === 'asc' ? '▲' : sorted === 'desc' ? '▼' : ''}
+                          </span>
                         </button>
                       ) : (
                         flexRender(h.column.columnDef.header, h.getContext())
@@ -212,7 +267,11 @@ export function SpoolListPage() {
           </thead>
           <tbody>
             {table.getRowModel().rows.map((row) => (
-              <tr key={row.id} className="border-t border-steel-100 hover:bg-steel-50" data-spool-id={row.original.id}>
+              <tr
+                key={row.id}
+                className="border-t border-steel-100 hover:bg-steel-50"
+                data-spool-id={row.original.id}
+              >
                 {row.getVisibleCells().map((cell) => (
                   <td key={cell.id} className="px-3 py-2">
                     {flexRender(cell.column.columnDef.cell, cell.getContext())}
@@ -223,7 +282,9 @@ export function SpoolListPage() {
           </tbody>
         </table>
         {query.isPending ? <LoadingLine /> : null}
-        {query.data && items.length === 0 ? <p className="p-6 text-center text-sm text-steel-500">No spools match.</p> : null}
+        {query.data && items.length === 0 ? (
+          <p className="p-6 text-center text-sm text-steel-500">No spools match.</p>
+        ) : null}
       </div>
       <div className="flex items-center justify-end gap-2 text-sm text-steel-600">
         <Button size="sm" disabled={page <= 1} onClick={() => update({ page: String(page - 1) })}>
@@ -232,7 +293,11 @@ export function SpoolListPage() {
         <span className="tabular-nums">
           page {page} of {pageCount}
         </span>
-        <Button size="sm" disabled={page >= pageCount} onClick={() => update({ page: String(page + 1) })}>
+        <Button
+          size="sm"
+          disabled={page >= pageCount}
+          onClick={() => update({ page: String(page + 1) })}
+        >
           Next ›
         </Button>
       </div>

@@ -6,7 +6,11 @@ import { memberSchema, teamKeys } from './team-schemas';
 
 /** `PATCH /api/team/members/:userId {role}`; the server refuses to demote the last admin (409). */
 export function changeRole(v: { userId: string; role: Role }) {
-  return apiRequest(`/team/members/${encodeURIComponent(v.userId)}`, { method: 'PATCH', body: { role: v.role }, schema: memberSchema });
+  return apiRequest(`/team/members/${encodeURIComponent(v.userId)}`, {
+    method: 'PATCH',
+    body: { role: v.role },
+    schema: memberSchema,
+  });
 }
 
 export function useChangeRole() {

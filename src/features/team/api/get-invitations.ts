@@ -10,7 +10,11 @@ export async function getInvitations(signal?: AbortSignal) {
   return (await apiRequest('/team/invitations', { schema: listSchema, signal })).items;
 }
 
-export const invitationsQueryOptions = () => queryOptions({ queryKey: teamKeys.invitations(), queryFn: ({ signal }) => getInvitations(signal) });
+export const invitationsQueryOptions = () =>
+  queryOptions({
+    queryKey: teamKeys.invitations(),
+    queryFn: ({ signal }) => getInvitations(signal),
+  });
 
 export function useInvitations() {
   return useQuery(invitationsQueryOptions());

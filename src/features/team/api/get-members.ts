@@ -10,7 +10,8 @@ export async function getMembers(signal?: AbortSignal) {
   return (await apiRequest('/team/members', { schema: listSchema, signal })).items;
 }
 
-export const membersQueryOptions = () => queryOptions({ queryKey: teamKeys.members(), queryFn: ({ signal }) => getMembers(signal) });
+export const membersQueryOptions = () =>
+  queryOptions({ queryKey: teamKeys.members(), queryFn: ({ signal }) => getMembers(signal) });
 
 export function useMembers() {
   return useQuery(membersQueryOptions());

@@ -13,11 +13,21 @@ export type InvitationDetails = z.infer<typeof invitationDetailsSchema>;
 
 /** `POST /api/invitations/lookup {token}` (public): who the invitation is for; 404/410 when unusable. */
 export function lookupInvitation(token: string, signal?: AbortSignal) {
-  return apiRequest('/invitations/lookup', { method: 'POST', body: { token }, schema: invitationDetailsSchema, signal });
+  return apiRequest('/invitations/lookup', {
+    method: 'POST',
+    body: { token },
+    schema: invitationDetailsSchema,
+    signal,
+  });
 }
 
 export const invitationQueryOptions = (token: string) =>
-  queryOptions({ queryKey: ['invitation', token] as const, queryFn: ({ signal }) => lookupInvitation(token, signal), staleTime: Infinity, retry: false });
+  queryOptions({
+    queryKey: ['invitation', token] as const,
+    queryFn: ({ signal }) => lookupInvitation(token, signal),
+    staleTime: Infinity,
+    retry: false,
+  });
 
 export function useInvitationDetails(token: string) {
   return useQuery({ ...invitationQueryOptions(token), enabled: token !== '' });

@@ -4,7 +4,10 @@ import { invitationSchema, teamKeys } from './team-schemas';
 
 /** `DELETE /api/team/invitations/:id`: the link stops working. */
 export function withdrawInvitation(id: string) {
-  return apiRequest(`/team/invitations/${encodeURIComponent(id)}`, { method: 'DELETE', schema: invitationSchema });
+  return apiRequest(`/team/invitations/${encodeURIComponent(id)}`, {
+    method: 'DELETE',
+    schema: invitationSchema,
+  });
 }
 
 export function useWithdrawInvitation() {

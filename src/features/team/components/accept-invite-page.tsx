@@ -27,7 +27,12 @@ export function AcceptInvitePage() {
       </AuthCard>
     );
   }
-  if (details.isPending) return <AuthCard intro="Reading the invitation…"><LoadingLine /></AuthCard>;
+  if (details.isPending)
+    return (
+      <AuthCard intro="Reading the invitation…">
+        <LoadingLine />
+      </AuthCard>
+    );
   if (details.isError) {
     return (
       <AuthCard intro="This invitation cannot be used.">
@@ -59,15 +64,23 @@ export function AcceptInvitePage() {
       intro={
         <>
           <p className="text-base text-steel-800">
-            Welcome, {inv.name}. You are invited to <strong>{inv.team.name}</strong> as <strong data-testid="invited-role">{roleLabel(inv.role)}</strong>.
+            Welcome, {inv.name}. You are invited to <strong>{inv.team.name}</strong> as{' '}
+            <strong data-testid="invited-role">{roleLabel(inv.role)}</strong>.
           </p>
           <p className="mt-1">
-            Choose the password for <strong>{inv.email}</strong>. The link works once, until {formatDateTime(inv.expiresAt)}.
+            Choose the password for <strong>{inv.email}</strong>. The link works once, until{' '}
+            {formatDateTime(inv.expiresAt)}.
           </p>
         </>
       }
     >
-      <NewPasswordForm submitLabel="Join the team and sign in" pending={accept.isPending} error={accept.isError ? accept.error.message : null} onSubmit={onSubmit} username={inv.email} />
+      <NewPasswordForm
+        submitLabel="Join the team and sign in"
+        pending={accept.isPending}
+        error={accept.isError ? accept.error.message : null}
+        onSubmit={onSubmit}
+        username={inv.email}
+      />
     </AuthCard>
   );
 }

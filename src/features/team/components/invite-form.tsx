@@ -15,7 +15,10 @@ export function InviteForm() {
   const invite = useInviteMember();
   const [sent, setSent] = useState<string | null>(null);
   const [formError, setFormError] = useState<string | null>(null);
-  const form = useForm<InviteMemberInput>({ resolver: zodResolver(inviteMemberSchema), defaultValues: { name: '', email: '', role: 'designer' } });
+  const form = useForm<InviteMemberInput>({
+    resolver: zodResolver(inviteMemberSchema),
+    defaultValues: { name: '', email: '', role: 'designer' },
+  });
   const { errors } = form.formState;
 
   const onSubmit = form.handleSubmit((values) => {
@@ -23,7 +26,9 @@ export function InviteForm() {
     setFormError(null);
     invite.mutate(values, {
       onSuccess: (inv) => {
-        setSent(`Invitation sent to ${inv.email}. The link works once, for ${INVITATION_DAYS} days.`);
+        setSent(
+          `Invitation sent to ${inv.email}. The link works once, for ${INVITATION_DAYS} days.`,
+        );
         form.reset({ name: '', email: '', role: values.role });
       },
       onError: (e) => {
@@ -34,10 +39,31 @@ export function InviteForm() {
   });
 
   return (
-    <form aria-label="Invite a member" onSubmit={(e) => void onSubmit(e)} noValidate className="grid grid-cols-[1fr_1fr_10rem_auto] items-start gap-3">
-      <TextField label="Name" autoComplete="off" {...form.register('name')} error={errors.name?.message && `Name ${errors.name.message}`} />
-      <TextField label="E-mail" type="email" autoComplete="off" {...form.register('email')} error={errors.email?.message && `E-mail ${errors.email.message}`} />
-      <SelectField label="Role" options={ROLE_OPTIONS} {...form.register('role')} error={errors.role?.message && `Role ${errors.role.message}`} />
+    <form
+      aria-label="Invite a member"
+      onSubmit={(e) => void onSubmit(e)}
+      noValidate
+      className="grid grid-cols-[1fr_1fr_10rem_auto] items-start gap-3"
+    >
+      <TextField
+        label="Name"
+        autoComplete="off"
+        {...form.register('name')}
+        error={errors.name?.message && `Name ${errors.name.message}`}
+      />
+      <TextField
+        label="E-mail"
+        type="email"
+        autoComplete="off"
+        {...form.register('email')}
+        error={errors.email?.message && `E-mail ${errors.email.message}`}
+      />
+      <SelectField
+        label="Role"
+        options={ROLE_OPTIONS}
+        {...form.register('role')}
+        error={errors.role?.message && `Role ${errors.role.message}`}
+      />
       <Button type="submit" variant="primary" className="mt-4" disabled={invite.isPending}>
         {invite.isPending ? 'Sending…' : 'Send invitation'}
       </Button>

@@ -30,19 +30,29 @@ export function MembersPage() {
       title="Team members"
       intro={
         <>
-          {me.data?.team?.name ?? 'Your team'} · {members.data ? `${members.data.length} member${members.data.length === 1 ? '' : 's'}` : '…'}
+          {me.data?.team?.name ?? 'Your team'} ·{' '}
+          {members.data
+            ? `${members.data.length} member${members.data.length === 1 ? '' : 's'}`
+            : '…'}
           {manage ? ' · a team keeps at least one admin' : null}
         </>
       }
     >
       {manage ? (
         <Panel title="Invite a member">
-          <p className="mb-3 text-sm text-steel-600">The person gets an e-mail with a link to choose their own password, then signs in with the role you pick.</p>
+          <p className="mb-3 text-sm text-steel-600">
+            The person gets an e-mail with a link to choose their own password, then signs in with
+            the role you pick.
+          </p>
           <InviteForm />
         </Panel>
       ) : null}
       <Panel title="Members">
-        {members.isPending ? <LoadingLine /> : members.isError ? <ErrorLine error={members.error} /> : null}
+        {members.isPending ? (
+          <LoadingLine />
+        ) : members.isError ? (
+          <ErrorLine error={members.error} />
+        ) : null}
         {members.data ? (
           <table className={tableClass} data-testid="members">
             <thead>
@@ -51,12 +61,22 @@ export function MembersPage() {
                 <th className={thClass}>E-mail</th>
                 <th className={thClass}>Role</th>
                 <th className={thClass}>Member since</th>
-                {manage ? <th className={thClass}><span className="sr-only">Actions</span></th> : null}
+                {manage ? (
+                  <th className={thClass}>
+                    <span className="sr-only">Actions</span>
+                  </th>
+                ) : null}
               </tr>
             </thead>
             <tbody>
               {members.data.map((m) => (
-                <MemberRow key={m.userId} member={m} manage={manage} isSelf={m.userId === me.data?.user.id} soleAdmin={m.role === 'admin' && admins <= 1} />
+                <MemberRow
+                  key={m.userId}
+                  member={m}
+                  manage={manage}
+                  isSelf={m.userId === me.data?.user.id}
+                  soleAdmin={m.role === 'admin' && admins <= 1}
+                />
               ))}
             </tbody>
           </table>
@@ -67,7 +87,17 @@ export function MembersPage() {
   );
 }
 
-function MemberRow({ member, manage, isSelf, soleAdmin }: { readonly member: Member; readonly manage: boolean; readonly isSelf: boolean; readonly soleAdmin: boolean }) {
+function MemberRow({
+  member,
+  manage,
+  isSelf,
+  soleAdmin,
+}: {
+  readonly member: Member;
+  readonly manage: boolean;
+  readonly isSelf: boolean;
+  readonly soleAdmin: boolean;
+}) {
   const change = useChangeRole();
   const remove = useRemoveMember();
   const [confirming, setConfirming] = useState(false);
@@ -102,14 +132,18 @@ function MemberRow({ member, manage, isSelf, soleAdmin }: { readonly member: Mem
         ) : (
           roleLabel(member.role)
         )}
-        {manage && soleAdmin ? <p className="mt-0.5 text-xs text-steel-500">The team's only admin</p> : null}
+        {manage && soleAdmin ? (
+          <p className="mt-0.5 text-xs text-steel-500">The team's only admin</p>
+        ) : null}
         {error ? (
           <p role="alert" className="mt-1 max-w-md text-xs text-red-700">
             {error.message}
           </p>
         ) : null}
       </td>
-      <td className={cn(tdClass, 'tabular-nums')}>{member.createdAt ? formatDateTime(member.createdAt) : '—'}</td>
+      <td className={cn(tdClass, 'tabular-nums')}>
+        {member.createdAt ? formatDateTime(member.createdAt) : '—'}
+      </td>
       {manage ? (
         <td className={cn(tdClass, 'whitespace-nowrap text-right')}>
           {confirming ? (
@@ -131,7 +165,12 @@ function MemberRow({ member, manage, isSelf, soleAdmin }: { readonly member: Mem
               </Button>
             </span>
           ) : (
-            <Button size="sm" variant="danger" aria-label={`Remove ${who}`} onClick={() => setConfirming(true)}>
+            <Button
+              size="sm"
+              variant="danger"
+              aria-label={`Remove ${who}`}
+              onClick={() => setConfirming(true)}
+            >
               Remove
             </Button>
           )}
@@ -147,7 +186,12 @@ const stateLook: Record<Invitation['state'], string> = {
   expired: 'bg-steel-100 text-steel-600',
   revoked: 'bg-steel-100 text-steel-600',
 };
-const stateLabel: Record<Invitation['state'], string> = { pending: 'Waiting', accepted: 'Accepted', expired: 'Expired', revoked: 'Withdrawn' };
+const stateLabel: Record<Invitation['state'], string> = {
+  pending: 'Waiting',
+  accepted: 'Accepted',
+  expired: 'Expired',
+  revoked: 'Withdrawn',
+};
 
 function InvitationsPanel() {
   const invitations = useInvitations();
@@ -156,9 +200,15 @@ function InvitationsPanel() {
   const error = withdraw.error ?? resend.error;
   return (
     <Panel title="Invitations">
-      {invitations.isPending ? <LoadingLine /> : invitations.isError ? <ErrorLine error={invitations.error} /> : null}
+      {invitations.isPending ? (
+        <LoadingLine />
+      ) : invitations.isError ? (
+        <ErrorLine error={invitations.error} />
+      ) : null}
       {error ? <ErrorLine error={error} /> : null}
-      {invitations.data && invitations.data.length === 0 ? <p className="text-sm text-steel-500">No invitations sent yet.</p> : null}
+      {invitations.data && invitations.data.length === 0 ? (
+        <p className="text-sm text-steel-500">No invitations sent yet.</p>
+      ) : null}
       {invitations.data && invitations.data.length > 0 ? (
         <table className={tableClass} data-testid="invitations">
           <thead>
@@ -181,16 +231,29 @@ function InvitationsPanel() {
                 <td className={tdClass}>{inv.email}</td>
                 <td className={tdClass}>{roleLabel(inv.role)}</td>
                 <td className={tdClass}>
-                  <span className={cn('rounded px-1.5 py-px text-xs font-medium', stateLook[inv.state])}>{stateLabel[inv.state]}</span>
+                  <span
+                    className={cn('rounded px-1.5 py-px text-xs font-medium', stateLook[inv.state])}
+                  >
+                    {stateLabel[inv.state]}
+                  </span>
                 </td>
                 <td className={cn(tdClass, 'tabular-nums')}>
                   {formatDateTime(inv.createdAt)}
-                  {inv.invitedBy ? <span className="block text-xs text-steel-500">by {inv.invitedBy}</span> : null}
+                  {inv.invitedBy ? (
+                    <span className="block text-xs text-steel-500">by {inv.invitedBy}</span>
+                  ) : null}
                 </td>
-                <td className={cn(tdClass, 'tabular-nums')}>{inv.state === 'accepted' ? '—' : formatDateTime(inv.expiresAt)}</td>
+                <td className={cn(tdClass, 'tabular-nums')}>
+                  {inv.state === 'accepted' ? '—' : formatDateTime(inv.expiresAt)}
+                </td>
                 <td className={cn(tdClass, 'whitespace-nowrap text-right')}>
                   {inv.state === 'pending' ? (
-                    <Button size="sm" variant="ghost" disabled={withdraw.isPending} onClick={() => withdraw.mutate(inv.id)}>
+                    <Button
+                      size="sm"
+                      variant="ghost"
+                      disabled={withdraw.isPending}
+                      onClick={() => withdraw.mutate(inv.id)}
+                    >
                       Withdraw
                     </Button>
                   ) : null}
@@ -199,7 +262,13 @@ function InvitationsPanel() {
                       size="sm"
                       variant="ghost"
                       disabled={resend.isPending}
-                      onClick={() => resend.mutate({ name: inv.name, email: inv.email, role: isRole(inv.role) ? inv.role : 'designer' })}
+                      onClick={() =>
+                        resend.mutate({
+                          name: inv.name,
+                          email: inv.email,
+                          role: isRole(inv.role) ? inv.role : 'designer',
+                        })
+                      }
                     >
                       Send again
                     </Button>
