@@ -1,41 +1,10 @@
-import { execFile } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { runCheck } from '@shared/cli/check';
+import { cliRunner, fileWriter, tempDir } from './run-cli';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const TSX = join(ROOT, 'node_modules', '.bin', 'tsx');
-const CLI = join(ROOT, 'shared', 'cli', 'check.ts');
-
-function run(
-  args: string[],
-  stdin?: string,
-): Promise<{ code: number; stdout: string; stderr: string }> {
-  return new Promise((resolve) => {
-    const child = execFile(
-      TSX,
-      [CLI, ...args],
-      { cwd: ROOT, timeout: 20_000 },
-      (err, stdout, stderr) => {
-        const code =
-          err && typeof (err as { code?: unknown }).code === 'number'
-            ? (err as { code: number }).code
-            : 0;
-        resolve({ code, stdout, stderr });
-      },
-    );
-    if (stdin !== undefined) child.stdin?.end(stdin);
-  });
-}
-
-const dir = mkdtempSync(join(tmpdir(), 'spoolwright-cli-'));
-const write = (name: string, data: unknown) => {
-  const p = join(dir, name);
-  writeFileSync(p, typeof data === 'string' ? data : JSON.stringify(data));
-  return p;
-};
+const run = cliRunner('check');
+const dir = tempDir('spoolwright-cli-');
+const write = fileWriter(dir);
 
 const base = {
   units: 'imperial',

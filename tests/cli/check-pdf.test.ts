@@ -1,33 +1,14 @@
-import { execFile, execFileSync } from 'node:child_process';
-import { existsSync, mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { execFileSync } from 'node:child_process';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { CAUTION } from '@shared/model/caution';
 import { runCheck } from '@shared/cli/check';
+import { cliRunner, fileWriter, tempDir } from './run-cli';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const TSX = join(ROOT, 'node_modules', '.bin', 'tsx');
-const CLI = join(ROOT, 'shared', 'cli', 'check.ts');
-
-function run(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
-  return new Promise((resolve) => {
-    execFile(TSX, [CLI, ...args], { cwd: ROOT, timeout: 30_000 }, (err, stdout, stderr) => {
-      const code =
-        err && typeof (err as { code?: unknown }).code === 'number'
-          ? (err as { code: number }).code
-          : 0;
-      resolve({ code, stdout, stderr });
-    });
-  });
-}
-
-const dir = mkdtempSync(join(tmpdir(), 'spoolwright-cli-pdf-'));
-const write = (name: string, data: unknown) => {
-  const p = join(dir, name);
-  writeFileSync(p, JSON.stringify(data));
-  return p;
-};
+const run = cliRunner('check');
+const dir = tempDir('spoolwright-cli-pdf-');
+const write = fileWriter(dir);
 const pdfText = (file: string) =>
   execFileSync('pdftotext', [file, '-']).toString('utf8').replace(/\s+/g, ' ');
 

@@ -1,42 +1,11 @@
-import { execFile } from 'node:child_process';
-import { mkdtempSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import Papa from 'papaparse';
 import { describe, expect, it } from 'vitest';
 import { runShop } from '@shared/cli/shop';
+import { cliRunner, fileWriter, tempDir } from './run-cli';
 
-const ROOT = join(import.meta.dirname, '..', '..');
-const TSX = join(ROOT, 'node_modules', '.bin', 'tsx');
-const CLI = join(ROOT, 'shared', 'cli', 'shop.ts');
-
-function run(
-  args: string[],
-  stdin?: string,
-): Promise<{ code: number; stdout: string; stderr: string }> {
-  return new Promise((resolve) => {
-    const child = execFile(
-      TSX,
-      [CLI, ...args],
-      { cwd: ROOT, timeout: 20_000 },
-      (err, stdout, stderr) => {
-        const code =
-          err && typeof (err as { code?: unknown }).code === 'number'
-            ? (err as { code: number }).code
-            : 0;
-        resolve({ code, stdout, stderr });
-      },
-    );
-    if (stdin !== undefined) child.stdin?.end(stdin);
-  });
-}
-
-const dir = mkdtempSync(join(tmpdir(), 'spoolwright-shop-'));
-const write = (name: string, data: unknown) => {
-  const p = join(dir, name);
-  writeFileSync(p, typeof data === 'string' ? data : JSON.stringify(data));
-  return p;
-};
+const run = cliRunner('shop');
+const dir = tempDir('spoolwright-shop-');
+const write = fileWriter(dir);
 
 // NPS 4 Sch 40 (4.500 × 0.237 in, ASME B36.10M), A106 B at 500 °F: ST/S = 20.0/18.9 (B31.3 Table A-1).
 const spool = {
