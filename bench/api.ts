@@ -5,71 +5,18 @@
  * connection saves its own spool with the version it got back), listing 500 spools.
  * Run: npm run bench:api
  */
-import { spawn } from 'node:child_process';
-import fs from 'node:fs';
-import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import autocannon from 'autocannon';
 import { buildLongSpool } from '../server/db/demo-spools';
+import { signInHeaders, startBenchServer } from './lib/bench-server';
 
 const ROOT = path.resolve(import.meta.dirname, '..');
 const CONNECTIONS = 10;
 const DURATION = Number(process.env.BENCH_SECONDS ?? 5);
 
-const freePort = () =>
-  new Promise<number>((resolve, reject) => {
-    const s = net.createServer();
-    s.once('error', reject);
-    s.listen(0, '127.0.0.1', () => {
-      const p = (s.address() as net.AddressInfo).port;
-      s.close(() => resolve(p));
-    });
-  });
-
-const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-bench-'));
-const port = await freePort();
-const url = `http://127.0.0.1:${port}`;
-const child = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server/index.ts')], {
-  cwd: ROOT,
-  env: {
-    ...process.env,
-    NODE_ENV: 'production',
-    DATA_DIR: dataDir,
-    PORT: String(port),
-    HOST: '127.0.0.1',
-    SPOOLWRIGHT_QUIET: '1',
-  },
-  stdio: ['ignore', 'pipe', 'inherit'],
-});
-await new Promise<void>((resolve, reject) => {
-  let out = '';
-  child.stdout!.on('data', (d: Buffer) => {
-    out += d.toString();
-    if (out.includes('Spoolwright is running at')) resolve();
-  });
-  child.once('exit', (code) => reject(new Error(`server exited ${code}: ${out}`)));
-});
-
-const cleanup = () => {
-  if (child.exitCode === null) child.kill('SIGTERM');
-};
-process.on('exit', () => {
-  cleanup();
-  fs.rmSync(dataDir, { recursive: true, force: true });
-});
-
-const signIn = await fetch(`${url}/api/auth/sign-in/email`, {
-  method: 'POST',
-  headers: { 'content-type': 'application/json', origin: url },
-  body: JSON.stringify({ email: 'lead@spoolwright.test', password: 'spoolwright-demo' }),
-});
-if (signIn.status !== 200) throw new Error(`sign-in failed: ${signIn.status}`);
-const cookie = signIn.headers
-  .getSetCookie()
-  .map((c) => c.split(';')[0])
-  .join('; ');
-const headers = { cookie, origin: url, 'content-type': 'application/json' };
+const { url, stop: cleanup } = await startBenchServer(ROOT, { tmpPrefix: 'spoolwright-bench-' });
+const headers = await signInHeaders(url, 'lead@spoolwright.test');
 
 async function post(p: string, body: unknown) {
   const r = await fetch(`${url}${p}`, { method: 'POST', headers, body: JSON.stringify(body) });

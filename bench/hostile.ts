@@ -10,60 +10,21 @@
  * Run: npm run bench:hostile   (BENCH_ROOT=<checkout> runs another checkout's server;
  * BENCH_TIMEOUT_S bounds each hostile request, default 120)
  */
-import { spawn } from 'node:child_process';
-import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { Worker } from 'node:worker_threads';
-import { freePort } from '../scripts/lib/tooling';
 import { buildLongSpool } from '../server/db/demo-spools';
+import { signInHeaders, startBenchServer } from './lib/bench-server';
 
 const ROOT = path.resolve(process.env.BENCH_ROOT ?? path.resolve(import.meta.dirname, '..'));
 const TIMEOUT_MS = Number(process.env.BENCH_TIMEOUT_S ?? 120) * 1000;
 
-const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), 'spoolwright-hostile-'));
-const port = await freePort();
-const url = `http://127.0.0.1:${port}`;
-const child = spawn(process.execPath, ['--import', 'tsx', path.join(ROOT, 'server/index.ts')], {
-  cwd: ROOT,
-  env: {
-    ...process.env,
-    NODE_ENV: 'production',
-    DATA_DIR: dataDir,
-    PORT: String(port),
-    HOST: '127.0.0.1',
-    SPOOLWRIGHT_QUIET: '1',
-    RATE_LIMIT: 'off',
-  },
-  stdio: ['ignore', 'pipe', 'inherit'],
-});
-await new Promise<void>((resolve, reject) => {
-  let out = '';
-  child.stdout!.on('data', (d: Buffer) => {
-    out += d.toString();
-    if (out.includes('Spoolwright is running at')) resolve();
-  });
-  child.once('exit', (code) => reject(new Error(`server exited ${code}: ${out}`)));
-});
-const cleanup = () => {
-  if (child.exitCode === null) child.kill('SIGTERM');
-};
-process.on('exit', () => {
-  cleanup();
-  fs.rmSync(dataDir, { recursive: true, force: true });
-});
-
-const signIn = await fetch(`${url}/api/auth/sign-in/email`, {
-  method: 'POST',
-  headers: { 'content-type': 'application/json', origin: url },
-  body: JSON.stringify({ email: 'lead@spoolwright.test', password: 'spoolwright-demo' }),
-});
-if (signIn.status !== 200) throw new Error(`sign-in failed: ${signIn.status}`);
-const cookie = signIn.headers
-  .getSetCookie()
-  .map((c) => c.split(';')[0])
-  .join('; ');
-const headers = { cookie, origin: url, 'content-type': 'application/json' };
+const {
+  url,
+  child,
+  stop: cleanup,
+} = await startBenchServer(ROOT, { tmpPrefix: 'spoolwright-hostile-', env: { RATE_LIMIT: 'off' } });
+const headers = await signInHeaders(url, 'lead@spoolwright.test');
 
 async function call(method: string, p: string, body?: string, type = 'application/json') {
   const ctrl = new AbortController();
