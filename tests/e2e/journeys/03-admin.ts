@@ -8,7 +8,7 @@ import {
   journey,
   newContext,
   openPage,
-  findMail,
+  readMail,
   screenshot,
   signIn,
   step,
@@ -37,39 +37,22 @@ const RESET_PASSWORD = 'ilse-second-password';
 const MATERIAL_ID = `KX-F-${stamp}`;
 const CSV_MATERIAL_ID = `KX-C-${stamp}`;
 
-/**
- * The newest mail to `to` containing `link`: from the server's mailbox folder, or (while the
- * server still keeps links in its outbox rows) from the admin outbox.
- */
+/** The newest mail to `to` containing `link` that this journey has not read yet, from the server's mailbox folder. */
 async function waitForMailText(
-  admin: Page,
-  base: string,
+  _admin: Page,
+  _base: string,
   shared: E2EShared,
   to: string,
   link: RegExp,
 ): Promise<string> {
   const deadline = Date.now() + 15_000;
   while (Date.now() < deadline) {
-    if (shared.dataDir) {
-      const m = findMail(shared.dataDir, to);
-      if (m && link.test(m.text) && !seen.has(m.text)) {
-        seen.add(m.text);
-        return m.text;
-      }
+    const text = await readMail(shared.dataDir!, to, { timeoutMs: 300 }).catch(() => null);
+    if (text && link.test(text) && !seen.has(text)) {
+      seen.add(text);
+      return text;
     }
-    const r = await admin.request.get(`${base}/api/admin/outbox?limit=100`);
-    if (r.ok()) {
-      const items = ((await r.json()) as { items: { to: string; text: string }[] }).items;
-      const hit = items.find(
-        (i) =>
-          i.to.toLowerCase().includes(to.toLowerCase()) && link.test(i.text) && !seen.has(i.text),
-      );
-      if (hit) {
-        seen.add(hit.text);
-        return hit.text;
-      }
-    }
-    await new Promise((res) => setTimeout(res, 300));
+    await new Promise((res) => setTimeout(res, 200));
   }
   throw new Error(`no mail to ${to} with ${link}`);
 }
